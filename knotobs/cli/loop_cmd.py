@@ -1,0 +1,78 @@
+"""``knotobs loop`` and ``knotobs poly``: exact torus-knot invariants."""
+
+from __future__ import annotations
+
+from typing import Optional
+
+import typer
+
+from knotobs.cli._app import app, emit, handle_errors
+from knotobs.errors import ParseError
+from knotobs.evaluation.families import alexander, colored_jones, homfly, jones, wilson_loop
+from knotobs.output.text import render_polynomial
+from knotobs.representations.partitions import parse_partition
+
+
+def _reps(text: str):
+    """``[2,1]`` or ``[2,1];[1]`` (one partition per component)."""
+    parts = [p for p in text.split(";") if p.strip()]
+    if len(parts) == 1:
+        return parse_partition(parts[0])
+    return [parse_partition(p) for p in parts]
+
+
+def _framing(text: Optional[str]):
+    if text is None:
+        return 0
+    if "," in text:
+        try:
+            return [int(x) for x in text.strip("[]() ").split(",")]
+        except ValueError:
+            raise ParseError(f"cannot read framing {text!r}: give an integer, a list like 1,0 or 'fiber'") from None
+    return text
+
+
+@app.command()
+@handle_errors
+def loop(
+    knot: str = typer.Argument(..., help="Torus knot or link, e.g. T(2,3) or T(4,6)."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N)."),
+    rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1]; links: [1];[2] per component."),
+    framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
+    normalized: bool = typer.Option(False, "--normalized", help="Divide by the unknot (default: unknot = dim_q)."),
+    route: str = typer.Option("rosso-jones", "--route", help="rosso-jones, weight-sum or both (checks agreement)."),
+    as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
+) -> None:
+    """Exact Wilson loop of a torus knot/link in S^3 as a polynomial in q."""
+    res = wilson_loop(knot, group, _reps(rep), _framing(framing), normalized, route)
+    emit(res.to_json(), render_polynomial(res), as_json)
+
+
+@app.command()
+@handle_errors
+def poly(
+    knot: str = typer.Argument(..., help="Torus knot or link, e.g. T(2,3)."),
+    family: str = typer.Option("jones", "--family", help="jones, colored-jones, homfly or alexander."),
+    color: Optional[int] = typer.Option(None, "--color", help="Colour n of the coloured Jones polynomial (dimension)."),
+    rep: Optional[str] = typer.Option(None, "--rep", help="Partition colouring the HOMFLY-PT polynomial, e.g. [2,1]."),
+    t_is: str = typer.Option("q^-1", "--t", help="Variable map for Jones: t = q^-1 (standard) or t = q."),
+    mirror: bool = typer.Option(False, "--mirror", help="Mirror image of the knot."),
+    unnormalized: bool = typer.Option(False, "--unnormalized", help="Do not divide by the unknot."),
+    as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
+) -> None:
+    """A named polynomial (Jones, coloured Jones, HOMFLY-PT, Alexander) with its profile."""
+    fam = family.lower().replace("_", "-")
+    norm = not unnormalized
+    if fam == "jones":
+        res = jones(knot, t_is=t_is, mirror=mirror, normalized=norm)
+    elif fam in ("colored-jones", "coloured-jones"):
+        if color is None:
+            raise ParseError("--family colored-jones needs --color N (N = dimension of the SU(2) irrep, N >= 1)")
+        res = colored_jones(knot, color, t_is=t_is, mirror=mirror, normalized=norm)
+    elif fam in ("homfly", "homfly-pt", "homflypt"):
+        res = homfly(knot, _reps(rep) if rep else (1,), mirror=mirror, normalized=norm)
+    elif fam == "alexander":
+        res = alexander(knot, mirror=mirror)
+    else:
+        raise ParseError(f"unknown family {family!r}: choose jones, colored-jones, homfly or alexander")
+    emit(res.to_json(), render_polynomial(res), as_json)

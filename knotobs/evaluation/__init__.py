@@ -1,0 +1,32 @@
+"""Evaluation routes for exact observables and the entry points that pick one."""
+
+from knotobs.evaluation.families import (
+    ROUTES,
+    RouteMismatchError,
+    alexander,
+    colored_jones,
+    homfly,
+    jones,
+    wilson_loop,
+)
+from knotobs.evaluation.framing import resolve_framing
+from knotobs.evaluation.profiles import Profile
+from knotobs.evaluation.result import PolynomialResult
+from knotobs.evaluation.rosso_jones import rosso_jones, rosso_jones_homfly
+from knotobs.evaluation.weight_sum import weight_sum
+
+__all__ = [
+    "ROUTES",
+    "RouteMismatchError",
+    "Profile",
+    "PolynomialResult",
+    "alexander",
+    "colored_jones",
+    "homfly",
+    "jones",
+    "resolve_framing",
+    "rosso_jones",
+    "rosso_jones_homfly",
+    "weight_sum",
+    "wilson_loop",
+]

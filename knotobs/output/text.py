@@ -1,0 +1,24 @@
+"""Human-readable text for results (the JSON form is each result's ``to_json``)."""
+
+from __future__ import annotations
+
+from knotobs.evaluation.result import PolynomialResult
+
+__all__ = ["render_polynomial"]
+
+_TITLES = {
+    "wilson-loop": "Wilson loop",
+    "jones": "Jones polynomial V(t)",
+    "colored-jones": "coloured Jones polynomial J_n(t)",
+    "homfly": "HOMFLY-PT polynomial P(a, z)",
+    "alexander": "Alexander polynomial Delta(t)",
+}
+
+
+def render_polynomial(result: PolynomialResult) -> str:
+    """Title line, the exact polynomial, then the convention profile."""
+    cols = ", ".join(str(list(c)) for c in result.colours)
+    head = f"{_TITLES.get(result.quantity, result.quantity)} of {result.knot}, {result.group}, colour {cols}"
+    body = result.exact_string()
+    return "\n".join([head, "", "  " + body, "", result.profile.describe(),
+                      f"route:         {result.route}   ({result.num_terms()} terms)"])

@@ -1,0 +1,184 @@
+"""Integer partitions (Young diagrams) and their combinatorial data.
+
+A partition is a non-increasing tuple of positive integers ``(l_1, ..., l_r)``;
+the empty partition ``()`` labels the trivial representation.  Boxes are
+indexed ``(i, j)`` from 0 (row ``i``, column ``j``); the content of a box is
+``j - i`` and its hook length ``l_i - j + l'_j - i - 1`` (common practice;
+I. G. Macdonald, *Symmetric Functions and Hall Polynomials*, 2nd ed., OUP 1995,
+ch. I).
+"""
+
+from __future__ import annotations
+
+import re
+from functools import lru_cache
+from typing import Iterable, Iterator, Sequence
+
+from knotobs.errors import InvalidRepresentationError, ParseError, SizeLimitError
+
+__all__ = [
+    "Partition",
+    "as_partition",
+    "parse_partition",
+    "partitions_of",
+    "conjugate",
+    "contents",
+    "hooks",
+    "kappa",
+    "to_dynkin",
+    "from_dynkin",
+    "MAX_PARTITION_SIZE",
+]
+
+Partition = tuple[int, ...]
+
+#: Largest number of boxes accepted from a user.  (The coloured Jones
+#: polynomial of colour n uses a one-row partition with n - 1 boxes.)
+MAX_PARTITION_SIZE = 2000
+
+
+def as_partition(parts: Iterable[int] | str) -> Partition:
+    """Validate and normalise a partition (trailing zeros are dropped).
+
+    Examples
+    --------
+    >>> as_partition([2, 1, 0])
+    (2, 1)
+    >>> as_partition([1, 2])
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.InvalidRepresentationError: [1, 2] is not a partition: parts must be non-increasing non-negative integers, e.g. [2,1]
+    """
+    if isinstance(parts, str):
+        return parse_partition(parts)
+    raw = list(parts)
+    ok = all(isinstance(x, int) and not isinstance(x, bool) and x >= 0 for x in raw)
+    ok = ok and all(raw[i] >= raw[i + 1] for i in range(len(raw) - 1))
+    if not ok:
+        raise InvalidRepresentationError(
+            f"{raw!r} is not a partition: parts must be non-increasing non-negative integers,"
+            " e.g. [2,1]"
+        )
+    lam = tuple(x for x in raw if x > 0)
+    if sum(lam) > MAX_PARTITION_SIZE:
+        raise SizeLimitError(
+            f"partition {list(lam)} has {sum(lam)} boxes; at most {MAX_PARTITION_SIZE} are supported"
+        )
+    return lam
+
+
+_PART_RE = re.compile(r"^\s*[\[(]?\s*(-?\d+(\s*,\s*-?\d+)*)?\s*,?\s*[\])]?\s*$")
+
+
+def parse_partition(text: str) -> Partition:
+    """Parse ``"[2,1]"``, ``"(2,1)"``, ``"2,1"`` or ``"[]"``.
+
+    >>> parse_partition("[3, 1, 1]")
+    (3, 1, 1)
+    """
+    m = _PART_RE.match(text)
+    if not m:
+        raise ParseError(f"cannot read partition {text!r}: write it as [l1,l2,...], e.g. [2,1]")
+    body = m.group(1)
+    parts = [int(x) for x in body.split(",")] if body else []
+    return as_partition(parts)
+
+
+def conjugate(lam: Sequence[int]) -> Partition:
+    """Transpose of a Young diagram.
+
+    >>> conjugate((3, 1))
+    (2, 1, 1)
+    """
+    if not lam:
+        return ()
+    return tuple(sum(1 for x in lam if x > j) for j in range(lam[0]))
+
+
+def contents(lam: Sequence[int]) -> list[int]:
+    """Contents ``j - i`` of all boxes, row by row."""
+    return [j - i for i, row in enumerate(lam) for j in range(row)]
+
+
+def hooks(lam: Sequence[int]) -> list[int]:
+    """Hook lengths of all boxes, row by row.
+
+    >>> hooks((2, 1))
+    [3, 1, 1]
+    """
+    lc = conjugate(lam)
+    return [lam[i] - j + lc[j] - i - 1 for i, row in enumerate(lam) for j in range(row)]
+
+
+def kappa(lam: Sequence[int]) -> int:
+    """``kappa(lam) = sum_i lam_i (lam_i - 2 i + 1)`` (i from 1) = 2 * sum of contents.
+
+    >>> kappa((2,)), kappa((1, 1))
+    (2, -2)
+    """
+    return sum(x * (x - 2 * i - 1) for i, x in enumerate(lam))
+
+
+@lru_cache(maxsize=None)
+def _partitions(n: int, max_part: int, max_len: int) -> tuple[Partition, ...]:
+    if n == 0:
+        return ((),)
+    if max_len == 0:
+        return ()
+    out = []
+    for first in range(min(n, max_part), 0, -1):
+        for rest in _partitions(n - first, first, max_len - 1):
+            out.append((first,) + rest)
+    return tuple(out)
+
+
+def partitions_of(n: int, max_len: int | None = None) -> tuple[Partition, ...]:
+    """All partitions of ``n`` (with at most ``max_len`` rows), in reverse lexicographic order.
+
+    >>> partitions_of(4)
+    ((4,), (3, 1), (2, 2), (2, 1, 1), (1, 1, 1, 1))
+    """
+    if n < 0:
+        return ()
+    return _partitions(n, n, n if max_len is None else max_len)
+
+
+def to_dynkin(lam: Sequence[int], N: int) -> tuple[int, ...]:
+    """Dynkin labels ``(l_1 - l_2, ..., l_{N-1} - l_N)`` of an SU(N) highest weight.
+
+    Columns of height ``N`` are dropped (they are the determinant).
+
+    >>> to_dynkin((2, 1), 3)
+    (1, 1)
+    """
+    lam = tuple(lam) + (0,) * max(0, N - len(lam))
+    if len(lam) > N:
+        raise InvalidRepresentationError(
+            f"partition {list(lam)} has {len(lam)} rows; SU({N}) allows at most {N}"
+        )
+    return tuple(lam[i] - lam[i + 1] for i in range(N - 1))
+
+
+def from_dynkin(labels: Sequence[int]) -> Partition:
+    """Partition with at most ``N - 1`` rows from SU(N) Dynkin labels.
+
+    >>> from_dynkin((1, 1))
+    (2, 1)
+    """
+    if any((not isinstance(x, int)) or x < 0 for x in labels):
+        raise InvalidRepresentationError(
+            f"Dynkin labels {list(labels)} must be non-negative integers"
+        )
+    rows = []
+    total = 0
+    for x in reversed(labels):
+        total += x
+        rows.append(total)
+    return as_partition(list(reversed(rows)))
+
+
+def iter_boxes(lam: Sequence[int]) -> Iterator[tuple[int, int]]:
+    """Boxes ``(i, j)`` of a Young diagram, row by row."""
+    for i, row in enumerate(lam):
+        for j in range(row):
+            yield i, j
