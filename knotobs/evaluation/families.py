@@ -255,10 +255,13 @@ def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
     return out.with_zpow(1 - c)
 
 
-def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True) -> PolynomialResult:
-    """HOMFLY-PT polynomial in ``(a, z)``, coloured by any partition.
+def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True, form: str | None = None) -> PolynomialResult:
+    """HOMFLY-PT polynomial in ``(a, z)`` or ``(a, q)``, coloured by any partition.
 
-    The value is kept in ``(a, s)`` (``s = q^(1/2)``, ``z = s - 1/s``) and printed in ``(a, z)``.
+    The value is kept in ``(a, s)`` (``s = q^(1/2)``, ``z = s - 1/s``) and printed in
+    ``(a, z)`` (``form="az"``, the default for the fundamental representation) or in
+    ``(a, q)`` (``form="aq"``, the default for other colours, which are in general not
+    polynomials in ``z``).
 
     Examples
     --------
@@ -276,15 +279,28 @@ def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True) -> Pol
     k = k0.mirror() if mirror else k0
     cols = colours_for(k, rep)
     val = _homfly_value(k, cols, normalized)
+    if form is None:
+        form = "az" if all(c == (1,) for c in cols) else "aq"
+    if form not in ("az", "aq"):
+        raise KnotobsError(f"unknown HOMFLY-PT form {form!r}: use 'az' or 'aq'")
+    if form == "az":
+        try:
+            val.to_az()
+        except KnotobsError:
+            raise KnotobsError(
+                f"the HOMFLY-PT polynomial of {k0} coloured by {[list(c) for c in cols]} is not a"
+                " Laurent polynomial in z; ask for the (a, q) form"
+            ) from None
     prof = Profile(
-        variables=("a", "z"), variable_map="a = q^(N/2), z = q^(1/2) - q^(-1/2)",
+        variables=("a", form[1]),
+        variable_map="a = q^(N/2), z = q^(1/2) - q^(-1/2)" if form == "az" else "a = q^(N/2), q = exp(2 pi i/(k+N))",
         framing=(0,) * k.components,
         framing_note="zero framing; for links the linking phase a^(-2 lk |lam_i||lam_j|) is removed",
         normalisation=NORMALISED if normalized else "unnormalised (unknot = (a - a^-1)/z)",
         chirality=_chir(mirror), skein="a P(L+) - a^-1 P(L-) = z P(L0)",
     )
     return PolynomialResult("homfly", str(k0), "U(N), generic N", cols, val, prof, "rosso-jones (generic N)",
-                            {"knot": str(k0), "rep": [list(c) for c in cols], "mirror": mirror, "normalized": normalized})
+                            {"knot": str(k0), "rep": [list(c) for c in cols], "mirror": mirror, "normalized": normalized, "form": form})
 
 
 def alexander(knot, mirror: bool = False) -> PolynomialResult:

@@ -47,6 +47,8 @@ class PolynomialResult:
     def exact_string(self) -> str:
         """Plain algebraic text, parsable by sympy after ``^ -> **``."""
         if isinstance(self.value, Laurent2):
+            if self.profile.variables == ("a", "q"):
+                return self.value.to_aq_string()
             return self.value.to_az_string()
         return self.value.to_string(self.profile.variables[0])
 
@@ -58,6 +60,8 @@ class PolynomialResult:
         import sympy
 
         if isinstance(self.value, Laurent2):
+            if self.profile.variables == ("a", "q"):
+                return self.value.to_sympy_aq()
             return self.value.to_sympy_az()
         return self.value.to_sympy(sympy.Symbol(self.profile.variables[0]))
 
@@ -84,6 +88,8 @@ class PolynomialResult:
 
     def num_terms(self) -> int:
         if isinstance(self.value, Laurent2):
+            if self.profile.variables == ("a", "q"):
+                return len(self.value.to_aq())
             return len(self.value.to_az())
         return self.value.num_terms()
 

@@ -242,6 +242,56 @@ class Laurent2:
             s += f" {sign} {body}"
         return s
 
+    def to_aq(self) -> dict[tuple[int, Fraction], int]:
+        """``{(i, e): c}`` for ``c a^i q^e`` with ``q = s^2`` (only without a ``z`` prefactor)."""
+        if self.zpow:
+            return self._zfree().to_aq()
+        out = {}
+        for i, f in sorted(self.c.items()):
+            for e, c in f.terms().items():
+                out[(i, e / 2)] = c
+        return out
+
+    def _zfree(self) -> "Laurent2":
+        z = Laurent.gen(self.svar) - Laurent.gen(self.svar) ** -1
+        base = Laurent2(self.c, self.avar, self.svar)
+        if self.zpow > 0:
+            return base * Laurent2.from_s(z ** self.zpow)
+        return base.exact_div_s(z ** (-self.zpow))
+
+    def to_aq_string(self, avar: str = "a", qvar: str = "q") -> str:
+        """Plain text of the ``(a, q)`` form (``q = s^2``), highest ``a`` power first."""
+        terms = self.to_aq()
+        if not terms:
+            return "0"
+        parts = []
+        for (i, e) in sorted(terms, key=lambda ie: (-ie[0], ie[1])):
+            c = terms[(i, e)]
+            monos = []
+            if i:
+                monos.append(avar if i == 1 else f"{avar}^{i}")
+            if e:
+                if e == 1:
+                    monos.append(qvar)
+                elif e.denominator == 1:
+                    monos.append(f"{qvar}^{e.numerator}")
+                else:
+                    monos.append(f"{qvar}^({e.numerator}/{e.denominator})")
+            mono = "*".join(monos)
+            a = abs(c)
+            body = mono if (mono and a == 1) else (f"{a}*{mono}" if mono else str(a))
+            parts.append(("-" if c < 0 else "+", body))
+        s = ("-" if parts[0][0] == "-" else "") + parts[0][1]
+        for sign, body in parts[1:]:
+            s += f" {sign} {body}"
+        return s
+
+    def to_sympy_aq(self):
+        import sympy
+
+        a, q = sympy.symbols(f"{self.avar} q")
+        return sympy.Add(*[c * a**i * q ** sympy.Rational(e.numerator, e.denominator) for (i, e), c in self.to_aq().items()])
+
     def to_sympy_az(self):
         import sympy
 

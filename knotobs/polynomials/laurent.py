@@ -361,6 +361,26 @@ class Laurent:
             val = val * y ** c._s
             return +val
 
+    def at_root_of_unity(self, K, dps: int = 30):
+        """Value at ``x = exp(2 pi i / K)`` for any (complex, non-integer) ``K``.
+
+        ``K`` may be an int, a Fraction, a string such as ``"7.5+0.3j"`` or an mpmath
+        number; ``2 pi i / K`` is formed at the working precision, so the result is
+        good to ``dps`` digits.
+
+        >>> from knotobs.representations import quantum_integer
+        >>> abs(quantum_integer(5).at_root_of_unity(5)) < 1e-25
+        True
+        """
+        with mpmath.workdps(dps + 10):
+            if isinstance(K, Fraction):
+                Kv = mpmath.mpf(K.numerator) / K.denominator
+            elif isinstance(K, str):
+                Kv = mpmath.mpmathify(K.replace("i", "j"))
+            else:
+                Kv = mpmath.mpmathify(K)
+            return self.evaluate(log_x=2j * mpmath.pi / Kv, dps=dps)
+
     # ------------------------------------------------------------ display
     def to_sympy(self, symbol=None):
         """The element as a sympy expression (display only)."""

@@ -15,6 +15,7 @@ from knotobs.representations.groups import (
     quantum_integer,
     tensor_fixed,
 )
+from knotobs.representations.complexified import ComplexRep, parse_complex_group
 from knotobs.representations.partitions import (
     as_partition,
     conjugate,
@@ -27,7 +28,7 @@ from knotobs.representations.symmetric import adams_generic, littlewood_richards
 from knotobs.representations.weights import kostka, weight_multiplicities
 
 __all__ = [
-    "SU", "U", "Group", "adams_fixed", "adams_generic", "as_partition", "casimir", "conjugate",
+    "ComplexRep", "parse_complex_group", "SU", "U", "Group", "adams_fixed", "adams_generic", "as_partition", "casimir", "conjugate",
     "dimension", "dual", "from_dynkin", "homfly_unknot", "kostka", "littlewood_richardson",
     "mn_character", "parse_group", "parse_partition", "partitions_of", "quantum_dimension",
     "quantum_dimension_hook_content", "quantum_integer", "tensor_fixed", "tensor_generic",
