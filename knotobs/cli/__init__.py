@@ -16,10 +16,15 @@ from knotobs.cli._app import app
 # Importing the command modules registers their commands on ``app``.
 from knotobs.cli import loop_cmd as _loop_cmd  # noqa: F401,E402
 
-try:  # commands that live in optional modules register themselves when present
-    from knotobs.cli import fibers_cmd as _fibers_cmd  # noqa: F401
-except ImportError:  # pragma: no cover - only while a module is being written
-    pass
+from importlib import import_module as _import_module
+
+# command modules written alongside (each registers its commands on ``app``)
+for _name in ("fibers_cmd", "finite_cmd", "match_cmd", "grid_cmd", "continue_cmd"):
+    try:
+        _import_module(f"knotobs.cli.{_name}")
+    except ModuleNotFoundError as _exc:  # pragma: no cover - module not written yet
+        if _exc.name != f"knotobs.cli.{_name}":
+            raise
 
 __all__ = ["app", "main"]
 
