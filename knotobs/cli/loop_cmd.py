@@ -8,7 +8,7 @@ import typer
 
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
-from knotobs.evaluation.families import alexander, colored_jones, homfly, jones, wilson_loop
+from knotobs.evaluation.families import alexander, colored_jones, homfly, homfly_at, jones, wilson_loop
 from knotobs.output.text import render_polynomial
 from knotobs.representations.partitions import parse_partition
 
@@ -57,6 +57,8 @@ def poly(
     rep: Optional[str] = typer.Option(None, "--rep", help="Partition colouring the HOMFLY-PT polynomial, e.g. [2,1]."),
     t_is: str = typer.Option("q^-1", "--t", help="Variable map for Jones: t = q^-1 (standard) or t = q."),
     mirror: bool = typer.Option(False, "--mirror", help="Mirror image of the knot."),
+    rank: Optional[int] = typer.Option(None, "--N", help="HOMFLY-PT only: specialise to SU(N), a = q^(N/2)."),
+    form: Optional[str] = typer.Option(None, "--form", help="HOMFLY-PT only: az or aq (default az for [1], aq otherwise)."),
     unnormalized: bool = typer.Option(False, "--unnormalized", help="Do not divide by the unknot."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
@@ -70,7 +72,11 @@ def poly(
             raise ParseError("--family colored-jones needs --color N (N = dimension of the SU(2) irrep, N >= 1)")
         res = colored_jones(knot, color, t_is=t_is, mirror=mirror, normalized=norm)
     elif fam in ("homfly", "homfly-pt", "homflypt"):
-        res = homfly(knot, _reps(rep) if rep else (1,), mirror=mirror, normalized=norm)
+        reps = _reps(rep) if rep else (1,)
+        if rank is not None:
+            res = homfly_at(knot, rank, reps, mirror=mirror)
+        else:
+            res = homfly(knot, reps, mirror=mirror, normalized=norm, form=form)
     elif fam == "alexander":
         res = alexander(knot, mirror=mirror)
     else:

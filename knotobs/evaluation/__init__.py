@@ -6,6 +6,7 @@ from knotobs.evaluation.families import (
     alexander,
     colored_jones,
     homfly,
+    homfly_at,
     jones,
     wilson_loop,
 )
@@ -23,6 +24,7 @@ __all__ = [
     "alexander",
     "colored_jones",
     "homfly",
+    "homfly_at",
     "jones",
     "resolve_framing",
     "rosso_jones",

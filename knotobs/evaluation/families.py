@@ -46,7 +46,7 @@ from knotobs.representations.groups import (
 )
 from knotobs.representations.partitions import as_partition, contents
 
-__all__ = ["wilson_loop", "jones", "colored_jones", "homfly", "alexander", "ROUTES", "RouteMismatchError"]
+__all__ = ["wilson_loop", "jones", "colored_jones", "homfly", "homfly_at", "alexander", "ROUTES", "RouteMismatchError"]
 
 ROUTES = ("rosso-jones", "weight-sum", "both")
 
@@ -301,6 +301,32 @@ def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True, form: 
     )
     return PolynomialResult("homfly", str(k0), "U(N), generic N", cols, val, prof, "rosso-jones (generic N)",
                             {"knot": str(k0), "rep": [list(c) for c in cols], "mirror": mirror, "normalized": normalized, "form": form})
+
+
+def homfly_at(knot, N: int, rep=(1,), mirror: bool = False) -> PolynomialResult:
+    """The normalised HOMFLY-PT polynomial specialised to SU(N): ``a = q^(N/2)``, ``s = q^(1/2)``.
+
+    For knots this is the normalised SU(N) Wilson loop of :func:`wilson_loop` (zero framing).
+
+    Examples
+    --------
+    >>> homfly_at("T(2,3)", 2).exact_string()
+    '-q^-4 + q^-3 + q^-1'
+
+    References
+    ----------
+    CONVENTIONS §1, §3.
+    """
+    res = homfly(knot, rep, mirror=mirror, normalized=True)
+    SU(N)  # validates N
+    val = res.value.specialize(Fraction(N, 2))
+    prof = Profile(
+        variables=("q",), variable_map=f"a = q^({N}/2), z = q^(1/2) - q^(-1/2)",
+        framing=res.profile.framing, framing_note=res.profile.framing_note,
+        normalisation=NORMALISED, chirality=res.profile.chirality, skein=res.profile.skein,
+    )
+    return PolynomialResult("homfly", res.knot, f"SU({N})", res.colours, val.canonical(), prof, res.route,
+                            dict(res.inputs, N=N))
 
 
 def alexander(knot, mirror: bool = False) -> PolynomialResult:

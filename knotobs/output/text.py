@@ -18,7 +18,10 @@ _TITLES = {
 def render_polynomial(result: PolynomialResult) -> str:
     """Title line, the exact polynomial, then the convention profile."""
     cols = ", ".join(str(list(c)) for c in result.colours)
-    head = f"{_TITLES.get(result.quantity, result.quantity)} of {result.knot}, {result.group}, colour {cols}"
+    title = _TITLES.get(result.quantity, result.quantity)
+    if result.quantity == "homfly":
+        title = "HOMFLY-PT polynomial P(" + ", ".join(result.profile.variables) + ")"
+    head = f"{title} of {result.knot}, {result.group}, colour {cols}"
     body = result.exact_string()
     return "\n".join([head, "", "  " + body, "", result.profile.describe(),
                       f"route:         {result.route}   ({result.num_terms()} terms)"])
