@@ -155,5 +155,8 @@ def rosso_jones_homfly(knot: TorusLink, colours, framing: FramingSpec = 0) -> tu
         a_shift += (f - m * n) * sum(lam)
     total = total.times_monomial(a_shift, s_shift)
     if knot.chirality < 0:
+        # the value is total / D; mirroring s -> 1/s also sends D to (-1)^size D
         total = total.mirror()
+        if size % 2:
+            total = -total
     return total, D
