@@ -244,6 +244,12 @@ def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
         # fundamental: W = P (a - 1/a)/z, a Laurent polynomial in a and z^-1
         zc = (Laurent.gen("s") - Laurent.gen("s") ** -1) ** c
         return num.times_monomial(0).__mul__(Laurent2.from_s(zc)).exact_div_s(D).with_zpow(-c)
+    if c > 1 and any(cc != (1,) for cc in cols):
+        raise InvalidRepresentationError(
+            f"the normalised HOMFLY-PT of the {c}-component link {knot} coloured by"
+            f" {[list(cc) for cc in cols]} is a rational function of (a, q), not a Laurent polynomial;"
+            " coloured links are available for a fixed N: use wilson_loop / 'knotobs loop --group U(N)'"
+        )
     lam = cols[0]
     unum, uden = homfly_unknot(lam)
     # a c-component link has P in z^(1-c) Z[a^+-1, z]: carry z^(c-1) along
@@ -257,6 +263,10 @@ def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
 
 def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True, form: str | None = None) -> PolynomialResult:
     """HOMFLY-PT polynomial in ``(a, z)`` or ``(a, q)``, coloured by any partition.
+
+    Knots take any colour; links take the fundamental colour on every component (a
+    coloured link's normalised HOMFLY-PT is a rational function, so it is refused with
+    a clear error; use a fixed N through :func:`wilson_loop` instead).
 
     The value is kept in ``(a, s)`` (``s = q^(1/2)``, ``z = s - 1/s``) and printed in
     ``(a, z)`` (``form="az"``, the default for the fundamental representation) or in

@@ -23,7 +23,7 @@ from __future__ import annotations
 from fractions import Fraction
 from typing import Sequence
 
-from knotobs.errors import InvalidKnotError
+from knotobs.errors import InvalidKnotError, InvalidRepresentationError
 from knotobs.evaluation._accumulate import CosetSum
 from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.fibrations.torus import TorusLink
@@ -46,7 +46,14 @@ __all__ = ["rosso_jones", "rosso_jones_homfly", "colours_for"]
 def colours_for(knot: TorusLink, colours) -> tuple[Partition, ...]:
     """One partition per component (a single partition colours every component)."""
     d = knot.components
-    if isinstance(colours, str) or (colours and isinstance(next(iter(colours)), int)) or colours == ():
+    if not isinstance(colours, str):
+        try:
+            colours = tuple(colours)
+        except TypeError:
+            raise InvalidRepresentationError(
+                f"colour {colours!r} is not a partition: give one partition such as [2,1], or one per component"
+            ) from None
+    if isinstance(colours, str) or (colours and isinstance(colours[0], int)) or colours == ():
         return (as_partition(colours),) * d
     cols = tuple(as_partition(c) for c in colours)
     if len(cols) != d:

@@ -51,7 +51,14 @@ def as_partition(parts: Iterable[int] | str) -> Partition:
     """
     if isinstance(parts, str):
         return parse_partition(parts)
-    raw = list(parts)
+    try:
+        if isinstance(parts, (dict, set, frozenset)):
+            raise TypeError
+        raw = list(parts)
+    except TypeError:
+        raise InvalidRepresentationError(
+            f"{parts!r} is not a partition: give a list of non-increasing non-negative integers, e.g. [2,1]"
+        ) from None
     ok = all(isinstance(x, int) and not isinstance(x, bool) and x >= 0 for x in raw)
     ok = ok and all(raw[i] >= raw[i + 1] for i in range(len(raw) - 1))
     if not ok:
