@@ -13,7 +13,9 @@ import typer
 
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.fibrations.refibration import fibration_of
+from knotobs.evaluation.level_loops import level_partition_function
 from knotobs.fibrations.surgery import space_report
+from knotobs.output.finite_text import finite_json, finite_text
 from knotobs.output.fibrations_text import (
     fibered_knot_json,
     fibered_knot_text,
@@ -46,8 +48,21 @@ def space(
     ),
     surgery: Optional[str] = typer.Option(None, "--surgery", help="A knot T(p,q) in S^3 to do surgery on."),
     slope: Optional[str] = typer.Option(None, "--slope", help="Surgery slope: integer or fraction like 5/2."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="With --level: SU(N)."),
+    level: Optional[int] = typer.Option(None, "--level", "-k", help="Print the partition function Z_k."),
+    digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
-    """Seifert data of a manifold (normal form, e, |H_1|, name), or of r-surgery on a torus knot."""
-    report = space_report(space_, surgery=surgery, slope=slope)
-    emit(space_json(report), space_text(report), as_json)
+    """Seifert data of a manifold (normal form, e, |H_1|, name), or of r-surgery on a torus knot;
+    with --level, its Chern-Simons partition function Z_k."""
+    if level is None:
+        report = space_report(space_, surgery=surgery, slope=slope)
+        emit(space_json(report), space_text(report), as_json)
+        return
+    value, report = level_partition_function(space_, group, level, digits, surgery=surgery, slope=slope)
+    payload = space_json(report)
+    payload.update(finite_json(value, {"space": space_, "surgery": surgery, "slope": slope,
+                                       "group": group, "level": level, "digits": digits}, "partition-function"))
+    name = report.recognised or space_ or f"{slope} surgery on {surgery}"
+    text = finite_text(value, f"Z_k of {name}, {group} at level {level}")
+    emit(payload, text + "\n\n" + space_text(report), as_json)

@@ -9,6 +9,8 @@ import typer
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
 from knotobs.evaluation.families import alexander, colored_jones, homfly, homfly_at, jones, wilson_loop
+from knotobs.evaluation.level_loops import level_loop
+from knotobs.output.finite_text import finite_json, finite_text
 from knotobs.output.text import render_polynomial
 from knotobs.representations.partitions import parse_partition
 
@@ -35,17 +37,34 @@ def _framing(text: Optional[str]):
 @app.command()
 @handle_errors
 def loop(
-    knot: str = typer.Argument(..., help="Torus knot or link, e.g. T(2,3) or T(4,6)."),
+    knot: Optional[str] = typer.Argument(None, help="Torus knot or link, e.g. T(2,3) or T(4,6)."),
     group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N)."),
     rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1]; links: [1];[2] per component."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
     normalized: bool = typer.Option(False, "--normalized", help="Divide by the unknot (default: unknot = dim_q)."),
     route: str = typer.Option("rosso-jones", "--route", help="rosso-jones, weight-sum or both (checks agreement)."),
+    level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N) only): exact cyclotomic + numeric."),
+    in_: str = typer.Option("S^3", "--in", help="With --level: S^3, L(p,q), Sigma(a,b,c) or M(0; b; ...)."),
+    fiber: Optional[int] = typer.Option(None, "--fiber", help="With --level and no KNOT: colour the core fiber with this index (from 0)."),
+    digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
-    """Exact Wilson loop of a torus knot/link in S^3 as a polynomial in q."""
-    res = wilson_loop(knot, group, _reps(rep), _framing(framing), normalized, route)
-    emit(res.to_json(), render_polynomial(res), as_json)
+    """Wilson loop of a torus knot/link: exact polynomial in q, or its value at level k."""
+    if level is None:
+        if knot is None:
+            raise ParseError("give a knot, e.g. knotobs loop 'T(2,3)' (or --level k --in SPACE --fiber i)")
+        if in_ != "S^3" or fiber is not None:
+            raise ParseError("--in and --fiber need --level k (polynomials in q are computed in S^3)")
+        res = wilson_loop(knot, group, _reps(rep), _framing(framing), normalized, route)
+        emit(res.to_json(), render_polynomial(res), as_json)
+        return
+    fr = _framing(framing) if framing is not None else None
+    val = level_loop(knot, level, group, _reps(rep), in_, fiber, fr, True, digits)
+    what = knot if knot is not None else f"core fiber {fiber} of {in_}"
+    inputs = {"knot": knot, "space": in_, "fiber": fiber, "group": group, "rep": rep, "level": level,
+              "framing": framing, "digits": digits}
+    title = f"Wilson loop of {what} in {in_}, {group} at level {level}, colour {rep}"
+    emit(finite_json(val, inputs, "wilson-loop"), finite_text(val, title), as_json)
 
 
 @app.command()

@@ -1,0 +1,47 @@
+"""Text and JSON forms of finite-level values."""
+
+from __future__ import annotations
+
+from typing import Any
+
+import mpmath
+
+from knotobs.evaluation.finite_value import FiniteLevelValue
+
+__all__ = ["finite_json", "finite_text"]
+
+
+def finite_json(value: FiniteLevelValue, inputs: dict[str, Any], quantity: str) -> dict[str, Any]:
+    """The JSON object of a finite-level command: the value's fields plus the inputs."""
+    out: dict[str, Any] = {"quantity": quantity}
+    out.update(value.to_json())
+    out["inputs"] = inputs
+    checks = {k: v for k, v in value.details.items() if k in ("polynomial_check", "route", "framings")}
+    if checks:
+        def plain(v):
+            if isinstance(v, (int, float, str)):
+                return v
+            if isinstance(v, (list, tuple)):
+                return [plain(x) for x in v]
+            return str(v)
+
+        out["details"] = {k: plain(v) for k, v in checks.items()}
+    return out
+
+
+def finite_text(value: FiniteLevelValue, title: str) -> str:
+    """Readable block: title, numeric value, exact value, profile."""
+    lines = [title, ""]
+    lines.append(f"  numeric   {mpmath.nstr(value.numeric, value.digits)}   ({value.digits} digits, checked at higher precision)")
+    if value.exact is not None:
+        lines.append(f"  exact     {value.exact}")
+        lines.append(f"            with {value.root_of_unity}")
+    else:
+        lines.append("  exact     (not computed at this size; numeric only)")
+    lines.append("")
+    lines.append(f"framing:       {value.framing}")
+    lines.append(f"orientation:   {value.orientation}")
+    lines.append(f"normalisation: {value.normalisation}")
+    if "polynomial_check" in value.details:
+        lines.append(f"check:         exact polynomial at q = exp(2 pi i/K) agrees to {value.details['polynomial_check']:.1e}")
+    return "\n".join(lines)

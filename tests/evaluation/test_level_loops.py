@@ -1,0 +1,106 @@
+"""Wilson loops at level k: the gluing route against the exact polynomials, and the CLI.
+
+CONVENTIONS §7 (verified there for SU(2)): for S^3 = M(0; (P,b1), (Q,b2)) with
+P b2 + Q b1 = +1, the regular fiber coloured lam gives theta(lam)^(PQ) times the
+Rosso-Jones value of T(P,Q) at q = exp(2 pi i/K): the fiber framing is P*Q.  The
+polynomials themselves are checked against published formulas and the dataset in
+tests/reference; here the finite-level gluing (modular data, S and T matrices) is
+an independent computation of the same numbers.  An exceptional fiber of S^3 is an
+unknot (common practice; Rolfsen, Knots and Links (1976)), so zero-framed it gives dim_q.
+"""
+
+import json
+
+import mpmath
+import pytest
+from typer.testing import CliRunner
+
+from knotobs import SU, TorusLink, rosso_jones
+from knotobs.cli import app
+from knotobs.errors import KnotobsError, NotIntegrableError
+from knotobs.evaluation.level_loops import level_loop
+from knotobs.evaluation.surgery import fiber_wilson_loop
+from knotobs.fibrations.refibration import fibration_of
+from knotobs.representations import quantum_dimension
+
+runner = CliRunner()
+
+
+def _alcove(N, k):
+    """The level-k alcove of SU(N) as partitions: at most N-1 rows, lam_1 <= k (common practice)."""
+    out = []
+
+    def rec(prefix, maxpart):
+        if len(prefix) == N - 1:
+            out.append(tuple(x for x in prefix if x > 0))
+            return
+        for x in range(maxpart, -1, -1):
+            rec(prefix + [x], x)
+
+    rec([], k)
+    return out
+
+
+CASES = [(2, (2, 3), 3), (2, (2, 5), 4), (2, (3, 4), 5), (2, (2, 3), 8), (3, (2, 3), 2), (3, (3, 4), 3), (3, (2, 5), 2)]
+
+
+@pytest.mark.parametrize("N,PQ,k", CASES)
+def test_regular_fiber_equals_polynomial_in_fiber_framing(N, PQ, k):
+    P, Q = PQ
+    knot = TorusLink(P, Q)
+    F = fibration_of(knot)
+    K = k + N
+    for lam in _alcove(N, k):
+        v = fiber_wilson_loop(F.manifold, k, f"SU({N})", regular=[lam], framing="fiber", digits=25)
+        poly = rosso_jones(knot, SU(N), lam, framing="fiber")  # theta^(PQ) * zero-framed value
+        ref = poly.at_root_of_unity(K, dps=30)
+        assert abs(v.numeric - ref) < mpmath.mpf(10) ** -20, (lam, v.numeric, ref)
+
+
+@pytest.mark.parametrize("N,PQ,k", CASES[:4])
+def test_zero_framing_default_and_links(N, PQ, k):
+    P, Q = PQ
+    for lam in _alcove(N, k)[:4]:
+        v = level_loop(f"T({P},{Q})", k, f"SU({N})", lam, digits=20)
+        assert v.details["polynomial_check"] < 1e-15
+    # a two-component torus link T(2P, 2Q) with two colours
+    v = level_loop(f"T({2 * P},{2 * Q})", k, f"SU({N})", [(1,), (1,)], digits=20)
+    ref = rosso_jones(TorusLink(2 * P, 2 * Q), SU(N), (1,)).at_root_of_unity(k + N, dps=25)
+    assert abs(v.numeric - ref) < 1e-15
+
+
+@pytest.mark.parametrize("N,k", [(2, 3), (2, 7), (3, 2)])
+def test_exceptional_fiber_of_s3_is_the_unknot(N, k):
+    for idx in (0, 1):
+        for lam in _alcove(N, k)[:3]:
+            v = level_loop(None, k, f"SU({N})", lam, space=f"M(0; 0; (2,1), (5,-2))", fiber=idx, digits=20)
+            ref = quantum_dimension(SU(N), lam).at_root_of_unity(k + N, dps=25)
+            assert abs(v.numeric - ref) < 1e-15
+
+
+def test_not_integrable_and_bad_fiber_are_clear_errors():
+    with pytest.raises(NotIntegrableError, match="not integrable at level 1"):
+        level_loop("T(2,3)", 1, "SU(2)", (2,))
+    with pytest.raises(KnotobsError, match="fiber index 5"):
+        level_loop(None, 3, "SU(2)", (1,), space="Sigma(2,3,5)", fiber=5)
+    with pytest.raises(KnotobsError, match="not null-homologous"):
+        level_loop("T(2,5)", 3, "SU(2)", (1,), space="L(7,2)", framing="zero")
+
+
+def test_cli_level_json_fields():
+    r = runner.invoke(app, ["loop", "T(2,3)", "--level", "3", "--json"])
+    assert r.exit_code == 0, r.output
+    d = json.loads(r.output)
+    for key in ("exact", "root_of_unity", "numeric", "framing", "orientation", "normalisation"):
+        assert key in d
+    assert d["numeric"]["digits"] == 30
+    # Jones polynomial at t = q^-1 = exp(-2 pi i/5), times [2] (unnormalised): Jones (1987) closed form
+    t = mpmath.exp(-2j * mpmath.pi / 5)
+    ref = (t + t**3 - t**4) * 2 * mpmath.cos(mpmath.pi / 5)
+    assert abs(complex(float(d["numeric"]["re"]), float(d["numeric"]["im"])) - complex(ref)) < 1e-12
+    r = runner.invoke(app, ["space", "Sigma(2,3,5)", "--level", "3", "--json"])
+    assert r.exit_code == 0, r.output
+    d = json.loads(r.output)
+    assert d["recognised"] == "Sigma(2,3,5)" and "numeric" in d and d["h1_order"] == 1
+    r = runner.invoke(app, ["loop", "T(2,3)", "--level", "1", "--rep", "[2]"])
+    assert r.exit_code == 2 and "not integrable" in r.output
