@@ -9,6 +9,10 @@ Examples
 
 from knotobs.errors import KnotobsError
 from knotobs.evaluation import (
+    FiniteLevelValue,
+    fiber_wilson_loop,
+    level_loop,
+    partition_function,
     PolynomialResult,
     Profile,
     alexander,
@@ -19,6 +23,7 @@ from knotobs.evaluation import (
     weight_sum,
     wilson_loop,
 )
+from knotobs.fibrations import SeifertManifold, fibration_of, parse_space
 from knotobs.fibrations.torus import TorusLink, parse_knot
 from knotobs.polynomials import Laurent, Laurent2
 from knotobs.representations import SU, U, Group, parse_group
@@ -26,6 +31,13 @@ from knotobs.representations import SU, U, Group, parse_group
 __version__ = "0.1.0"
 
 __all__ = [
+    "FiniteLevelValue",
+    "fiber_wilson_loop",
+    "level_loop",
+    "partition_function",
+    "SeifertManifold",
+    "fibration_of",
+    "parse_space",
     "KnotobsError",
     "PolynomialResult",
     "Profile",
