@@ -88,6 +88,15 @@ def lr_data(pq: Sequence[tuple[int, int]]) -> tuple[list[tuple[int, int]], int, 
         if p < 0:
             p, q = -p, -q
         out.append((p, q))
+    orders = [p for p, _ in out if p > 1]
+    for i in range(len(orders)):
+        for j in range(i + 1, len(orders)):
+            if math.gcd(orders[i], orders[j]) != 1:
+                raise InvalidSeifertDataError(
+                    f"the Lawrence-Rozansky closed formula is used here only for pairwise coprime"
+                    f" orders; {orders[i]} and {orders[j]} share a factor (its finite-sum form then"
+                    f" misses residue terms). Use the surgery route (partition_function)."
+                )
     P = math.prod(p for p, _ in out)
     H = sum(P // p * q for p, q in out)
     s = _sign(H) * _sign(P)
