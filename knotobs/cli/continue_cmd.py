@@ -1,0 +1,98 @@
+"""``knotobs flat``, ``knotobs continue`` and ``knotobs plot``: the continuation side (parsing only)."""
+
+from __future__ import annotations
+
+from typing import Optional
+
+import mpmath
+import typer
+
+from knotobs.cli._app import app, emit, handle_errors
+from knotobs.errors import ParseError
+
+
+@app.command()
+@handle_errors
+def flat(
+    space: str = typer.Argument(..., help="Seifert rational homology sphere, e.g. Sigma(2,3,7), L(5,1), M(0; -1; (2,1), (3,1), (5,1))."),
+    order: int = typer.Option(6, "--order", help="Highest power of (q - 1) in the Ohtsuki series."),
+    as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
+) -> None:
+    """Flat SU(2) connections: CS invariants mod 1, one-loop data, Casson invariant, Ohtsuki series."""
+    from knotobs.continuation.flat import flat_connections
+
+    t = flat_connections(space, ohtsuki_order=order)
+    emit(t.to_json(), t.text(), as_json)
+
+
+@app.command("continue")
+@handle_errors
+def continue_(
+    target: str = typer.Argument(..., help="A Seifert space (Sigma(2,3,5), L(7,2), ...) or, with --couplings, a torus knot T(p,q)."),
+    level: Optional[str] = typer.Option(None, "--level", help="Complex level k, e.g. 7.5+0.3i (K = k + 2)."),
+    K: Optional[str] = typer.Option(None, "--K", help="Complex shifted level K instead of --level."),
+    couplings: Optional[str] = typer.Option(None, "--couplings", help="SL(N,C) couplings t,tt, e.g. 10+2i,10-2i (torus knots)."),
+    rep: str = typer.Option("[1];[]", "--rep", help="SL(N,C) representation [lam];[lamt] (with --couplings)."),
+    N: int = typer.Option(2, "--N", help="Rank N of SL(N,C) (with --couplings)."),
+    digits: int = typer.Option(30, "--digits", help="Correct digits."),
+    phases: str = typer.Option("reduced", "--phases", help="reduced (CS values mod 1 in (-1/2,1/2]; smallest growth) or lawrence-rozansky."),
+    as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
+) -> None:
+    """Values at complex level (Seifert partition functions) or at SL(N,C) couplings (torus knots)."""
+    if couplings is not None:
+        from knotobs.continuation.complex import sl_wilson_loop
+
+        res = sl_wilson_loop(target, rep, couplings, N=N, digits=digits)
+        js = res.to_json()
+        text = (f"SL({N},C) Wilson loop of {target} in {rep} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
+                f"  value = {mpmath.nstr(res.numeric, digits)}\n  variables: {js['variables']}")
+        for n in res.notes:
+            text += f"\n  note: {n}"
+        emit(js, text, as_json)
+        return
+    if level is None and K is None:
+        raise ParseError("give --level k (complex, e.g. 7.5+0.3i), --K, or --couplings t,tt")
+    from knotobs.continuation.level import continued_partition_function
+
+    res = continued_partition_function(target, level, K=K, digits=digits, phases=phases)
+    text = (f"Z({res.space}) at K = {mpmath.nstr(res.K, 12)} (level k = K - 2)\n"
+            f"  value = {mpmath.nstr(res.numeric, digits)}\n  normalisation: Z(S^3) = S_11, canonical 2-framing\n"
+            f"  continuation: Lawrence-Rozansky integral + residues, phases {phases}")
+    for n in res.notes:
+        text += f"\n  note: {n}"
+    emit(res.to_json(), text, as_json)
+
+
+@app.command()
+@handle_errors
+def plot(
+    kind: str = typer.Argument(..., help="level-plane, asymptotics or zeros."),
+    target: str = typer.Argument(..., help="Seifert space (level-plane, asymptotics) or torus knot (zeros)."),
+    out: str = typer.Option(..., "--out", "-o", help="Output file (.png, .svg or .pdf)."),
+    re_range: str = typer.Option("3,12", "--re", help="level-plane: range of Re K, e.g. 3,12."),
+    im_range: str = typer.Option("-1,1", "--im", help="level-plane: range of Im K."),
+    n: int = typer.Option(30, "--n", help="level-plane: grid points per axis."),
+    kmax: int = typer.Option(500, "--kmax", help="asymptotics: largest K."),
+    color: Optional[int] = typer.Option(None, "--color", help="zeros: colour of the coloured Jones polynomial."),
+) -> None:
+    """Figures: |Z| and arg Z over the complex K plane, exact vs asymptotic, zeros of a polynomial."""
+    from knotobs.continuation import plots
+
+    def rng(s: str):
+        try:
+            a, b = (float(x) for x in s.split(","))
+        except ValueError:
+            raise ParseError(f"cannot read range {s!r}: write two numbers a,b") from None
+        return a, b
+
+    k = kind.lower()
+    if k == "level-plane":
+        p = plots.plot_level_plane(target, out, rng(re_range), rng(im_range), n=n)
+    elif k == "asymptotics":
+        Ks = sorted(set(list(range(10, min(kmax, 100) + 1, 5)) + list(range(100, kmax + 1, 25))))
+        p = plots.plot_asymptotics(target, out, Ks=Ks)
+    elif k == "zeros":
+        p = plots.plot_zeros(target, out, family="colored-jones" if color else "jones", color=color)
+    else:
+        raise ParseError(f"unknown plot {kind!r}: use level-plane, asymptotics or zeros")
+    emit({"file": str(p), "kind": k}, f"wrote {p}", False)
