@@ -12,6 +12,7 @@ from fractions import Fraction
 from typing import Iterable, Mapping
 
 from knotobs.errors import InexactDivisionError, RingMismatchError
+from knotobs.polynomials._format import format_terms, power
 from knotobs.polynomials.laurent import Exponent, Laurent
 
 __all__ = ["Laurent2", "z_power"]
@@ -222,25 +223,8 @@ class Laurent2:
     def to_az_string(self, avar: str = "a", zvar: str = "z") -> str:
         """Plain text of the ``(a, z)`` form, highest ``a`` power first."""
         terms = self.to_az()
-        if not terms:
-            return "0"
         keys = sorted(terms, key=lambda ij: (-ij[0], ij[1]))
-        parts = []
-        for i, j in keys:
-            c = terms[(i, j)]
-            monos = []
-            if i:
-                monos.append(avar if i == 1 else f"{avar}^{i}")
-            if j:
-                monos.append(zvar if j == 1 else f"{zvar}^{j}")
-            mono = "*".join(monos)
-            a = abs(c)
-            body = mono if (mono and a == 1) else (f"{a}*{mono}" if mono else str(a))
-            parts.append(("-" if c < 0 else "+", body))
-        s = ("-" if parts[0][0] == "-" else "") + parts[0][1]
-        for sign, body in parts[1:]:
-            s += f" {sign} {body}"
-        return s
+        return format_terms(((power(avar, i), power(zvar, j)), terms[(i, j)]) for i, j in keys)
 
     def to_aq(self) -> dict[tuple[int, Fraction], int]:
         """``{(i, e): c}`` for ``c a^i q^e`` with ``q = s^2`` (only without a ``z`` prefactor)."""
@@ -262,29 +246,8 @@ class Laurent2:
     def to_aq_string(self, avar: str = "a", qvar: str = "q") -> str:
         """Plain text of the ``(a, q)`` form (``q = s^2``), highest ``a`` power first."""
         terms = self.to_aq()
-        if not terms:
-            return "0"
-        parts = []
-        for (i, e) in sorted(terms, key=lambda ie: (-ie[0], ie[1])):
-            c = terms[(i, e)]
-            monos = []
-            if i:
-                monos.append(avar if i == 1 else f"{avar}^{i}")
-            if e:
-                if e == 1:
-                    monos.append(qvar)
-                elif e.denominator == 1:
-                    monos.append(f"{qvar}^{e.numerator}")
-                else:
-                    monos.append(f"{qvar}^({e.numerator}/{e.denominator})")
-            mono = "*".join(monos)
-            a = abs(c)
-            body = mono if (mono and a == 1) else (f"{a}*{mono}" if mono else str(a))
-            parts.append(("-" if c < 0 else "+", body))
-        s = ("-" if parts[0][0] == "-" else "") + parts[0][1]
-        for sign, body in parts[1:]:
-            s += f" {sign} {body}"
-        return s
+        keys = sorted(terms, key=lambda ie: (-ie[0], ie[1]))
+        return format_terms(((power(avar, i), power(qvar, e)), terms[(i, e)]) for i, e in keys)
 
     def to_sympy_aq(self):
         import sympy

@@ -21,6 +21,7 @@ import mpmath
 from flint import fmpz_poly
 
 from knotobs.errors import InexactDivisionError, RingMismatchError
+from knotobs.polynomials._format import format_terms, power
 
 __all__ = ["Laurent", "Exponent"]
 
@@ -395,30 +396,7 @@ class Laurent:
         items = list(self.terms().items())
         if descending:
             items.reverse()
-        if not items:
-            return "0"
-        parts = []
-        for e, c in items:
-            if e == 0:
-                mono = ""
-            elif e == 1:
-                mono = v
-            elif e.denominator == 1:
-                mono = f"{v}^{e.numerator}"
-            else:
-                mono = f"{v}^({e.numerator}/{e.denominator})"
-            a = abs(c)
-            if mono == "":
-                body = str(a)
-            elif a == 1:
-                body = mono
-            else:
-                body = f"{a}*{mono}"
-            parts.append(("-" if c < 0 else "+", body))
-        s = ("-" if parts[0][0] == "-" else "") + parts[0][1]
-        for sign, body in parts[1:]:
-            s += f" {sign} {body}"
-        return s
+        return format_terms(((power(v, e),), c) for e, c in items)
 
     def __str__(self) -> str:
         return self.to_string()
