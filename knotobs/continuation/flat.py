@@ -255,7 +255,7 @@ class FlatTable:
             lines.append(f"{c.kind:<12} {str(c.cs):>10} {c.multiplicity:>4}  {str(c.K_power):>5}  "
                          f"{mpmath.nstr(abs(c.amplitude), 12):>18}  {mpmath.nstr(c.phase, 6):>10}  {rot}")
         if self.casson is not None:
-            lines.append(f"Casson invariant: {self.casson}   (lambda(Sigma(2,3,5)) = -1)")
+            lines.append(f"Casson invariant: {self.casson}   (normalised so that lambda(Sigma(2,3,5)) = -1)")
         lines.append("Ohtsuki series c_n (tau_0 = |H|^-3/2 sum c_n (q-1)^n): " + ", ".join(str(c) for c in self.ohtsuki))
         lines.extend(f"note: {n}" for n in self.notes)
         return "\n".join(lines)
