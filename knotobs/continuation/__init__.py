@@ -6,11 +6,19 @@ from knotobs.continuation.flat import FlatConnection, FlatTable, flat_connection
 from knotobs.continuation.kashaev import growth_exponent, kashaev_invariant
 from knotobs.continuation.level import continued_partition_function, continued_Z, evaluate_polynomial
 from knotobs.continuation.ohtsuki import ohtsuki_series
-from knotobs.continuation.qseries import poincare_false_theta, poincare_radial_limit, poincare_series
+from knotobs.continuation.qseries import (
+    brieskorn_false_theta,
+    brieskorn_radial_limit,
+    poincare_false_theta,
+    poincare_radial_limit,
+    poincare_series,
+    tau_from_q_series,
+)
 
 __all__ = [
     "asymptotic_value", "compare_with_exact", "predicted_exponent", "sl_wilson_loop", "unitarity_note",
     "FlatConnection", "FlatTable", "flat_connections", "growth_exponent", "kashaev_invariant",
     "continued_partition_function", "continued_Z", "evaluate_polynomial", "ohtsuki_series",
     "poincare_false_theta", "poincare_radial_limit", "poincare_series",
+    "brieskorn_false_theta", "brieskorn_radial_limit", "tau_from_q_series",
 ]
