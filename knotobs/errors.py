@@ -66,3 +66,18 @@ class SizeLimitError(KnotobsError, ValueError):
 
 class PrecisionError(KnotobsError, ArithmeticError):
     """A numeric value that could not be certified at the requested precision."""
+
+
+class StoreError(KnotobsError, ValueError):
+    """A results database that is corrupt, damaged, of a newer format, or not a knotobs store."""
+
+
+class SchedulerError(KnotobsError, ConnectionError):
+    """A distributed scheduler that cannot be reached or that failed while running a grid."""
+
+
+class MissingDependencyError(KnotobsError, ImportError):
+    """An optional extra (e.g. the dataset or the distributed runner) that is not installed."""
+
+
+__all__ += ["StoreError", "SchedulerError", "MissingDependencyError"]

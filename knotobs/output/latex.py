@@ -1,0 +1,192 @@
+"""Tabular and LaTeX renderings: polynomials, comparisons, and tables of stored rows.
+
+Polynomials are typeset by a small exact printer (rational exponents as ``\\frac``);
+a result's own ``_repr_latex_`` uses sympy's printer;
+:func:`terminal_table` draws the same tables for a terminal with ``rich`` when it
+is installed (it comes with typer) and as aligned plain text otherwise.
+"""
+
+from __future__ import annotations
+
+import io
+import json
+from typing import Iterable, Sequence
+
+__all__ = ["latex_polynomial", "mpoly_latex", "latex_result", "latex_comparison", "latex_table", "terminal_table",
+           "grid_table_rows", "GRID_HEADERS"]
+
+_LATEX_SPECIAL = {"&": r"\&", "%": r"\%", "$": r"\$", "#": r"\#", "_": r"\_", "{": r"\{", "}": r"\}",
+                  "~": r"\textasciitilde{}", "^": r"\textasciicircum{}", "\\": r"\textbackslash{}"}
+
+
+def _esc(text: str) -> str:
+    return "".join(_LATEX_SPECIAL.get(ch, ch) for ch in str(text))
+
+
+def _exp_tex(e) -> str:
+    if e.denominator == 1:
+        return str(e.numerator)
+    sign = "-" if e < 0 else ""
+    return f"{sign}\\frac{{{abs(e.numerator)}}}{{{e.denominator}}}"
+
+
+def mpoly_latex(p) -> str:
+    """LaTeX of an :class:`~knotobs.tables.sparse.MPoly` (terms in the order of its plain text).
+
+    >>> from knotobs.tables.polyparse import parse_polynomial
+    >>> mpoly_latex(parse_polynomial("2*t^(1/2) - t^-3 + 1"))
+    '-t^{-3} + 1 + 2 t^{\\\\frac{1}{2}}'
+    """
+    if p.is_zero():
+        return "0"
+    keys = list(p.terms)
+    if len(p.variables) > 1:
+        keys.sort(key=lambda k: tuple(-x for x in k[:-1]) + k[-1:])
+    else:
+        keys.sort()
+    out = []
+    for k in keys:
+        c = p.terms[k]
+        mono = " ".join(v if e == 1 else f"{v}^{{{_exp_tex(e)}}}" for v, e in zip(p.variables, k) if e != 0)
+        a = abs(c)
+        astr = str(a) if a.denominator == 1 else f"\\frac{{{a.numerator}}}{{{a.denominator}}}"
+        body = mono if (mono and a == 1) else (f"{astr} {mono}" if mono else astr)
+        out.append(("-" if c < 0 else "+", body))
+    text = ("-" if out[0][0] == "-" else "") + out[0][1]
+    for sign, body in out[1:]:
+        text += f" {sign} {body}"
+    return text
+
+
+def latex_polynomial(text: str, variables: Sequence[str] | None = None) -> str:
+    """LaTeX of a polynomial given in plain algebraic text (``^`` or ``**`` for powers).
+
+    The text is read by knotobs' own safe parser, never evaluated.
+
+    Examples
+    --------
+    >>> latex_polynomial("t + t^3 - t^4")
+    't + t^{3} - t^{4}'
+    >>> latex_polynomial("q**(1/2) - q**-1")
+    '-q^{-1} + q^{\\\\frac{1}{2}}'
+
+    References
+    ----------
+    L. Lamport, *LaTeX: A Document Preparation System*, 2nd ed., Addison-Wesley (1994) (math mode).
+    """
+    from knotobs.tables.polyparse import parse_polynomial
+
+    return mpoly_latex(parse_polynomial(text.replace("**", "^"), variables))
+
+
+def latex_result(result) -> str:
+    """Display-math LaTeX of a :class:`~knotobs.evaluation.result.PolynomialResult` with its profile.
+
+    >>> from knotobs import jones
+    >>> print(latex_result(jones("T(2,3)")).splitlines()[0])
+    % jones of T(2,3), SU(2); variables t (t = q^-1); normalised (unknot = 1); framing [0]
+    """
+    import sympy
+
+    prof = result.profile
+    head = (f"% {result.quantity} of {result.knot}, {result.group}; variables {', '.join(prof.variables)}"
+            f" ({prof.variable_map}); {prof.normalisation}; framing {list(prof.framing)}")
+    return head + "\n\\[\n  " + sympy.latex(result.to_sympy()) + "\n\\]"
+
+
+def latex_comparison(comparison) -> str:
+    """A short LaTeX paragraph stating the outcome of a comparison.
+
+    >>> from knotobs.tables.compare import compare
+    >>> "equal" in latex_comparison(compare("T(2,3)", "t + t^3 - t^4"))
+    True
+    """
+    tgt = latex_polynomial(comparison.target)
+    if comparison.equal:
+        return (f"The {_esc(comparison.invariant)} invariant of ${_esc(comparison.knot)}$ is equal to\n"
+                f"\\[ {tgt} \\]\nunder the convention map: {_esc(comparison.map.describe())}.")
+    return (f"The {_esc(comparison.invariant)} invariant of ${_esc(comparison.knot)}$ is not equal to\n"
+            f"\\[ {tgt} \\]\nunder any convention map tried; closest: "
+            f"{_esc(comparison.closest.describe()) if comparison.closest else 'none'}.")
+
+
+def latex_table(headers: Sequence[str], rows: Iterable[Sequence[str]], caption: str | None = None,
+                math_columns: Sequence[int] = ()) -> str:
+    """A ``tabular`` (in a ``table`` float when ``caption`` is given).
+
+    Cells in ``math_columns`` are plain-text polynomials and are typeset as math.
+
+    >>> print(latex_table(["knot", "V"], [["T(2,3)", "t + t^3 - t^4"]], math_columns=[1]))
+    \\begin{tabular}{ll}
+    \\hline
+    knot & V \\\\
+    \\hline
+    T(2,3) & $t + t^{3} - t^{4}$ \\\\
+    \\hline
+    \\end{tabular}
+    """
+    headers = list(headers)
+    lines = [f"\\begin{{tabular}}{{{'l' * len(headers)}}}", "\\hline", " & ".join(_esc(h) for h in headers) + " \\\\", "\\hline"]
+    for r in rows:
+        cells = []
+        for i, cell in enumerate(r):
+            if i in math_columns and cell not in (None, ""):
+                try:
+                    cells.append(f"${latex_polynomial(str(cell))}$")
+                    continue
+                except Exception:
+                    pass
+            cells.append(_esc("" if cell is None else cell))
+        lines.append(" & ".join(cells) + " \\\\")
+    lines += ["\\hline", "\\end{tabular}"]
+    out = "\n".join(lines)
+    if caption:
+        out = "\\begin{table}[ht]\n\\centering\n" + out + f"\n\\caption{{{_esc(caption)}}}\n\\end{{table}}"
+    return out
+
+
+#: Columns of a table of grid rows.
+GRID_HEADERS = ("knot", "group", "colour", "level", "framing", "exact", "numeric")
+
+
+def grid_table_rows(rows: Iterable[dict]) -> list[list[str]]:
+    """Cells (:data:`GRID_HEADERS`) for stored grid rows."""
+    out = []
+    for r in rows:
+        doc = json.loads(r["document"])
+        out.append([r["knot"], doc["group"], json.dumps(doc["representation"][0]),
+                    "generic q" if r["level"] is None else str(r["level"]), json.dumps(doc["framing"]),
+                    doc["exact"].replace("**", "^"), r["numeric"] or ""])
+    return out
+
+
+def terminal_table(headers: Sequence[str], rows: Sequence[Sequence[str]], title: str | None = None,
+                   max_width: int = 60) -> str:
+    """A table for the terminal (``rich`` if available, aligned text otherwise).
+
+    >>> print(terminal_table(["a", "b"], [["1", "22"]], title=None).splitlines()[0].strip()[:1] in "┏a+")
+    True
+    """
+    def clip(s: str) -> str:
+        s = "" if s is None else str(s)
+        return s if len(s) <= max_width else s[: max_width - 3] + "..."
+
+    try:
+        from rich.console import Console
+        from rich.table import Table
+    except ImportError:  # pragma: no cover - rich comes with typer
+        cols = [list(map(clip, c)) for c in zip(headers, *rows)] if rows else [[h] for h in headers]
+        widths = [max(len(x) for x in c) for c in cols]
+        lines = ["  ".join(h.ljust(w) for h, w in zip(headers, widths))]
+        lines.append("  ".join("-" * w for w in widths))
+        for r in rows:
+            lines.append("  ".join(clip(x).ljust(w) for x, w in zip(r, widths)))
+        return ((title + "\n") if title else "") + "\n".join(lines)
+    table = Table(title=title)
+    for h in headers:
+        table.add_column(h)
+    for r in rows:
+        table.add_row(*[clip(x) for x in r])
+    buf = io.StringIO()
+    Console(file=buf, width=200, force_terminal=False, color_system=None).print(table)
+    return buf.getvalue().rstrip("\n")

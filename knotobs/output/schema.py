@@ -1,0 +1,288 @@
+"""Documented JSON schemas of every result knotobs prints, and file exports of stored grids.
+
+Each schema is a JSON Schema (draft 2020-12 vocabulary, the subset ``type``,
+``properties``, ``required``, ``items``, ``enum``, ``additionalProperties``) kept in
+:data:`SCHEMAS`; :func:`validate` checks a document against it without any extra
+dependency.  The documents:
+
+``polynomial-result``
+    :meth:`PolynomialResult.to_json` (``knotobs loop/poly --json``): quantity, knot, group,
+    colours, exact value (sympy-readable), variables, profile, route, inputs.
+``observable``
+    one stored grid row: knot, manifold, group, representation, framing, level, q,
+    profile, exact value, numeric value with its number of digits and where it was taken.
+``convention-map``, ``comparison``, ``identification``
+    ``knotobs match --json``: a comparison has ``equal`` (bool) and ``map`` (a
+    convention map or null); an identification has ``candidates`` (each with knot,
+    representation and map).
+``grid-report``
+    ``knotobs grid run/resume --json``.
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import json
+import os
+from typing import Any
+
+from knotobs.errors import KnotobsError, ParseError
+
+__all__ = ["SCHEMAS", "validate", "export_grid", "EXPORT_FORMATS"]
+
+_STR = {"type": "string"}
+_INT = {"type": "integer"}
+_BOOL = {"type": "boolean"}
+_PARTITION = {"type": "array", "items": {"type": "integer"}}
+
+_PROFILE = {
+    "type": "object",
+    "description": "The conventions a value is written in (knotobs.evaluation.profiles.Profile).",
+    "properties": {
+        "variables": {"type": "array", "items": _STR},
+        "variable_map": _STR,
+        "framing": {"type": "array", "items": _INT},
+        "framing_note": _STR,
+        "normalisation": _STR,
+        "chirality": _STR,
+        "skein": _STR,
+        "notes": {"type": "array", "items": _STR},
+    },
+    "required": ["variables", "variable_map", "framing", "framing_note", "normalisation", "chirality"],
+}
+
+_MAP = {
+    "type": "object",
+    "description": "target = sign * monomial * theta^framing * (standard value, normalised and written as stated).",
+    "properties": {
+        "variables": {"type": "object", "description": "target variable -> expression in knotobs' variables"},
+        "mirror": {"type": ["boolean", "null"], "description": "null: this invariant cannot tell"},
+        "normalisation": _STR,
+        "framing": {"type": "integer", "description": "total framing change f (factor theta(lam)^f)"},
+        "sign": {"type": "integer", "enum": [1, -1]},
+        "monomial": {"type": ["string", "null"]},
+        "description": _STR,
+    },
+    "required": ["variables", "mirror", "normalisation", "framing", "sign", "monomial", "description"],
+    "additionalProperties": False,
+}
+
+SCHEMAS: dict[str, dict] = {
+    "polynomial-result": {
+        "$id": "knotobs/polynomial-result/1",
+        "type": "object",
+        "description": "An exact polynomial invariant with its inputs and convention profile.",
+        "properties": {
+            "quantity": {"type": "string", "enum": ["wilson-loop", "jones", "colored-jones", "homfly", "alexander"]},
+            "knot": _STR, "group": _STR,
+            "colours": {"type": "array", "items": _PARTITION},
+            "exact": {"type": "string", "description": "sympy-readable exact value (** for powers)"},
+            "variables": {"type": "array", "items": _STR},
+            "profile": _PROFILE, "route": _STR, "terms": _INT, "inputs": {"type": "object"},
+        },
+        "required": ["quantity", "knot", "group", "colours", "exact", "variables", "profile", "route"],
+    },
+    "observable": {
+        "$id": "knotobs/observable/1",
+        "type": "object",
+        "description": "One grid row: an observable of a knot in a 3-manifold, exact and (at a level) numeric.",
+        "properties": {
+            "schema": {"type": "string", "enum": ["knotobs/observable/1"]},
+            "quantity": _STR, "knot": _STR,
+            "manifold": {"type": "string", "description": "the ambient 3-manifold, 'S^3' for now"},
+            "group": _STR,
+            "representation": {"type": "array", "items": _PARTITION, "description": "one partition per component"},
+            "framing": {"type": "array", "items": _INT},
+            "level": {"type": ["integer", "null"], "description": "null: generic q"},
+            "q": {"type": "string", "description": "'generic' or 'exp(2*pi*i/K)'"},
+            "profile": _PROFILE,
+            "variables": {"type": "array", "items": _STR},
+            "exact": {"type": "string", "description": "the exact polynomial in the profile's variables"},
+            "numeric": {
+                "type": ["object", "null"],
+                "properties": {"re": _STR, "im": _STR,
+                               "digits": {"type": "integer", "description": "significant decimal digits, checked"},
+                               "at": _STR},
+                "required": ["re", "im", "digits", "at"],
+            },
+            "description": {"type": "string", "description": "how the value was obtained"},
+            "version": _STR,
+        },
+        "required": ["schema", "quantity", "knot", "manifold", "group", "representation", "framing", "level",
+                     "q", "profile", "exact", "numeric", "description", "version"],
+        "additionalProperties": False,
+    },
+    "convention-map": _MAP,
+    "comparison": {
+        "$id": "knotobs/comparison/1",
+        "type": "object",
+        "properties": {
+            "kind": {"type": "string", "enum": ["comparison"]},
+            "knot": _STR, "invariant": _STR, "group": _STR,
+            "representation": {"type": "array", "items": _PARTITION},
+            "target": _STR, "computed": _STR, "computed_profile": {"type": "object"},
+            "equal": _BOOL,
+            "map": {"type": ["object", "null"], **{k: v for k, v in _MAP.items() if k not in ("type",)}},
+            "maps": {"type": "array", "items": _MAP},
+            "closest": {"type": ["object", "null"]},
+            "difference": {"type": ["string", "null"]},
+            "differing_terms": _INT, "source": _STR,
+        },
+        "required": ["kind", "knot", "invariant", "equal", "map", "target", "computed"],
+    },
+    "identification": {
+        "$id": "knotobs/identification/1",
+        "type": "object",
+        "properties": {
+            "kind": {"type": "string", "enum": ["identification"]},
+            "target": _STR, "invariant": _STR, "bounds": {"type": "object"}, "tried": _INT,
+            "candidates": {"type": "array", "items": {
+                "type": "object",
+                "properties": {"knot": _STR, "representation": {"type": "array", "items": _PARTITION},
+                               "invariant": _STR, "group": _STR, "chirality": _STR, "map": _MAP},
+                "required": ["knot", "representation", "map"],
+            }},
+        },
+        "required": ["kind", "target", "candidates"],
+    },
+    "grid-report": {
+        "$id": "knotobs/grid-report/1",
+        "type": "object",
+        "properties": {
+            "kind": {"type": "string", "enum": ["grid-report"]},
+            "store": _STR, "total": _INT, "already_stored": _INT, "computed": _INT, "inserted": _INT,
+            "failed": {"type": "array"}, "skipped_nonintegrable": _INT, "seconds": {"type": "number"},
+            "run_id": _STR, "backend": _STR, "complete": _BOOL,
+        },
+        "required": ["kind", "store", "total", "already_stored", "computed", "inserted", "failed", "complete"],
+    },
+}
+
+_TYPES = {"object": dict, "array": list, "string": str, "boolean": bool, "null": type(None)}
+
+
+def _check_type(value: Any, t: str) -> bool:
+    if t == "integer":
+        return isinstance(value, int) and not isinstance(value, bool)
+    if t == "number":
+        return isinstance(value, (int, float)) and not isinstance(value, bool)
+    return isinstance(value, _TYPES[t])
+
+
+def _validate(doc: Any, schema: dict, path: str) -> None:
+    t = schema.get("type")
+    if t is not None:
+        ts = t if isinstance(t, list) else [t]
+        if not any(_check_type(doc, x) for x in ts):
+            raise ParseError(f"{path or 'document'}: expected {' or '.join(ts)}, got {type(doc).__name__} {doc!r:.60}")
+    if "enum" in schema and doc not in schema["enum"]:
+        raise ParseError(f"{path or 'document'}: {doc!r} is not one of {schema['enum']}")
+    if isinstance(doc, dict):
+        for k in schema.get("required", []):
+            if k not in doc:
+                raise ParseError(f"{path or 'document'}: missing required field {k!r}")
+        props = schema.get("properties", {})
+        for k, v in doc.items():
+            if k in props:
+                _validate(v, props[k], f"{path}.{k}" if path else k)
+            elif schema.get("additionalProperties") is False:
+                raise ParseError(f"{path or 'document'}: unexpected field {k!r}")
+    if isinstance(doc, list) and "items" in schema:
+        for i, v in enumerate(doc):
+            _validate(v, schema["items"], f"{path}[{i}]")
+
+
+def validate(document: Any, name: str) -> None:
+    """Check ``document`` against the schema ``name`` (raises :class:`ParseError` naming the field).
+
+    Examples
+    --------
+    >>> from knotobs import jones
+    >>> validate(jones("T(2,3)").to_json(), "polynomial-result")
+    >>> validate({"kind": "comparison"}, "comparison")
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.ParseError: document: missing required field 'knot'
+
+    References
+    ----------
+    JSON Schema: A Media Type for Describing JSON Documents, draft 2020-12 (json-schema.org).
+    """
+    if name not in SCHEMAS:
+        raise KnotobsError(f"unknown schema {name!r}: choose one of {', '.join(SCHEMAS)}")
+    _validate(document, SCHEMAS[name], "")
+
+
+#: File formats of :func:`export_grid`.
+EXPORT_FORMATS = ("csv", "json", "latex", "table")
+
+
+def _sort_key(row: dict):
+    import re
+
+    nums = [int(x) for x in re.findall(r"-?\d+", row["knot"])]
+    return (nums, row["grp"], row["rep"], -1 if row["level"] is None else row["level"], row["quantity"])
+
+
+def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
+    """Export every row of a results store as CSV, JSON, LaTeX or a terminal table.
+
+    Parameters
+    ----------
+    store : str
+        Path of an existing results store.
+    fmt : ``"csv"``, ``"json"``, ``"latex"`` or ``"table"``
+    out : str, optional
+        File to write (the text is returned either way).
+
+    Examples
+    --------
+    >>> import tempfile, os
+    >>> from knotobs.tables.grid import GridSpec, run_grid
+    >>> path = os.path.join(tempfile.mkdtemp(), "g.sqlite")
+    >>> _ = run_grid(GridSpec(["T(2,3)"], "SU(2)", [[1]]), path, workers=0, progress=False)
+    >>> print(export_grid(path, "csv").splitlines()[1])
+    "T(2,3)",S^3,SU(2),[1],[0],,generic,q,-q**-4 + q**-3 + q**-1,,,normalised (unknot = 1),wilson-loop,0.1.0
+
+    References
+    ----------
+    RFC 4180 (CSV); RFC 8259 (JSON).
+    """
+    from knotobs.output.latex import GRID_HEADERS, grid_table_rows, latex_table, terminal_table
+    from knotobs.tables.store import GridStore
+
+    f = str(fmt).lower()
+    if f not in EXPORT_FORMATS:
+        raise KnotobsError(f"unknown export format {fmt!r}: choose one of {', '.join(EXPORT_FORMATS)}")
+    if not os.path.exists(store):
+        raise KnotobsError(f"results store {store!r} does not exist; run a grid first")
+    with GridStore(store) as st:
+        rows = sorted(st.rows(), key=_sort_key)
+    if f == "json":
+        text = json.dumps([json.loads(r["document"]) for r in rows], indent=1) + "\n"
+    elif f == "csv":
+        buf = io.StringIO()
+        w = csv.writer(buf, lineterminator="\n")
+        w.writerow(["knot", "manifold", "group", "representation", "framing", "level", "q", "variables", "exact",
+                    "numeric_re", "numeric_im", "normalisation", "quantity", "version"])
+        for r in rows:
+            d = json.loads(r["document"])
+            num = d["numeric"] or {}
+            w.writerow([d["knot"], d["manifold"], d["group"], json.dumps(d["representation"][0]),
+                        json.dumps(d["framing"]), "" if d["level"] is None else d["level"], d["q"],
+                        " ".join(d["variables"]), d["exact"], num.get("re", ""), num.get("im", ""),
+                        d["profile"]["normalisation"], d["quantity"], d["version"]])
+        text = buf.getvalue()
+    elif f == "latex":
+        text = latex_table(GRID_HEADERS, grid_table_rows(rows), caption=f"knotobs results ({len(rows)} rows)",
+                           math_columns=[5]) + "\n"
+    else:
+        text = terminal_table(GRID_HEADERS, grid_table_rows(rows), title=f"{store} ({len(rows)} rows)") + "\n"
+    if out:
+        try:
+            with open(out, "w", encoding="utf-8") as fh:
+                fh.write(text)
+        except OSError as exc:
+            raise KnotobsError(f"cannot write {out!r}: {exc.strerror}") from None
+    return text
