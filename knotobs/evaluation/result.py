@@ -75,6 +75,7 @@ class PolynomialResult:
         out: dict[str, Any] = {
             "quantity": self.quantity,
             "knot": self.knot,
+            "manifold": "S^3",
             "group": self.group,
             "colours": [list(c) for c in self.colours],
             "exact": self.sympy_string(),

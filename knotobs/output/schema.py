@@ -17,6 +17,17 @@ dependency.  The documents:
     representation and map).
 ``grid-report``
     ``knotobs grid run/resume --json``.
+``seifert-space``, ``fibered-knot``
+    ``knotobs space --json`` and ``knotobs fibers --json``: the normal form
+    ``{"b", "fibers"}``, the Euler number as an exact fraction, ``|H_1|`` (0 when
+    infinite), the recognised name (or null) and, for a knot, its fiber framing.
+``finite-level``
+    ``knotobs loop --level`` and ``knotobs space --level``: the exact cyclotomic value with
+    the root of unity it is written in, the numeric value with checked digits, framing,
+    orientation and normalisation.
+``flat-connections``, ``continued-value``
+    ``knotobs flat --json`` (connections with exact CS values mod 1, Casson invariant,
+    Ohtsuki coefficients as exact strings) and ``knotobs continue --json``.
 """
 
 from __future__ import annotations
@@ -68,14 +79,84 @@ _MAP = {
     "additionalProperties": False,
 }
 
+_NUMERIC = {
+    "type": "object",
+    "description": "A complex number as decimal strings, correct to 'digits' digits.",
+    "properties": {"re": _STR, "im": _STR, "digits": _INT},
+    "required": ["re", "im", "digits"],
+}
+_SEIFERT = {
+    "type": "object",
+    "description": "M(0; b; (a_1,b_1), ...) in normal form.",
+    "properties": {"b": _INT, "fibers": {"type": "array", "items": {"type": "array", "items": _INT}}},
+    "required": ["b", "fibers"],
+}
+_SPACE_PROPS = {
+    "seifert": {"type": ["object", "null"], "description": "normal form; null for a reducible surgery"},
+    "euler": {"type": ["string", "null"], "description": "exact fraction e = -(b + sum b_i/a_i)"},
+    "h1_order": {"type": "integer", "description": "|H_1|, 0 when infinite"},
+    "recognised": {"type": ["string", "null"]},
+}
+
 SCHEMAS: dict[str, dict] = {
+    "seifert-space": {
+        "$id": "knotobs/seifert-space/1",
+        "type": "object",
+        "description": "A Seifert manifold over S^2 (or the connected sum a surgery produced).",
+        "properties": dict(_SPACE_PROPS),
+        "required": ["seifert", "euler", "h1_order", "recognised"],
+    },
+    "fibered-knot": {
+        "$id": "knotobs/fibered-knot/1",
+        "type": "object",
+        "description": "A knot placed as a fiber of a Seifert fibration.",
+        "properties": dict(_SPACE_PROPS, seifert=_SEIFERT, knot=_STR, role=_STR,
+                           fiber_framing={"type": ["string", "null"], "description": "exact fraction"}),
+        "required": ["seifert", "euler", "h1_order", "recognised", "knot", "role", "fiber_framing"],
+    },
+    "finite-level": {
+        "$id": "knotobs/finite-level/1",
+        "type": "object",
+        "description": "An exact value at level k: cyclotomic number, checked numeric value and profile.",
+        "properties": {
+            "quantity": _STR,
+            "exact": {"type": "string", "description": "element of Q(z_n) (possibly times a square root); '' if not computed"},
+            "root_of_unity": _STR,
+            "numeric": _NUMERIC,
+            "framing": _STR, "orientation": _STR, "normalisation": _STR,
+            "inputs": {"type": "object"},
+        },
+        "required": ["exact", "root_of_unity", "numeric", "framing", "orientation", "normalisation"],
+    },
+    "flat-connections": {
+        "$id": "knotobs/flat-connections/1",
+        "type": "object",
+        "properties": {
+            "space": _STR,
+            "connections": {"type": "array", "items": {
+                "type": "object",
+                "properties": {"kind": _STR, "cs": {"type": "string", "description": "exact fraction mod 1"},
+                               "one_loop": {"type": "object"}},
+                "required": ["kind", "cs"],
+            }},
+            "casson": {"type": ["integer", "null"]},
+            "ohtsuki": {"type": "array", "items": _STR},
+        },
+        "required": ["connections", "casson", "ohtsuki"],
+    },
+    "continued-value": {
+        "$id": "knotobs/continued-value/1",
+        "type": "object",
+        "properties": {"quantity": _STR, "numeric": _NUMERIC, "notes": {"type": "array", "items": _STR}},
+        "required": ["quantity", "numeric"],
+    },
     "polynomial-result": {
         "$id": "knotobs/polynomial-result/1",
         "type": "object",
         "description": "An exact polynomial invariant with its inputs and convention profile.",
         "properties": {
             "quantity": {"type": "string", "enum": ["wilson-loop", "jones", "colored-jones", "homfly", "alexander"]},
-            "knot": _STR, "group": _STR,
+            "knot": _STR, "manifold": _STR, "group": _STR,
             "colours": {"type": "array", "items": _PARTITION},
             "exact": {"type": "string", "description": "sympy-readable exact value (** for powers)"},
             "variables": {"type": "array", "items": _STR},
