@@ -24,6 +24,7 @@ from functools import lru_cache
 from math import prod
 from typing import Sequence
 
+import numpy as np
 from flint import fmpz_poly
 
 from knotobs.errors import InvalidGroupError, InvalidRepresentationError, ParseError, SizeLimitError
@@ -262,14 +263,42 @@ def homfly_unknot(lam: Sequence[int]) -> tuple[Laurent2, Laurent]:
     ('a*(1) + a^-1*(-1)', '-s^-1 + s')
     """
     lam = as_partition(lam)
-    num = Laurent2.monomial(0, 0, 1)
-    for c in contents(lam):
-        num = num * (Laurent2.monomial(1, c) - Laurent2.monomial(-1, -c))
+    return _homfly_unknot(lam)
+
+
+@lru_cache(maxsize=20_000)
+def _homfly_unknot(lam: Partition) -> tuple[Laurent2, Laurent]:
+    cs = contents(lam)
+    n = len(cs)
+    # prod_c (a s^c - a^-1 s^-c) = a^-n s^-sum(c) prod_c (A s^(2c) - 1), A = a^2.  The product is
+    # built by the recursion for elementary symmetric functions on a dense (k, s-exponent) array.
+    lo = 2 * min(cs, default=0)
+    span = sum(2 * c - lo for c in cs) + 1     # largest index reached, plus one
+    dtype = np.int64 if n <= 60 else object
+    arr = np.zeros((n + 1, span), dtype=dtype)
+    arr[0, 0] = 1          # exponents of s stored as (2c - lo) summed over the chosen factors
+    for c in cs:
+        sh = 2 * c - lo
+        new = np.zeros_like(arr)
+        new[:, :] = -arr
+        new[1:, sh:] += arr[:-1, : span - sh]
+        arr = new
+    num = {}
+    total_c = sum(cs)
+    for k in range(n + 1):
+        row = arr[k]
+        nz = np.nonzero(row)[0]
+        if len(nz) == 0:
+            continue
+        first, last = int(nz[0]), int(nz[-1])
+        # term A^k s^(index + k*lo) in the product; times a^-n s^-sum(c)
+        f = Laurent.from_dense(row[first:last + 1].tolist(), first + k * lo - total_c, 1, var="s")
+        num[2 * k - n] = f
     s = Laurent.gen("s")
     den = Laurent.one("s")
     for h in hooks(lam):
         den = den * (s**h - s**-h)
-    return num, den
+    return Laurent2(num), den
 
 
 # ---------------------------------------------------------------- fixed-N decompositions

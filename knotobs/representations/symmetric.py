@@ -25,9 +25,34 @@ from functools import lru_cache
 from math import factorial
 from typing import Sequence
 
+from knotobs.errors import SizeLimitError
 from knotobs.representations.partitions import Partition, partitions_of
 
-__all__ = ["mn_character", "z_rho", "adams_generic", "littlewood_richardson", "tensor_generic"]
+__all__ = ["mn_character", "z_rho", "adams_generic", "littlewood_richardson", "tensor_generic",
+           "MAX_PLETHYSM_PARTITIONS"]
+
+#: Largest number of partitions of ``m |lam|`` that the generic-N Adams operation runs over.
+MAX_PLETHYSM_PARTITIONS = 60_000
+
+
+@lru_cache(maxsize=None)
+def _partition_count(n: int) -> int:
+    """Number of partitions of ``n`` (Euler's pentagonal recurrence)."""
+    p = [1] + [0] * n
+    for i in range(1, n + 1):
+        k, total = 1, 0
+        while True:
+            g1 = k * (3 * k - 1) // 2
+            if g1 > i:
+                break
+            sign = 1 if k % 2 else -1
+            total += sign * p[i - g1]
+            g2 = k * (3 * k + 1) // 2
+            if g2 <= i:
+                total += sign * p[i - g2]
+            k += 1
+        p[i] = total
+    return p[n]
 
 
 def _beta(lam: Sequence[int], length: int) -> tuple[int, ...]:
@@ -111,6 +136,16 @@ def adams_generic(lam: Partition, m: int) -> tuple[tuple[Partition, int], ...]:
         return ((lam, 1),)
     if n == 0:
         return (((), 1),)
+    if lam == (1,):
+        # p_m = sum_r (-1)^r s_(m-r, 1^r)  (Macdonald (1995), ch. I §3, ex. 11)
+        return tuple((tuple([m - r] + [1] * r), (-1) ** r) for r in range(m))
+    count = _partition_count(m * n)
+    if count > MAX_PLETHYSM_PARTITIONS:
+        raise SizeLimitError(
+            f"the Adams operation psi^{m} of {list(lam)} runs over the {count} partitions of {m * n};"
+            f" at most {MAX_PLETHYSM_PARTITIONS} are handled for generic N. Use a fixed N"
+            " (e.g. the U(N) Wilson loop), whose route needs only the weights of the representation"
+        )
     rhos = partitions_of(n)
     weights = [(rho, Fraction(mn_character(lam, rho), z_rho(rho))) for rho in rhos]
     weights = [(rho, w) for rho, w in weights if w != 0]
