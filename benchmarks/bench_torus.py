@@ -18,7 +18,7 @@ from knotobs.representations import groups, symmetric, weights
 
 
 def clear_caches() -> None:
-    for f in (groups._qdim_cached, groups._adams_fixed, groups._qint_poly, symmetric.adams_generic,
+    for f in (groups._qdim_cached, groups._adams_fixed, groups._qint_poly, groups._homfly_unknot, symmetric.adams_generic,
               symmetric._mn, symmetric.littlewood_richardson, weights.kostka, weights.weight_multiplicities):
         f.cache_clear()
 
