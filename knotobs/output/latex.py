@@ -12,6 +12,8 @@ import io
 import json
 from typing import Iterable, Sequence
 
+from knotobs.polynomials._format import format_terms
+
 __all__ = ["latex_polynomial", "mpoly_latex", "latex_result", "latex_comparison", "latex_table", "terminal_table",
            "grid_table_rows", "GRID_HEADERS"]
 
@@ -44,18 +46,14 @@ def mpoly_latex(p) -> str:
         keys.sort(key=lambda k: tuple(-x for x in k[:-1]) + k[-1:])
     else:
         keys.sort()
-    out = []
-    for k in keys:
-        c = p.terms[k]
-        mono = " ".join(v if e == 1 else f"{v}^{{{_exp_tex(e)}}}" for v, e in zip(p.variables, k) if e != 0)
-        a = abs(c)
-        astr = str(a) if a.denominator == 1 else f"\\frac{{{a.numerator}}}{{{a.denominator}}}"
-        body = mono if (mono and a == 1) else (f"{astr} {mono}" if mono else astr)
-        out.append(("-" if c < 0 else "+", body))
-    text = ("-" if out[0][0] == "-" else "") + out[0][1]
-    for sign, body in out[1:]:
-        text += f" {sign} {body}"
-    return text
+
+    def tex_coeff(a) -> str:
+        return str(a) if a.denominator == 1 else f"\\frac{{{a.numerator}}}{{{a.denominator}}}"
+
+    def mono(k) -> str:
+        return " ".join(v if e == 1 else f"{v}^{{{_exp_tex(e)}}}" for v, e in zip(p.variables, k) if e != 0)
+
+    return format_terms((((mono(k),), p.terms[k]) for k in keys), joiner=" ", coeff=tex_coeff)
 
 
 def latex_polynomial(text: str, variables: Sequence[str] | None = None) -> str:

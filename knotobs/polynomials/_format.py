@@ -28,17 +28,29 @@ def power(var: str, e: "int | Fraction") -> str:
     return f"{var}^({e.numerator}/{e.denominator})"
 
 
-def format_terms(terms: Iterable[tuple[Sequence[str], int]]) -> str:
+def _plain_coeff(a) -> str:
+    a = Fraction(a)
+    return str(a) if a.denominator == 1 else f"({a})"
+
+
+def format_terms(terms: Iterable[tuple[Sequence[str], "int | Fraction"]], joiner: str = "*",
+                 coeff=_plain_coeff) -> str:
     """Join ``(monomial factors, coefficient)`` pairs into ``c1*m1 + c2*m2 - ...``.
+
+    ``joiner`` glues the factors (``"*"``; ``" "`` for LaTeX) and ``coeff`` writes the
+    absolute value of a coefficient (rational coefficients are parenthesised by default).
 
     >>> format_terms([(("a^-2",), 2), (("a^-2", "z^2"), 1), (("a^-4",), -1)])
     '2*a^-2 + a^-2*z^2 - a^-4'
+    >>> format_terms([(("t",), Fraction(-1, 2))])
+    '-(1/2)*t'
     """
     parts = []
     for factors, c in terms:
-        mono = "*".join(f for f in factors if f)
+        mono = joiner.join(f for f in factors if f)
         a = abs(c)
-        body = mono if (mono and a == 1) else (f"{a}*{mono}" if mono else str(a))
+        astr = coeff(a)
+        body = mono if (mono and a == 1) else (f"{astr}{joiner}{mono}" if mono else astr)
         parts.append(("-" if c < 0 else "+", body))
     if not parts:
         return "0"

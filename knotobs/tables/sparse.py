@@ -15,6 +15,7 @@ from fractions import Fraction
 from typing import Iterable, Mapping
 
 from knotobs.errors import InexactDivisionError
+from knotobs.polynomials._format import format_terms
 from knotobs.polynomials.bivariate import Laurent2
 from knotobs.polynomials.laurent import Laurent
 
@@ -309,18 +310,8 @@ class MPoly:
                     parts.append(f"{v}^({e.numerator}/{e.denominator})")
             return "*".join(parts)
 
-        pieces = []
-        for k in sorted(self.terms, key=lambda k: tuple(-x for x in k[:-1]) + k[-1:] if len(k) > 1 else k):
-            c = self.terms[k]
-            m = mono(k)
-            a = abs(c)
-            astr = str(a) if a.denominator == 1 else f"({a})"
-            body = m if (m and a == 1) else (f"{astr}*{m}" if m else astr)
-            pieces.append(("-" if c < 0 else "+", body))
-        s = ("-" if pieces[0][0] == "-" else "") + pieces[0][1]
-        for sign, body in pieces[1:]:
-            s += f" {sign} {body}"
-        return s
+        keys = sorted(self.terms, key=lambda k: tuple(-x for x in k[:-1]) + k[-1:] if len(k) > 1 else k)
+        return format_terms(((mono(k),), self.terms[k]) for k in keys)
 
     def to_sympy(self):
         import sympy
