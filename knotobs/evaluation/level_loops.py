@@ -61,8 +61,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     ----------
     knot : str, optional
         ``T(p,q)``.  In S^3 a regular fiber of the fibration of :func:`fibration_of`; in
-        ``L(p,q)`` the curve of slope ``p/q`` on the Heegaard torus.  Omit it and give
-        ``fiber`` to colour a core (exceptional) fiber of ``space``.
+        ``L(p,q)`` the curve of slope ``p/q`` on the Heegaard torus.  ``"fiber"``: a regular
+        fiber of any Seifert manifold ``space``.  Omit it and give ``fiber`` to colour a core
+        (exceptional) fiber of ``space``.
     level : int
         ``k >= 1``.
     group : str
@@ -113,9 +114,15 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
                     raise
         return fiber_wilson_loop(M, level, str(g), exceptional={fiber: lam}, normalized=normalized,
                                  digits=digits, framing="fiber")
-    k = parse_knot(knot)
-    cols = tuple(g.check(c) for c in colours_for(k, rep))
-    F = fibration_of(k, space)
+    if str(knot).strip().lower() in ("fiber", "fibre"):
+        # a regular fiber of any Seifert manifold (a single component)
+        F = fibration_of("fiber", space)
+        k = None
+        cols = (g.check(rep if (not rep or isinstance(rep[0], int) or isinstance(rep, str)) else rep[0]),)
+    else:
+        k = parse_knot(knot)
+        cols = tuple(g.check(c) for c in colours_for(k, rep))
+        F = fibration_of(k, space)
     null_homologous = (F.homology_class in (None, 0))
     if framing is None:
         mode = "zero" if null_homologous else "fiber"
@@ -127,7 +134,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         raise KnotobsError(f"unknown framing {framing!r}: use zero, fiber or an integer")
     if mode == "zero" and not null_homologous:
         raise KnotobsError(
-            f"{k} is not null-homologous in {space} (class {F.homology_class} in H_1); it has no zero"
+            f"{knot} is not null-homologous in {space} (class {F.homology_class} in H_1); it has no zero"
             " framing: use the fiber framing"
         )
     v = fiber_wilson_loop(F.manifold, level, str(g), regular=list(cols), normalized=normalized,
@@ -146,7 +153,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         framing_text = f"{f} on every component relative to the zero framing"
         extra = f
     details["framing_value"] = "zero" if mode == "zero" and not extra else (extra if extra else "fiber")
-    if space.replace(" ", "").upper() in ("S^3", "S3") and normalized:
+    if k is not None and space.replace(" ", "").upper() in ("S^3", "S3") and normalized:
         poly = rosso_jones(k, g, cols, extra if mode == "zero" else "fiber")
         check = poly.at_root_of_unity(level + g.N, dps=digits + 5)
         with mpmath.workdps(digits + 5):

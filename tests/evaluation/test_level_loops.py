@@ -104,3 +104,13 @@ def test_cli_level_json_fields():
     assert d["recognised"] == "Sigma(2,3,5)" and "numeric" in d and d["h1_order"] == 1
     r = runner.invoke(app, ["loop", "T(2,3)", "--level", "1", "--rep", "[2]"])
     assert r.exit_code == 2 and "not integrable" in r.output
+
+
+def test_regular_fiber_by_name_is_the_torus_knot():
+    # S^3 = M(0; 0; (2,1), (3,-1)) has the positive trefoil as regular fiber (CONVENTIONS §5, §7)
+    for k in (2, 3, 5):
+        a = level_loop("fiber", k, "SU(2)", (1,), space="M(0; 0; (2,1), (3,-1))", digits=20).numeric
+        b = level_loop("T(2,3)", k, "SU(2)", (1,), digits=20).numeric
+        assert abs(a - b) < 1e-15
+    with pytest.raises(KnotobsError, match="null-homologous"):
+        level_loop("fiber", 3, "SU(2)", (1,), space="L(5,1)", framing="zero")
