@@ -39,6 +39,19 @@ def continue_(
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Values at complex level (Seifert partition functions) or at SL(N,C) couplings (torus knots)."""
+    if couplings is not None and not target.strip().upper().startswith("T("):
+        from knotobs.continuation.complex import sl2c_partition_function
+
+        res = sl2c_partition_function(target, couplings, digits=digits)
+        js = res.to_json()
+        text = (f"SL(2,C) partition function of {target} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
+                f"  value = {mpmath.nstr(res.numeric, digits)}\n  sum over flat-connection sectors: {js['variables']}")
+        for cs, (h, _a) in sorted(res.sectors.items()):
+            text += f"\n    cs = {str(cs):>10s}  holomorphic block = {mpmath.nstr(h, min(digits, 12))}"
+        for n in res.notes:
+            text += f"\n  note: {n}"
+        emit(js, text, as_json)
+        return
     if couplings is not None:
         from knotobs.continuation.complex import sl_wilson_loop
 
