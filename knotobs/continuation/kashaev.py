@@ -80,8 +80,10 @@ class KashaevGrowth:
 def growth_exponent(knot, Ns) -> KashaevGrowth:
     """Least-squares fit of ``log |<K>_N|`` against ``log N``.
 
-    The amplitude of the ``N^(3/2)`` term depends on ``N mod 2pq`` (Kashaev–Tirkkonen), so
-    choose the colours in one residue class modulo ``2pq``.
+    The amplitude of the ``N^(3/2)`` term depends on ``N`` through phases
+    ``exp(-pi i N j^2/(2pq))`` (Kashaev–Tirkkonen), periodic with a period dividing ``4pq``
+    (``2pq`` suffices for T(2,3) and T(2,5), T(3,4) needs 48), so choose the colours in one
+    residue class modulo ``4pq``.
 
     >>> g = growth_exponent("T(2,3)", [25, 37, 49, 61])
     >>> abs(g.exponent - 1.5) < 0.05

@@ -254,10 +254,17 @@ def test_kashaev_trefoil_against_zagier_sum():
 @pytest.mark.parametrize("knot,period", [("T(2,3)", 12), ("T(2,5)", 20)])
 @pytest.mark.parametrize("r", [1, 5])
 def test_kashaev_growth(knot, period, r):
-    # |<T(p,q)>_N| ~ C(N mod 2pq) N^(3/2) (Kashaev & Tirkkonen, Zap. Nauchn. Sem. POMI 269
-    # (2000)): the amplitude depends on N mod 2pq, so sample one residue class
+    # |<T(p,q)>_N| ~ C(N mod 4pq) N^(3/2) (Kashaev & Tirkkonen, Zap. Nauchn. Sem. POMI 269
+    # (2000)): the amplitude depends on N through phases of period dividing 4pq, so sample one
+    # residue class (2pq is enough for these two knots)
     g = growth_exponent(knot, [r + period * j for j in range(2, 6)])
     assert abs(g.exponent - 1.5) < 0.03
+
+
+def test_kashaev_growth_t34_needs_period_4pq():
+    # same source; for T(3,4) the residue classes mod 2pq = 24 mix two different amplitudes
+    g = growth_exponent("T(3,4)", [5 + 48 * j for j in range(1, 5)])
+    assert abs(g.exponent - 1.5) < 0.01
 
 
 # ----------------------------------------------------------------- SL(N,C)
