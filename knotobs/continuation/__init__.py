@@ -13,6 +13,7 @@ from knotobs.continuation.qseries import (
     poincare_radial_limit,
     poincare_series,
     tau_from_q_series,
+    tau_from_q_series_exact,
 )
 
 __all__ = [
@@ -20,5 +21,5 @@ __all__ = [
     "FlatConnection", "FlatTable", "flat_connections", "growth_exponent", "kashaev_invariant",
     "continued_partition_function", "continued_Z", "evaluate_polynomial", "ohtsuki_series",
     "poincare_false_theta", "poincare_radial_limit", "poincare_series",
-    "brieskorn_false_theta", "brieskorn_radial_limit", "tau_from_q_series",
+    "brieskorn_false_theta", "brieskorn_radial_limit", "tau_from_q_series", "tau_from_q_series_exact",
 ]

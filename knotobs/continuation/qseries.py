@@ -102,6 +102,7 @@ __all__ = [
     "brieskorn_false_theta",
     "brieskorn_radial_limit",
     "tau_from_q_series",
+    "tau_from_q_series_exact",
     "poincare_false_theta",
     "poincare_series",
     "poincare_radial_limit",
@@ -473,6 +474,54 @@ def _checked(f, digits: int) -> mpmath.mpc:
             raise SizeLimitError(f"value not stable to {digits} digits")
     with mpmath.workdps(digits):
         return +b
+
+
+def tau_from_q_series_exact(p, K: int):
+    """The same identity as :func:`tau_from_q_series`, evaluated exactly in ``Q(zeta_(2K d))``.
+
+    Every exponent of the radial-limit sum is an integer, so the sum is an element of
+    ``Q(zeta_K)``; the prefactor ``xi^c / (xi^(1/2) - xi^(-1/2))`` lives in ``Q(zeta_(2K d))``
+    with ``d`` the denominator of ``c``.  Returns a
+    :class:`~knotobs.polynomials.cyclotomic.Cyclotomic`.
+
+    Examples
+    --------
+    >>> from knotobs.evaluation.surgery import partition_function
+    >>> from knotobs.fibrations.seifert import parse_space
+    >>> tau = tau_from_q_series_exact((2, 3, 7), 9)
+    >>> z = partition_function(parse_space("Sigma(2,3,7)"), "SU(2)", level=7, exact=True)
+    >>> s00 = partition_function(parse_space("S^3"), "SU(2)", level=7, exact=True)
+    >>> tau == (z.exact / s00.exact).as_cyclotomic()
+    True
+
+    References
+    ----------
+    As :func:`tau_from_q_series`.
+    """
+    from knotobs.polynomials.cyclotomic import CyclotomicField
+
+    d = brieskorn_data(p)
+    if isinstance(K, bool) or not isinstance(K, int) or K < 2 or K > 10**4:
+        raise SizeLimitError(f"K = {K!r} must be an integer between 2 and 10^4 (K = k + 2)")
+    c = d.phase
+    n = 2 * K * c.denominator
+    F = CyclotomicField(n)
+    step = n // K                                   # xi = zeta_n^step
+    exps, weights = [], []
+    P4 = 4 * d.P
+    for j in range(K):
+        for r, ch in _support(d):
+            m = r + 2 * d.P * j
+            e = ((m * m - d.n0 * d.n0) // P4) % K
+            exps.append(d.H * e * step)
+            weights.append(m * ch)
+    L = F.from_exponents(exps, weights) * Fraction(-1, 2 * d.P * K)
+    E0 = F.from_exponents([d.H * (k % K) * step for k in d.end_terms], list(d.end_terms.values())) \
+        if d.end_terms else F.zero
+    xi_c = F.zeta(c.numerator * (n // (K * c.denominator)))
+    half = F.zeta(n // (2 * K))
+    den = (half - half.inverse()) * 2
+    return xi_c * (E0 - L) * d.H / den
 
 
 def tau_from_q_series(p, K: int, digits: int = 30) -> mpmath.mpc:

@@ -142,3 +142,18 @@ def test_bad_points_are_refused():
         brieskorn_false_theta((2, 3, 7), "0.2", order=5)
     with pytest.raises(KnotobsError, match="K = 1"):
         tau_from_q_series((2, 3, 7), 1)
+
+
+@pytest.mark.parametrize("name", ["Sigma(2,3,5)", "Sigma(2,3,7)", "-Sigma(2,3,7)", "Sigma(3,4,5)", "Sigma(2,5,7)"])
+@pytest.mark.parametrize("K", [3, 5, 8, 13])
+def test_q_series_route_is_exactly_the_surgery_value(name, K):
+    # exact equality in a cyclotomic field: the q-series identity (module docstring; Hikami 2005,
+    # Lawrence-Zagier 1999) against the Reshetikhin-Turaev surgery route
+    from knotobs.continuation.qseries import tau_from_q_series_exact
+    from knotobs.evaluation.surgery import partition_function
+    from knotobs.fibrations.seifert import parse_space
+
+    tau = tau_from_q_series_exact(name, K)
+    z = partition_function(parse_space(name), "SU(2)", level=K - 2, exact=True)
+    s00 = partition_function(parse_space("S^3"), "SU(2)", level=K - 2, exact=True)
+    assert tau == (z.exact / s00.exact).as_cyclotomic()
