@@ -47,6 +47,7 @@ def loop(
     in_: str = typer.Option("S^3", "--in", help="With --level: S^3, L(p,q), Sigma(a,b,c) or M(0; b; ...)."),
     fiber: Optional[int] = typer.Option(None, "--fiber", help="With --level and no KNOT: colour the core fiber with this index (from 0)."),
     digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
+    raw: bool = typer.Option(False, "--raw", help="With --level: Z(M; L) itself, not divided by Z(M) (use when Z(M) = 0)."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Wilson loop of a torus knot/link: exact polynomial in q, or its value at level k."""
@@ -59,10 +60,10 @@ def loop(
         emit(res.to_json(), render_polynomial(res), as_json)
         return
     fr = _framing(framing) if framing is not None else None
-    val = level_loop(knot, level, group, _reps(rep), in_, fiber, fr, True, digits)
+    val = level_loop(knot, level, group, _reps(rep), in_, fiber, fr, not raw, digits)
     what = knot if knot is not None else f"core fiber {fiber} of {in_}"
     inputs = {"knot": knot, "space": in_, "fiber": fiber, "group": group, "rep": rep, "level": level,
-              "framing": framing, "digits": digits}
+              "framing": framing, "digits": digits, "raw": raw}
     title = f"Wilson loop of {what} in {in_}, {group} at level {level}, colour {rep}"
     emit(finite_json(val, inputs, "wilson-loop"), finite_text(val, title), as_json)
 

@@ -737,8 +737,8 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
         val_0, num_0 = _evaluate(md, pres, {}, [], digits + 5, exact)
         if abs(num_0) < mpmath.mpf(10) ** (-(digits + 3)):
             raise InexactDivisionError(
-                f"Z(M) vanishes at level {md.k}; the normalised Wilson loop is undefined,"
-                " use normalized=False"
+                f"Z(M) vanishes at level {md.k}; the normalised Wilson loop is undefined: ask for Z(M; L)"
+                " itself (normalized=False; knotobs loop --raw)"
             )
     with mpmath.workdps(digits + 10):
         phase = mpmath.expjpi(2 * mpmath.mpf(shift.numerator) / shift.denominator)
