@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import sys
+
 import re
 from typing import Optional
 
@@ -48,6 +50,11 @@ def _levels(text: str) -> list:
     return out
 
 
+def _show(progress: Optional[bool]) -> bool:
+    """Progress bar only on an interactive terminal unless asked for explicitly."""
+    return sys.stderr.isatty() if progress is None else progress
+
+
 @grid_app.command("run")
 @handle_errors
 def run(
@@ -64,13 +71,13 @@ def run(
     store: str = typer.Option(DEFAULT_STORE, "--store", "-s", help="SQLite results store."),
     workers: int = typer.Option(2, "--workers", "-w", help="Local worker processes (0: in this process)."),
     scheduler: Optional[str] = typer.Option(None, "--scheduler", help="Dask scheduler address, e.g. tcp://127.0.0.1:8786."),
-    progress: bool = typer.Option(True, "--progress/--no-progress", help="Progress bar on stderr."),
+    progress: Optional[bool] = typer.Option(None, "--progress/--no-progress", help="Progress bar on stderr (default: when it is a terminal)."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Compute a grid (skipping rows already in the store) and store every row."""
     spec = GridSpec(_knots(knots, max_pq, links), group, [parse_partition(r) for r in reps.split(";") if r.strip()],
                     _levels(levels), quantity, not unnormalized, framing, dps)
-    rep = run_grid(spec, store, workers, progress, scheduler)
+    rep = run_grid(spec, store, workers, _show(progress), scheduler)
     emit(rep.to_json(), rep.describe(), as_json)
     if not rep.complete:
         raise typer.Exit(code=2)
@@ -82,11 +89,11 @@ def resume(
     store: str = typer.Option(DEFAULT_STORE, "--store", "-s", help="SQLite results store."),
     workers: int = typer.Option(2, "--workers", "-w", help="Local worker processes."),
     scheduler: Optional[str] = typer.Option(None, "--scheduler", help="Dask scheduler address."),
-    progress: bool = typer.Option(True, "--progress/--no-progress"),
+    progress: Optional[bool] = typer.Option(None, "--progress/--no-progress", help="Progress bar on stderr (default: when it is a terminal)."),
     as_json: bool = typer.Option(False, "--json"),
 ) -> None:
     """Finish every grid recorded in the store, computing only the missing rows."""
-    reps = resume_grid(store, workers, progress, scheduler)
+    reps = resume_grid(store, workers, _show(progress), scheduler)
     emit({"kind": "grid-resume", "reports": [r.to_json() for r in reps]}, "\n".join(r.describe() for r in reps), as_json)
     if not all(r.complete for r in reps):
         raise typer.Exit(code=2)
