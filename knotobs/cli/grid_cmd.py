@@ -2,9 +2,9 @@
 
 from __future__ import annotations
 
-import sys
 
 import re
+import sys
 from typing import Optional
 
 import typer
