@@ -125,6 +125,15 @@ def rosso_jones_homfly(knot: TorusLink, colours, framing: FramingSpec = 0) -> tu
     The unnormalised invariant is the ratio (the unknot alone is not a Laurent
     polynomial); :func:`knotobs.evaluation.families.homfly` divides by the unknot.
 
+    Examples
+    --------
+    >>> from fractions import Fraction
+    >>> from knotobs.representations.groups import U
+    >>> num, D = rosso_jones_homfly(TorusLink(2, 3), (1,))
+    >>> at3 = num.specialize(Fraction(3, 2)).exact_div(D.subs_power(Fraction(1, 2)).rename("q"))
+    >>> at3 == rosso_jones(TorusLink(2, 3), U(3), (1,))
+    True
+
     The twist is ``theta(mu) = s^kappa(mu) a^|mu|`` (U(N) Casimir, ``a = q^(N/2)``,
     ``s = q^(1/2)``) and the quantum dimensions are the hook–content forms of
     :func:`~knotobs.representations.groups.homfly_unknot`; all terms are put over the

@@ -149,5 +149,8 @@ class TorusLink:
 
 
 def parse_knot(text: "str | TorusLink") -> TorusLink:
-    """Parse a knot description (currently torus knots and links ``T(p,q)``)."""
+    """Parse a knot description (currently torus knots and links ``T(p,q)``).
+
+    >>> parse_knot("T(3,-4)").mirror()
+    TorusLink(p=3, q=4)"""
     return TorusLink.parse(text)

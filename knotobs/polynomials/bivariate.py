@@ -280,7 +280,10 @@ class Laurent2:
 
 
 def z_power(j: int, var: str = "s") -> Laurent:
-    """``(s - 1/s)^j`` for ``j >= 0`` as a Laurent polynomial in ``s``."""
+    """``(s - 1/s)^j`` for ``j >= 0`` as a Laurent polynomial in ``s``.
+
+    >>> z_power(2)
+    Laurent('s^-2 - 2 + s^2')"""
     z = Laurent.gen(var) - Laurent.gen(var) ** -1
     return z ** j
 

@@ -120,12 +120,18 @@ class Group:
 
 
 def SU(N: int) -> Group:
-    """The group SU(N)."""
+    """The group SU(N).
+
+    >>> SU(3), SU(3).dynkin((2, 1))
+    (Group(kind='SU', N=3), (1, 1))"""
     return Group("SU", N)
 
 
 def U(N: int) -> Group:
-    """The group U(N)."""
+    """The group U(N).
+
+    >>> casimir(U(2), (1,)) - casimir(SU(2), (1,))     # the U(1) part |lam|^2/(2N)
+    Fraction(1, 4)"""
     return Group("U", N)
 
 
@@ -134,6 +140,9 @@ _GROUP_RE = re.compile(r"^\s*(SU|U|SL)\s*\(\s*(\d+)\s*(,\s*C\s*)?\)\s*$", re.IGN
 
 def parse_group(spec) -> Group:
     """Read ``"SU(N)"``, ``"U(N)"``, ``("A", N - 1)`` or a :class:`Group`.
+
+    >>> parse_group("U(4)"), parse_group(" su ( 2 ) ")
+    (Group(kind='U', N=4), Group(kind='SU', N=2))
 
     ``"SL(N,C)"`` is accepted by :mod:`knotobs.representations.complexified`, not here.
     """
@@ -241,6 +250,9 @@ def quantum_dimension_hook_content(group: Group, lam: Sequence[int]) -> Laurent:
     """Quantum dimension by the hook–content formula ``prod_boxes [N + c]/[h]``.
 
     An independent formula for :func:`quantum_dimension` (Macdonald (1995), ch. I §3, ex. 1).
+
+    >>> quantum_dimension_hook_content(SU(2), (2,))
+    Laurent('q^-1 + 1 + q')
     """
     lam = group.check(lam)
     num = Laurent.one()
@@ -339,7 +351,10 @@ def adams_fixed(group: Group, lam: Sequence[int], m: int) -> tuple[tuple[Partiti
 
 
 def tensor_fixed(group: Group, parts: Sequence[Sequence[int]]) -> dict[Partition, int]:
-    """Decompose ``lam_1 x ... x lam_d`` for U(N) by Brauer–Klimyk on the weights of each factor."""
+    """Decompose ``lam_1 x ... x lam_d`` for U(N) by Brauer–Klimyk on the weights of each factor.
+
+    >>> sorted(tensor_fixed(SU(2), [(1,), (1,)]).items())   # spin 1/2 x 1/2 = 1 + 0 (height-2 column kept)
+    [((1, 1), 1), ((2,), 1)]"""
     N = group.N
     acc: dict[Partition, int] = {(): 1}
     for lam in parts:

@@ -218,7 +218,10 @@ def littlewood_richardson(lam: Partition, mu: Partition) -> tuple[tuple[Partitio
 
 
 def tensor_generic(parts: Sequence[Partition]) -> dict[Partition, int]:
-    """Decompose ``s_{lam_1} ... s_{lam_d}`` into Schur functions (generic N)."""
+    """Decompose ``s_{lam_1} ... s_{lam_d}`` into Schur functions (generic N).
+
+    >>> tensor_generic([(1,), (1,), (1,)])
+    {(3,): 1, (2, 1): 2, (1, 1, 1): 1}"""
     acc: dict[Partition, int] = {(): 1}
     for lam in parts:
         new: dict[Partition, int] = {}
