@@ -94,6 +94,11 @@ def unitarity_note(t, tt, tol=1e-20) -> str | None:
     return "; ".join(msgs) + ": outside the unitary range (Witten 1991)"
 
 
+def _complex_json(z, digits: int) -> dict[str, str]:
+    """``{"re": ..., "im": ...}`` as decimal strings with ``digits`` digits."""
+    return {"re": mpmath.nstr(z.real, digits), "im": mpmath.nstr(z.imag, digits)}
+
+
 @dataclass(frozen=True)
 class ComplexObservable:
     """Value of an SL(N,C) Wilson loop at couplings ``(t, tt)``."""
@@ -110,7 +115,7 @@ class ComplexObservable:
 
     def to_json(self) -> dict[str, Any]:
         def c(z):
-            return {"re": mpmath.nstr(z.real, self.digits), "im": mpmath.nstr(z.imag, self.digits)}
+            return _complex_json(z, self.digits)
 
         return {
             "quantity": "sl-wilson-loop",
@@ -203,7 +208,7 @@ class SectorSum:
 
     def to_json(self) -> dict[str, Any]:
         def c(z):
-            return {"re": mpmath.nstr(z.real, self.digits), "im": mpmath.nstr(z.imag, self.digits)}
+            return _complex_json(z, self.digits)
 
         return {
             "quantity": "sl2c-partition-function",
