@@ -51,6 +51,7 @@ def space(
     group: str = typer.Option("SU(2)", "--group", "-g", help="With --level: SU(N)."),
     level: Optional[int] = typer.Option(None, "--level", "-k", help="Print the partition function Z_k."),
     digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
+    route: str = typer.Option("auto", "--route", help="With --level: auto, surgery, gauss-sum (SU(2)) or both."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Seifert data of a manifold (normal form, e, |H_1|, name), or of r-surgery on a torus knot;
@@ -59,10 +60,12 @@ def space(
         report = space_report(space_, surgery=surgery, slope=slope)
         emit(space_json(report), space_text(report), as_json)
         return
-    value, report = level_partition_function(space_, group, level, digits, surgery=surgery, slope=slope)
+    value, report = level_partition_function(space_, group, level, digits, surgery=surgery, slope=slope,
+                                             route=route)
     payload = space_json(report)
     payload.update(finite_json(value, {"space": space_, "surgery": surgery, "slope": slope,
-                                       "group": group, "level": level, "digits": digits}, "partition-function"))
+                                       "group": group, "level": level, "digits": digits, "route": route},
+                                      "partition-function"))
     name = report.recognised or space_ or f"{slope} surgery on {surgery}"
     text = finite_text(value, f"Z_k of {name}, {group} at level {level}")
     emit(payload, text + "\n\n" + space_text(report), as_json)

@@ -34,7 +34,8 @@ __all__ = ["level_loop", "level_partition_function"]
 
 
 def level_partition_function(space: Optional[str] = None, group="SU(2)", level: int = 1, digits: int = 30,
-                             surgery: Optional[str] = None, slope=None) -> tuple[FiniteLevelValue, object]:
+                             surgery: Optional[str] = None, slope=None,
+                             route: str = "auto") -> tuple[FiniteLevelValue, object]:
     """``Z_k`` of a manifold given by name or by surgery on a torus knot; returns ``(value, report)``.
 
     Examples
@@ -49,7 +50,7 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
             f"{report.recognised} is reducible; knotobs evaluates Seifert manifolds over S^2 "
             "(use Z(M1 # M2) = Z(M1) Z(M2) / Z(S^3) on the summands)"
         )
-    return partition_function(report.manifold, group, level, digits), report
+    return partition_function(report.manifold, group, level, digits, route=route), report
 
 
 def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1,), space: str = "S^3",

@@ -602,8 +602,15 @@ def surgery_partition_function(e0: int, pq: Sequence[tuple[int, int]], group="SU
     )
 
 
+#: Above this shifted level ``K`` the SU(2) partition function uses the Lawrence–Rozansky
+#: Gauss sum (when it applies) in the automatic route: the surgery route costs ``O(K^2)``.
+AUTO_GAUSS_SUM_K = 200
+
+PARTITION_ROUTES = ("auto", "surgery", "gauss-sum", "both")
+
+
 def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
-                       exact: bool | None = None) -> FiniteLevelValue:
+                       exact: bool | None = None, route: str = "auto") -> FiniteLevelValue:
     """Chern–Simons partition function ``Z_k(M)`` of a Seifert manifold over S^2.
 
     Parameters
@@ -638,18 +645,39 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
     >>> partition_function((0, []), "SU(3)", 2).numeric    # S^2 x S^1
     mpc(real='1.0', imag='0.0')
     """
+    if route not in PARTITION_ROUTES:
+        raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(PARTITION_ROUTES)}")
     b, fibers = seifert_data(space)
     md = _group_level(group, level)
+    if route in ("gauss-sum", "both") or (route == "auto" and md.N == 2 and md.K > AUTO_GAUSS_SUM_K):
+        from knotobs.evaluation.gauss_sum import gauss_sum_partition_function
+
+        try:
+            gs = gauss_sum_partition_function((b, fibers), md.k, digits, exact)
+        except KnotobsError:
+            if route in ("gauss-sum", "both"):
+                raise
+            gs = None  # not applicable (orders sharing a factor, H = 0): fall back to surgery
+        if md.N != 2 and gs is not None:  # pragma: no cover - the Gauss sum is SU(2) only
+            raise KnotobsError("the Gauss-sum route is SU(2) only")
+        if gs is not None and route != "both":
+            return gs
     e0, pq = seifert_to_surgery(b, fibers)
     pres = SurgeryPresentation.from_coefficients(e0, pq)
     value, numeric = _evaluate(md, pres, {}, [], digits, exact)
+    if route == "both":
+        with mpmath.workdps(digits + 5):
+            if abs(gs.numeric - numeric) > mpmath.mpf(10) ** (3 - digits) * max(1, abs(numeric)):
+                raise KnotobsError(  # pragma: no cover - would be a bug
+                    f"surgery and Gauss-sum routes disagree at level {md.k}: {numeric} vs {gs.numeric}"
+                )
     return FiniteLevelValue(
         exact=value, numeric=numeric, digits=digits,
         framing="canonical 2-framing (Atiyah)",
         orientation=_orientation_text(b, fibers),
         normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1",
-        details={"route": "surgery", "group": f"SU({md.N})", "level": md.k,
-                 "seifert": (b, fibers)},
+        details={"route": "surgery" if route != "both" else "surgery = Gauss sum (both checked)",
+                 "group": f"SU({md.N})", "level": md.k, "seifert": (b, fibers)},
     )
 
 

@@ -42,6 +42,8 @@ def finite_text(value: FiniteLevelValue, title: str) -> str:
     lines.append(f"framing:       {value.framing}")
     lines.append(f"orientation:   {value.orientation}")
     lines.append(f"normalisation: {value.normalisation}")
+    if "route" in value.details:
+        lines.append(f"route:         {value.details['route']}")
     if "polynomial_check" in value.details:
         lines.append(f"check:         exact polynomial at q = exp(2 pi i/K) agrees to {value.details['polynomial_check']:.1e}")
     return "\n".join(lines)
