@@ -243,7 +243,7 @@ def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
             )
         # fundamental: W = P (a - 1/a)/z, a Laurent polynomial in a and z^-1
         zc = (Laurent.gen("s") - Laurent.gen("s") ** -1) ** c
-        return num.times_monomial(0).__mul__(Laurent2.from_s(zc)).exact_div_s(D).with_zpow(-c)
+        return (num * Laurent2.from_s(zc)).exact_div_s(D).with_zpow(-c)
     if c > 1 and any(cc != (1,) for cc in cols):
         raise InvalidRepresentationError(
             f"the normalised HOMFLY-PT of the {c}-component link {knot} coloured by"
