@@ -35,3 +35,14 @@ def test_hopf_homfly_obeys_the_skein_relation():
     lhs = a * hopf.with_zpow(0)                 # = z * a P(Hopf)
     rhs = (a - a**-1) * a**-1 + z * z           # = z * (a^-1 P(unlink) + z P(unknot))
     assert lhs == rhs
+
+
+@pytest.mark.parametrize("knot", ["T(2,3)", "T(2,4)", "T(3,3)", "T(3,4)", "T(2,-5)"])
+def test_unnormalised_homfly_is_normalised_times_unknot(knot):
+    # P(unknot) = (a - a^-1)/z in the quantum-group normalisation (common practice; CONVENTIONS §3)
+    import sympy
+
+    a, z = sympy.symbols("a z")
+    un = sympy.sympify(homfly(knot, normalized=False).sympy_string())
+    no = sympy.sympify(homfly(knot).sympy_string())
+    assert sympy.simplify(un - no * (a - 1 / a) / z) == 0
