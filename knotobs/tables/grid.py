@@ -27,6 +27,7 @@ from __future__ import annotations
 import concurrent.futures as cf
 import json
 import sys
+import threading
 import time
 import uuid
 from dataclasses import dataclass, field
@@ -308,19 +309,26 @@ def observable_document(desc: dict, result, numeric: tuple[str, str] | None) -> 
     }
 
 
+#: mpmath's working precision and FLINT's ball precision are process-global settings, so
+#: grid points computed in threads of one process (e.g. a multi-threaded Dask worker) are
+#: computed one at a time; parallelism comes from processes.
+_COMPUTE_LOCK = threading.Lock()
+
+
 def compute_row(desc: dict, run_id: str = "") -> dict:
     """Compute one grid point; returns a complete store row (or ``{"key", "error"}``).
 
-    Runs in a worker; touches no database.
+    Runs in a worker; touches no database.  Thread-safe (see ``_COMPUTE_LOCK``).
     """
     key = description_key(desc)
     t0 = time.perf_counter()
     try:
-        res = _compute(desc)
-        num = None
-        if desc["level"] is not None:
-            N = parse_group(desc["group"] if desc["quantity"] == "wilson-loop" else "SU(2)").N
-            num = _numeric(res.value, desc["level"] + N, desc["dps"])
+        with _COMPUTE_LOCK:
+            res = _compute(desc)
+            num = None
+            if desc["level"] is not None:
+                N = parse_group(desc["group"] if desc["quantity"] == "wilson-loop" else "SU(2)").N
+                num = _numeric(res.value, desc["level"] + N, desc["dps"])
         doc = observable_document(desc, res, num)
     except KnotobsError as exc:
         return {"key": key, "error": f"{type(exc).__name__}: {exc}", "description": desc}

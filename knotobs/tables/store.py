@@ -118,7 +118,7 @@ class GridStore:
         except sqlite3.Error as exc:
             raise StoreError(f"cannot open results store {self.path!r}: {exc}") from None
         try:
-            self._init(fresh)
+            self._init_retrying(fresh, timeout)
         except sqlite3.DatabaseError as exc:
             self.conn.close()
             raise StoreError(f"{self.path!r} is not a usable knotobs results store ({exc});"
@@ -128,6 +128,27 @@ class GridStore:
             raise
 
     # ------------------------------------------------------------------ opening
+    def _init_retrying(self, fresh: bool, timeout: float) -> None:
+        """:meth:`_init`, retried while another process holds a lock.
+
+        Switching to WAL and the first schema write can report "database is locked" at
+        once (SQLite does not always call the busy handler there) when two writers open a
+        new store together.
+        """
+        deadline = time.monotonic() + timeout
+        delay = 0.01
+        while True:
+            try:
+                self._init(fresh)
+                return
+            except sqlite3.OperationalError as exc:
+                msg = str(exc).lower()
+                if ("locked" not in msg and "busy" not in msg) or time.monotonic() > deadline:
+                    raise
+                time.sleep(delay)
+                delay = min(delay * 2, 0.5)
+                fresh = not os.path.exists(self.path) or os.path.getsize(self.path) == 0
+
     def _check_header(self) -> None:
         with open(self.path, "rb") as fh:
             head = fh.read(100)

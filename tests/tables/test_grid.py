@@ -136,7 +136,8 @@ def test_dask_matches_local(tmp_path):
     with distributed.LocalCluster(n_workers=1, threads_per_worker=2, processes=False,
                                   dashboard_address=None) as cluster:
         rep = run_grid(spec, b, progress=False, scheduler=cluster.scheduler_address)
-    assert rep.backend == "dask" and rep.inserted == len(spec.points())
+    assert rep.backend == "dask" and not rep.failed, rep.failed
+    assert rep.inserted == len(spec.points())
     with GridStore(a) as sa, GridStore(b) as sb:
         ra = {r["key"]: (r["document"], r["numeric"]) for r in sa.rows()}
         rb = {r["key"]: (r["document"], r["numeric"]) for r in sb.rows()}
