@@ -114,3 +114,21 @@ def test_regular_fiber_by_name_is_the_torus_knot():
         assert abs(a - b) < 1e-15
     with pytest.raises(KnotobsError, match="null-homologous"):
         level_loop("fiber", 3, "SU(2)", (1,), space="L(5,1)", framing="zero")
+
+
+@pytest.mark.parametrize("N,k,lam", [(2, 3, (1,)), (2, 6, (2,)), (3, 2, (2, 1)), (3, 3, (1,))])
+def test_polynomial_and_gluing_agree_exactly(N, k, lam):
+    # the exact cyclotomic numbers of the two routes coincide (CONVENTIONS §3 and §7)
+    from knotobs.evaluation.level_loops import polynomial_at_root_of_unity
+
+    v = level_loop("T(2,5)", k, f"SU({N})", lam, digits=20)
+    exact = v.exact.as_cyclotomic() if hasattr(v.exact, "as_cyclotomic") else v.exact
+    poly = rosso_jones(TorusLink(2, 5), SU(N), lam)
+    assert exact == polynomial_at_root_of_unity(poly, k + N)
+
+
+def test_large_level_in_s3_falls_back_to_the_polynomial_route():
+    v = level_loop("T(2,3)", 100, "SU(3)", (2, 1), digits=15)
+    assert "polynomial" in v.details["route"]
+    ref = rosso_jones(TorusLink(2, 3), SU(3), (2, 1)).at_root_of_unity(103, dps=20)
+    assert abs(v.numeric - ref) < 1e-13
