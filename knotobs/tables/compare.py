@@ -58,6 +58,15 @@ def _pow_text(base: str, e: Fraction) -> str:
     return f"{base}^({e.numerator}/{e.denominator})"
 
 
+
+def _colours_text(rep) -> str:
+    """``[2,1]`` for one colour on every component, ``[1]; [2]`` for one per component."""
+    reps = [list(r) for r in rep]
+    if len(reps) == 1 or all(r == reps[0] for r in reps):
+        return str(reps[0]).replace(" ", "")
+    return "; ".join(str(r).replace(" ", "") for r in reps)
+
+
 @dataclass(frozen=True)
 class ConventionMap:
     """A convention map: how a target polynomial is obtained from knotobs' standard value.
@@ -178,7 +187,7 @@ class Comparison:
         }
 
     def describe(self) -> str:
-        lines = [f"{self.invariant} of {self.knot}, {self.group}, colour {self.representation}"
+        lines = [f"{self.invariant} of {self.knot}, {self.group}, colour {_colours_text(self.representation)}"
                  + (f"  [{self.source}]" if self.source else ""),
                  f"  target:   {self.target}",
                  f"  computed: {self.computed}"]

@@ -21,6 +21,7 @@ from knotobs.errors import KnotobsError, SizeLimitError
 from knotobs.fibrations.torus import TorusLink
 from knotobs.representations.groups import parse_group
 from knotobs.representations.partitions import partitions_of
+from knotobs.tables.compare import _colours_text
 from knotobs.tables.compare import INVARIANTS, Comparison, ConventionMap, compare, _target_mpoly
 from knotobs.tables.sparse import MPoly
 
@@ -74,7 +75,7 @@ class Identification:
             return head + "\n  no torus knot or link found"
         lines = [head]
         for c in self.candidates:
-            lines.append(f"  {c.knot}  colour {c.representation}  [{c.chirality}]  {c.map.describe()}")
+            lines.append(f"  {c.knot}  colour {_colours_text(c.representation)}  [{c.chirality}]  {c.map.describe()}")
         return "\n".join(lines)
 
 
