@@ -32,3 +32,11 @@ def test_json_output_matches_schema(args, schema):
     r = runner.invoke(app, args)
     assert r.exit_code == 0, r.output
     validate(json.loads(r.output), schema)
+
+
+def test_flat_su3_on_a_lens_space_matches_schema():
+    r = runner.invoke(app, ["flat", "L(5,2)", "--group", "SU(3)", "--json"])
+    assert r.exit_code == 0, r.output
+    d = json.loads(r.output)
+    validate(d, "flat-connections")
+    assert len(d["connections"]) == 5   # multisets of Z/5 of size 3 with sum 0 mod 5

@@ -16,13 +16,32 @@ from knotobs.errors import ParseError
 def flat(
     space: str = typer.Argument(..., help="Seifert rational homology sphere, e.g. Sigma(2,3,7), L(5,1), M(0; -1; (2,1), (3,1), (5,1))."),
     order: int = typer.Option(6, "--order", help="Highest power of (q - 1) in the Ohtsuki series."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(2), or SU(N) on lens spaces."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
-    """Flat SU(2) connections: CS invariants mod 1, one-loop data, Casson invariant, Ohtsuki series."""
-    from knotobs.continuation.flat import flat_connections
+    """Flat connections: CS invariants mod 1, one-loop data, Casson invariant, Ohtsuki series."""
+    from knotobs.representations.groups import parse_group
 
-    t = flat_connections(space, ohtsuki_order=order)
-    emit(t.to_json(), t.text(), as_json)
+    g = parse_group(group)
+    if g.kind != "SU":
+        raise ParseError(f"flat connections are computed for SU(N); got {g}")
+    if g.N == 2:
+        from knotobs.continuation.flat import flat_connections
+
+        t = flat_connections(space, ohtsuki_order=order)
+        emit(t.to_json(), t.text(), as_json)
+        return
+    from knotobs.continuation.flat_sun import lens_flat_connections
+
+    conns = lens_flat_connections(space, g.N)
+    payload = {"space": space, "group": str(g), "connections": [c.to_json() for c in conns],
+               "casson": None, "ohtsuki": [],
+               "notes": ["SU(N), N > 2: lens spaces only; cs = (q*/2p) sum x_i^2 mod 1 (module docstring)"]}
+    lines = [f"flat {g} connections on {space}   ({len(conns)} classes)",
+             f"{'kind':10s} {'cs mod 1':>10s} {'K^p':>6s}  holonomy exponents (mod p)"]
+    for c in conns:
+        lines.append(f"{c.kind:10s} {str(c.cs):>10s} {str(c.K_power):>6s}  {list(c.holonomy)}")
+    emit(payload, "\n".join(lines), as_json)
 
 
 @app.command("continue")
