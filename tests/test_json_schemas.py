@@ -39,4 +39,4 @@ def test_flat_su3_on_a_lens_space_matches_schema():
     assert r.exit_code == 0, r.output
     d = json.loads(r.output)
     validate(d, "flat-connections")
-    assert len(d["connections"]) == 5   # multisets of Z/5 of size 3 with sum 0 mod 5
+    assert len(d["connections"]) == 7   # multisets of Z/5 of size 3 with sum 0 mod 5: C(7,3)/5
