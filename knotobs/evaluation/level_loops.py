@@ -131,7 +131,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         mode = "zero" if null_homologous else "fiber"
     elif framing in ("zero", "fiber"):
         mode = framing
-    elif isinstance(framing, int) or (isinstance(framing, str) and framing.lstrip("-").isdigit()):
+    elif _is_integer_framing(framing):
         mode = "zero"
     else:
         raise KnotobsError(f"unknown framing {framing!r}: use zero, fiber or an integer")
@@ -153,7 +153,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     details = dict(v.details)
     exact, numeric, framing_text = v.exact, v.numeric, v.framing
     extra = 0
-    if isinstance(framing, int) or (isinstance(framing, str) and framing.lstrip("-").isdigit()):
+    if _is_integer_framing(framing):
         f = int(framing)
         K = level + g.N
         phase = sum(f * casimir(g, lam) for lam in cols) / K
@@ -178,10 +178,14 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
                             orientation=v.orientation, normalisation=v.normalisation, details=details)
 
 
+def _is_integer_framing(framing) -> bool:
+    """An explicit integer framing (``3``, ``"-2"``), as opposed to ``None``/``"zero"``/``"fiber"``."""
+    return (isinstance(framing, int) and not isinstance(framing, bool)) or (
+        isinstance(framing, str) and framing.lstrip("-").isdigit())
+
+
 def _framing_int(framing) -> int:
-    if isinstance(framing, int) or (isinstance(framing, str) and framing.lstrip("-").isdigit()):
-        return int(framing)
-    return 0
+    return int(framing) if _is_integer_framing(framing) else 0
 
 
 def polynomial_at_root_of_unity(poly: Laurent, K: int) -> Cyclotomic:
