@@ -21,7 +21,7 @@ References
 ----------
 R. Lawrence, L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314;
 M. Mariño, Commun. Math. Phys. 253 (2005) 25–49;
-C. Beasley, Adv. Theor. Math. Phys. 13 (2009) (Wilson loops and localization);
+C. Beasley, Adv. Theor. Math. Phys. 17 (2013) 1–240 (Wilson loops and localization);
 CONVENTIONS §4.
 """
 
