@@ -72,7 +72,7 @@ def loop(
 @handle_errors
 def poly(
     knot: str = typer.Argument(..., help="Torus knot or link, e.g. T(2,3)."),
-    family: str = typer.Option("jones", "--family", help="jones, colored-jones, homfly or alexander."),
+    family: str = typer.Option("jones", "--family", help="jones, colored-jones, homfly, alexander or superpolynomial."),
     color: Optional[int] = typer.Option(None, "--color", help="Colour n of the coloured Jones polynomial (dimension)."),
     rep: Optional[str] = typer.Option(None, "--rep", help="Partition colouring the HOMFLY-PT polynomial, e.g. [2,1]."),
     t_is: str = typer.Option("q^-1", "--t", help="Variable map for Jones: t = q^-1 (standard) or t = q."),
@@ -99,6 +99,16 @@ def poly(
             res = homfly(knot, reps, mirror=mirror, normalized=norm, form=form)
     elif fam == "alexander":
         res = alexander(knot, mirror=mirror)
+    elif fam == "superpolynomial":
+        for flag, given in (("--color", color is not None), ("--N", rank is not None), ("--form", form is not None),
+                            ("--unnormalized", unnormalized), ("--t", t_is != "q^-1")):
+            if given:
+                raise ParseError(f"{flag} does not apply to --family superpolynomial (reduced, in (a, q, t))")
+        from knotobs.refined import superpolynomial
+
+        res = superpolynomial(knot, _reps(rep) if rep else (1,), mirror=mirror)
     else:
-        raise ParseError(f"unknown family {family!r}: choose jones, colored-jones, homfly or alexander")
+        raise ParseError(
+            f"unknown family {family!r}: choose jones, colored-jones, homfly, alexander or superpolynomial"
+        )
     emit(res.to_json(), render_polynomial(res), as_json)

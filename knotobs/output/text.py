@@ -12,6 +12,7 @@ _TITLES = {
     "colored-jones": "coloured Jones polynomial J_n(t)",
     "homfly": "HOMFLY-PT polynomial P(a, z)",
     "alexander": "Alexander polynomial Delta(t)",
+    "superpolynomial": "reduced superpolynomial P(a, q, t)",
 }
 
 
