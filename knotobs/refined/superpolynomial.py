@@ -2,11 +2,12 @@
 
 The refined (t-deformed) Chern–Simons invariant of a torus knot replaces the Schur
 functions of the Rosso–Jones formula by Macdonald polynomials (M. Aganagic & S. Shakirov,
-arXiv:1105.5117 and arXiv:1202.2489; I. Cherednik, arXiv:1111.6195).  For the knots
-``T(n, nk + 1)`` (and their mirrors) knotobs evaluates it through the elliptic-Hall /
+arXiv:1105.5117 and arXiv:1202.2489; I. Cherednik, arXiv:1111.6195).  knotobs evaluates it through the elliptic-Hall /
 Hilbert-scheme description of E. Gorsky & A. Negut (J. Math. Pures Appl. 104 (2015) 403–435,
-arXiv:1304.3328): the refined invariant is the generating function of the hook pairings
-``<nabla^k e_n, s_(n-d, 1^d)>`` (:mod:`knotobs.refined.nabla`), the ``a``-grading being ``d``.
+arXiv:1304.3328): the refined invariant of ``T(m, n)`` is the generating function of the hook
+pairings ``<Q_{m,n}(-1)^n, s_(n-d, 1^d)>``, the ``a``-grading being ``d``.  Two routes:
+the closed sum for ``Q_{nk+1,n}(-1)^n = nabla^k e_n`` (:mod:`knotobs.refined.nabla`, knots
+``T(n, nk+1)``) and the operator recursion of :mod:`knotobs.refined.hall` (every torus knot).
 
 Variables and normalisation (CONVENTIONS §17, docs/refined.md): the grading of
 N. Dunfield, S. Gukov & J. Rasmussen (Experiment. Math. 15 (2006) 129–159), in which the
@@ -22,7 +23,7 @@ coefficients are non-negative integers and
 The map from the Macdonald variables is ``q_M = q^-2 t^-2``, ``t_M = q^2``,
 ``z = a^-2 t^-1`` (``F_{n,k}`` is symmetric in ``q_M, t_M``), followed by the monomial
 that puts the term of lowest ``a``- and then lowest ``q``-degree at ``a^(2g) q^(-2g) t^0``,
-``2g = (n - 1) n k`` the Seifert genus (DGR's normalisation of positive torus knots).
+``2g = (m - 1)(n - 1)`` twice the Seifert genus (DGR's normalisation of positive torus knots).
 The mirror image has ``P(a^-1, q^-1, t^-1)`` (duality of the homology).
 
 >>> superpolynomial("T(2,3)").exact_string()
@@ -31,15 +32,24 @@ The mirror image has ``P(a^-1, q^-1, t^-1)`` (duality of the homology).
 
 from __future__ import annotations
 
-from knotobs.errors import InvalidKnotError, InvalidRepresentationError
+from math import gcd
+
+from knotobs.errors import InvalidKnotError, InvalidRepresentationError, KnotobsError
 from knotobs.evaluation.profiles import Profile
 from knotobs.fibrations.torus import parse_knot
 from knotobs.polynomials.multivariate import LaurentM
+from knotobs.refined.hall import hall_hook_pairings
 from knotobs.refined.nabla import hook_pairings
 from knotobs.refined.result import SuperpolynomialResult
 from knotobs.representations.partitions import as_partition
 
-__all__ = ["superpolynomial", "torus_family"]
+__all__ = ["superpolynomial", "torus_family", "ROUTES", "SuperpolynomialMismatchError"]
+
+ROUTES = ("auto", "nabla", "elliptic-hall", "both")
+
+
+class SuperpolynomialMismatchError(KnotobsError, ArithmeticError):
+    """The two routes disagreed (a bug; please report it with the knot)."""
 
 _VARS = ("a", "q", "t")
 
@@ -49,23 +59,19 @@ VARIABLE_MAP = (
 )
 
 
-def torus_family(P: int, Q: int) -> tuple[int, int]:
-    """``(n, k)`` with ``{P, Q} = {n, n k + 1}``, or an error naming the supported knots.
+def torus_family(P: int, Q: int) -> tuple[int, int] | None:
+    """``(n, k)`` with ``{P, Q} = {n, n k + 1}`` (the family of the nabla route), else ``None``.
 
-    >>> torus_family(3, 4), torus_family(7, 2)
-    ((3, 1), (2, 3))
+    >>> torus_family(3, 4), torus_family(7, 2), torus_family(3, 5)
+    ((3, 1), (2, 3), None)
     """
     for n, m in ((P, Q), (Q, P)):
         if n >= 2 and m % n == 1:
             return n, (m - 1) // n
-    raise InvalidKnotError(
-        f"the superpolynomial is implemented for torus knots T(n, nk+1) (e.g. T(2,2k+1), T(n,n+1), "
-        f"T(3,7)); T({P},{Q}) is not of that form"
-    )
+    return None
 
 
-def _dgr(n: int, k: int) -> LaurentM:
-    F = hook_pairings(n, k)
+def _to_dgr(F: dict, two_g: int) -> LaurentM:
     raw: dict[tuple, int] = {}
     for (i, j, d), c in F.items():
         # q_M -> q^-2 t^-2, t_M -> q^2, z -> a^-2 t^-1
@@ -74,12 +80,34 @@ def _dgr(n: int, k: int) -> LaurentM:
     a_low = min(e[0] for e in raw)
     q_low = min(e[1] for e in raw if e[0] == a_low)
     t_low = min(e[2] for e in raw if e[0] == a_low and e[1] == q_low)
-    two_g = (n - 1) * n * k
     return LaurentM(_VARS, raw).shift((two_g - a_low, -two_g - q_low, -t_low))
 
 
-def superpolynomial(knot, rep=(1,), *, mirror: bool = False) -> SuperpolynomialResult:
-    """The reduced superpolynomial ``P(a, q, t)`` of a torus knot ``T(n, nk+1)`` or its mirror.
+def _route_values(P: int, Q: int, route: str) -> tuple[LaurentM, str]:
+    two_g = (P - 1) * (Q - 1)
+    fam = torus_family(P, Q)
+    if route == "auto":
+        route = "nabla" if fam else "elliptic-hall"
+    if route in ("nabla", "both") and fam is None:
+        raise InvalidKnotError(
+            f"the nabla route covers torus knots T(n, nk+1) only; T({P},{Q}) is not of that form "
+            "(use route 'elliptic-hall' or 'auto')"
+        )
+    values = {}
+    if route in ("nabla", "both"):
+        values["nabla"] = _to_dgr(hook_pairings(*fam), two_g)
+    if route in ("elliptic-hall", "both"):
+        n, m = min(P, Q), max(P, Q)
+        values["elliptic-hall"] = _to_dgr(hall_hook_pairings(m, n), two_g)
+    if route == "both":
+        if values["nabla"] != values["elliptic-hall"]:
+            raise SuperpolynomialMismatchError(f"nabla and elliptic-Hall routes disagree for T({P},{Q})")
+        return values["nabla"], "both (nabla and elliptic-Hall agree)"
+    return values[route], route
+
+
+def superpolynomial(knot, rep=(1,), *, mirror: bool = False, route: str = "auto") -> SuperpolynomialResult:
+    """The reduced superpolynomial ``P(a, q, t)`` of a torus knot.
 
     Parameters
     ----------
@@ -89,6 +117,10 @@ def superpolynomial(knot, rep=(1,), *, mirror: bool = False) -> SuperpolynomialR
         The colour; only the fundamental ``[1]`` is implemented.
     mirror : bool
         Take the mirror image of the knot.
+    route : {"auto", "nabla", "elliptic-hall", "both"}
+        ``nabla``: the closed sum over partitions (knots ``T(n, nk+1)``); ``elliptic-hall``:
+        the operators ``Q_{m,n}`` (every torus knot); ``both`` computes the two and checks that
+        they agree; ``auto`` takes ``nabla`` where it applies.
 
     Returns
     -------
@@ -108,6 +140,8 @@ def superpolynomial(knot, rep=(1,), *, mirror: bool = False) -> SuperpolynomialR
     E. Gorsky, A. Negut, J. Math. Pures Appl. 104 (2015); N. Dunfield, S. Gukov, J. Rasmussen,
     Experiment. Math. 15 (2006); M. Aganagic, S. Shakirov, arXiv:1105.5117.
     """
+    if route not in ROUTES:
+        raise InvalidKnotError(f"unknown route {route!r}: choose one of {', '.join(ROUTES)}")
     k_obj = parse_knot(knot)
     lam = as_partition(rep)
     if lam != (1,):
@@ -120,11 +154,9 @@ def superpolynomial(knot, rep=(1,), *, mirror: bool = False) -> SuperpolynomialR
         )
     mirrored = (k_obj.chirality < 0) != bool(mirror)
     if k_obj.is_unknot:
-        value = LaurentM(_VARS, {(0, 0, 0): 1})
-        n = k = 0
+        value, used = LaurentM(_VARS, {(0, 0, 0): 1}), "unknot"
     else:
-        n, k = torus_family(k_obj.P, k_obj.Q)
-        value = _dgr(n, k)
+        value, used = _route_values(k_obj.P, k_obj.Q, route)
         if mirrored:
             value = value.substitute_monomials({v: {v: -1} for v in _VARS})
     chir = "as given" if not mirror else "mirror image of the input"
@@ -136,10 +168,11 @@ def superpolynomial(knot, rep=(1,), *, mirror: bool = False) -> SuperpolynomialR
         normalisation="reduced (unknot = 1); lowest term a^(2g) q^(-2g) t^0 for positive torus knots",
         chirality=chir,
         skein="",
-        notes=(f"from the hook pairings of nabla^{k} e_{n} (modified Macdonald basis)",) if n else (),
+        notes=("hook pairings of a symmetric function in the modified Macdonald basis "
+               "(nabla^k e_n, or Q_{m,n}(-1)^n of the elliptic Hall algebra)",),
     )
     return SuperpolynomialResult(
         quantity="superpolynomial", knot=str(k_obj), group="refined U(N), generic N",
         colours=((1,),), value=value, profile=profile,
-        route="macdonald-nabla", inputs={"knot": str(knot), "rep": [1], "mirror": bool(mirror)},
+        route=used, inputs={"knot": str(knot), "rep": [1], "mirror": bool(mirror), "route": route},
     )

@@ -36,7 +36,7 @@ def test_options_that_do_not_apply_are_refused(extra):
     assert "does not apply" in r.output
 
 
-def test_unsupported_knot_is_one_error_line():
-    r = runner.invoke(app, ["poly", "T(3,5)", "--family", "superpolynomial"])
+def test_a_link_is_one_error_line():
+    r = runner.invoke(app, ["poly", "T(4,6)", "--family", "superpolynomial"])
     assert r.exit_code == 2
-    assert r.output.startswith("error:") and "T(3,5)" in r.output
+    assert r.output.startswith("error:") and "T(4,6)" in r.output

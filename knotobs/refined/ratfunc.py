@@ -1,0 +1,97 @@
+"""Exact rational functions of ``q`` and ``t`` (integer coefficients), kept in lowest terms.
+
+A small field type over python-flint's multivariate integer polynomials: numerator and
+denominator are coprime (``fmpz_mpoly.gcd``) and the denominator has a positive leading
+coefficient, so equal functions have equal representations.
+
+>>> from knotobs.refined.ratfunc import QT
+>>> q, t = QT.gens()
+>>> ((q * q - t * t) / (q - t)).is_polynomial()
+True
+>>> str((q - t) / (t - q))
+'-1'
+"""
+
+from __future__ import annotations
+
+__all__ = ["QT", "RatQT"]
+
+
+class _Field:
+    """The field ``Q(q, t)``: its polynomial context and constructors."""
+
+    def __init__(self):
+        import flint
+
+        self.ctx = flint.fmpz_mpoly_ctx.get(("q", "t"), "lex")
+        self._one = self.ctx.from_dict({(0, 0): 1})
+
+    def poly_gens(self):
+        """``q`` and ``t`` as polynomials (``fmpz_mpoly``)."""
+        return self.ctx.gens()
+
+    def gens(self):
+        """``q`` and ``t`` as rational functions."""
+        q, t = self.ctx.gens()
+        return RatQT(q), RatQT(t)
+
+    def one_poly(self):
+        return self._one
+
+    def from_int(self, c: int) -> "RatQT":
+        return RatQT(self._one * int(c))
+
+
+class RatQT:
+    """A rational function ``n/d`` of ``q`` and ``t`` in lowest terms."""
+
+    __slots__ = ("n", "d")
+
+    def __init__(self, num, den=None):
+        if den is None:
+            den = QT.one_poly()
+        if den.is_zero():
+            raise ZeroDivisionError("rational function with zero denominator")
+        g = num.gcd(den)
+        if not g.is_one():
+            num, den = num / g, den / g
+        if den.leading_coefficient() < 0:
+            num, den = -num, -den
+        self.n, self.d = num, den
+
+    def __add__(self, o: "RatQT") -> "RatQT":
+        return RatQT(self.n * o.d + o.n * self.d, self.d * o.d)
+
+    def __sub__(self, o: "RatQT") -> "RatQT":
+        return RatQT(self.n * o.d - o.n * self.d, self.d * o.d)
+
+    def __mul__(self, o: "RatQT") -> "RatQT":
+        return RatQT(self.n * o.n, self.d * o.d)
+
+    def __truediv__(self, o: "RatQT") -> "RatQT":
+        return RatQT(self.n * o.d, self.d * o.n)
+
+    def __neg__(self) -> "RatQT":
+        return RatQT(-self.n, self.d)
+
+    def is_zero(self) -> bool:
+        return self.n.is_zero()
+
+    def is_polynomial(self) -> bool:
+        """Whether the denominator is 1."""
+        return self.d.is_one()
+
+    def __eq__(self, o) -> bool:
+        return isinstance(o, RatQT) and self.n == o.n and self.d == o.d
+
+    def __hash__(self) -> int:
+        return hash((str(self.n), str(self.d)))
+
+    def __str__(self) -> str:
+        return str(self.n) if self.d.is_one() else f"({self.n})/({self.d})"
+
+    __repr__ = __str__
+
+
+#: The field Q(q, t).
+QT = _Field()
