@@ -12,6 +12,7 @@ from knotobs.evaluation.families import alexander, colored_jones, homfly, homfly
 from knotobs.evaluation.level_loops import level_loop
 from knotobs.output.finite_text import finite_json, finite_text
 from knotobs.output.text import render_polynomial
+from knotobs.representations.cartan.group import is_simple_group_name
 from knotobs.representations.partitions import parse_partition
 
 
@@ -38,8 +39,8 @@ def _framing(text: Optional[str]):
 @handle_errors
 def loop(
     knot: Optional[str] = typer.Argument(None, help="Torus knot or link, e.g. T(2,3) or T(4,6)."),
-    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N)."),
-    rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1]; links: [1];[2] per component."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N), U(N), SO(N), Spin(N), Sp(2n) or G2."),
+    rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1], or Dynkin labels (1,0) (SO/Sp/G2); links: [1];[2] per component."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
     normalized: bool = typer.Option(False, "--normalized", help="Divide by the unknot (default: unknot = dim_q)."),
     route: str = typer.Option("rosso-jones", "--route", help="rosso-jones, weight-sum or both (checks agreement)."),
@@ -56,7 +57,8 @@ def loop(
             raise ParseError("give a knot, e.g. knotobs loop 'T(2,3)' (or --level k --in SPACE --fiber i)")
         if in_ != "S^3" or fiber is not None:
             raise ParseError("--in and --fiber need --level k (polynomials in q are computed in S^3)")
-        res = wilson_loop(knot, group, _reps(rep), _framing(framing), normalized, route)
+        reps = rep if is_simple_group_name(group) else _reps(rep)   # SO/Sp/G2 read (1,0) and [1] themselves
+        res = wilson_loop(knot, group, reps, _framing(framing), normalized, route)
         emit(res.to_json(), render_polynomial(res), as_json)
         return
     fr = _framing(framing) if framing is not None else None

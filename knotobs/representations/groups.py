@@ -155,7 +155,8 @@ def parse_group(spec) -> Group:
         return Group("SU", r + 1)
     m = _GROUP_RE.match(str(spec))
     if not m or m.group(1).upper() == "SL":
-        raise ParseError(f"cannot read group {spec!r}: write SU(N) or U(N), e.g. SU(3)")
+        why = "unbalanced brackets" if str(spec).count("(") != str(spec).count(")") else "unknown form"
+        raise ParseError(f"cannot read group {spec!r} ({why}): write SU(N), U(N), SO(N), Spin(N), Sp(2n) or G2, e.g. SU(3)")
     return Group(m.group(1).upper(), int(m.group(2)))
 
 
