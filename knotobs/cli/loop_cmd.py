@@ -9,6 +9,7 @@ import typer
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
 from knotobs.evaluation.families import alexander, colored_jones, homfly, homfly_at, jones, wilson_loop
+from knotobs.evaluation.kauffman import dubrovnik, kauffman
 from knotobs.evaluation.level_loops import level_loop
 from knotobs.output.finite_text import finite_json, finite_text
 from knotobs.output.text import render_polynomial
@@ -74,7 +75,7 @@ def loop(
 @handle_errors
 def poly(
     knot: str = typer.Argument(..., help="Torus knot or link, e.g. T(2,3)."),
-    family: str = typer.Option("jones", "--family", help="jones, colored-jones, homfly or alexander."),
+    family: str = typer.Option("jones", "--family", help="jones, colored-jones, homfly, alexander, kauffman or dubrovnik (SO(N) form)."),
     color: Optional[int] = typer.Option(None, "--color", help="Colour n of the coloured Jones polynomial (dimension)."),
     rep: Optional[str] = typer.Option(None, "--rep", help="Partition colouring the HOMFLY-PT polynomial, e.g. [2,1]."),
     t_is: str = typer.Option("q^-1", "--t", help="Variable map for Jones: t = q^-1 (standard) or t = q."),
@@ -101,6 +102,12 @@ def poly(
             res = homfly(knot, reps, mirror=mirror, normalized=norm, form=form)
     elif fam == "alexander":
         res = alexander(knot, mirror=mirror)
+    elif fam in ("kauffman", "dubrovnik"):
+        unused = [o for o, v in (("--color", color), ("--N", rank), ("--form", form)) if v is not None]
+        if unused or unnormalized:
+            raise ParseError(f"--family {fam} takes no {', '.join(unused) or '--unnormalized'}: the polynomial is"
+                             " two-variable and normalised (unknot = 1); SO(N) values: knotobs loop --group 'SO(N)'")
+        res = (kauffman if fam == "kauffman" else dubrovnik)(knot, mirror=mirror, **({"rep": _reps(rep)} if rep and fam == "kauffman" else {}))
     else:
-        raise ParseError(f"unknown family {family!r}: choose jones, colored-jones, homfly or alexander")
+        raise ParseError(f"unknown family {family!r}: choose jones, colored-jones, homfly, alexander, kauffman or dubrovnik")
     emit(res.to_json(), render_polynomial(res), as_json)

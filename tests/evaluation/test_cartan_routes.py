@@ -13,9 +13,6 @@
 
 from __future__ import annotations
 
-import subprocess
-import sys
-
 import pytest
 from hypothesis import given, settings, strategies as st
 
@@ -104,18 +101,21 @@ def test_wilson_loop_entry_point_and_route_both():
 
 
 def _cli(*args):
-    return subprocess.run([sys.executable, "-c", "from knotobs.cli import main; main()", *args],
-                          capture_output=True, text=True)
+    from typer.testing import CliRunner
+
+    from knotobs.cli import app
+
+    return CliRunner().invoke(app, list(args))
 
 
 def test_cli_loop_new_groups():
-    out = _cli("loop", "T(2,3)", "--group", "SO(5)", "--rep", "[1]", "--route", "both", "--json")
-    assert out.returncode == 0, out.stderr
     import json
 
+    out = _cli("loop", "T(2,3)", "--group", "SO(5)", "--rep", "[1]", "--route", "both", "--json")
+    assert out.exit_code == 0, out.output
     data = json.loads(out.stdout)
     assert data["group"] == "SO(5)" and data["inputs"]["rep"] == ["(1,0)"]
     for args, needle in [(("--group", "SU(2"), "'SU(2'"), (("--group", "SO(2)"), "SO(2)"),
                          (("--group", "Sp(5)"), "Sp(5)"), (("--group", "G2", "--rep", "[1]"), "partition")]:
         out = _cli("loop", "T(2,3)", *args)
-        assert out.returncode == 2 and needle in out.stderr and "Traceback" not in out.stderr
+        assert out.exit_code == 2 and needle in out.output and "Traceback" not in out.output
