@@ -45,7 +45,7 @@ def loop(
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
     normalized: bool = typer.Option(False, "--normalized", help="Divide by the unknot (default: unknot = dim_q)."),
     route: str = typer.Option("rosso-jones", "--route", help="rosso-jones, weight-sum or both (checks agreement)."),
-    level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N) only): exact cyclotomic + numeric."),
+    level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N); SO(3) at odd k): exact cyclotomic + numeric."),
     in_: str = typer.Option("S^3", "--in", help="With --level: S^3, L(p,q), Sigma(a,b,c) or M(0; b; ...)."),
     fiber: Optional[int] = typer.Option(None, "--fiber", help="With --level and no KNOT: colour the core fiber with this index (from 0)."),
     digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
@@ -63,7 +63,7 @@ def loop(
         emit(res.to_json(), render_polynomial(res), as_json)
         return
     fr = _framing(framing) if framing is not None else None
-    val = level_loop(knot, level, group, _reps(rep), in_, fiber, fr, not raw, digits)
+    val = level_loop(knot, level, group, rep if is_simple_group_name(group) else _reps(rep), in_, fiber, fr, not raw, digits)
     what = knot if knot is not None else f"core fiber {fiber} of {in_}"
     inputs = {"knot": knot, "space": in_, "fiber": fiber, "group": group, "rep": rep, "level": level,
               "framing": framing, "digits": digits, "raw": raw}

@@ -28,3 +28,14 @@ __all__ = [
     "parse_rep_text", "quantum_dimension", "quantum_dimension_weyl", "samples", "simple_group", "tensor",
     "weights", "weyl_dimension",
 ]
+
+
+def orthogonal_cache_clear() -> None:
+    """Clear the caches of the engine and of the generic orthogonal data (for benchmarks)."""
+    from knotobs.representations import orthogonal_generic as og
+    from knotobs.representations.cartan import characters as ch
+
+    for f in (og.universal_adams, og.universal_tensor, og.quantum_dimension_factors,
+              ch._dominant_cached, ch._weights_cached):
+        f.cache_clear()
+    ch._SYSTEMS.clear()
