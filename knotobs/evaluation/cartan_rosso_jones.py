@@ -7,7 +7,8 @@ with the data of any simple group (``docs/groups.md``, §14):
 
 ``theta(mu) = q^C(mu)``, ``C(mu) = (mu, mu + 2 rho)/2`` with long roots of length^2 = 2 and
 ``psi^m(lam) = sum_mu c_{lam,mu}^(m) V(mu)`` the Adams operation, computed by Brauer–Klimyk on the
-weights of ``lam`` (:func:`knotobs.representations.cartan.adams`).  A torus link ``T(dP, dQ)`` first
+weights of ``lam`` (:func:`knotobs.representations.cartan.adams`); ``dim_q(mu)`` by Weyl's product
+over the positive roots (no weights of ``mu`` are needed).  A torus link ``T(dP, dQ)`` first
 decomposes ``lam_1 x ... x lam_d`` and applies the sum to each summand; the torus framing ``P Q`` of
 each component is removed by ``theta(lam_i)^(-P Q)``.  The mirror image is ``q -> q^-1``.
 
@@ -27,7 +28,7 @@ from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.fibrations.torus import TorusLink
 from knotobs.guard import require, seconds_for
 from knotobs.polynomials.laurent import Laurent
-from knotobs.representations.cartan.characters import adams, casimir, quantum_dimension, tensor, weyl_dimension
+from knotobs.representations.cartan.characters import adams, casimir, quantum_dimension_weyl, tensor, weyl_dimension
 from knotobs.representations.cartan.group import SimpleGroup
 
 __all__ = ["rosso_jones_cartan"]
@@ -85,7 +86,7 @@ def rosso_jones_cartan(knot: TorusLink, group: SimpleGroup, rep, framing: Framin
     w = Laurent.zero()
     for mu, c in terms.items():
         if c:
-            w = w + quantum_dimension(R, mu).times_monomial(casimir(R, mu) * ratio, c)
+            w = w + quantum_dimension_weyl(R, mu).times_monomial(casimir(R, mu) * ratio, c)
     shift = -sum((casimir(R, lam) for lam in labels), Fraction(0)) * m * n
     w = w.times_monomial(shift)
     if knot.chirality < 0:

@@ -154,6 +154,12 @@ def parse_group(spec) -> Group:
             raise InvalidGroupError(f"{spec!r} is not a valid Cartan type: rank must be >= 1")
         return Group("SU", r + 1)
     m = _GROUP_RE.match(str(spec))
+    if not m:
+        from knotobs.representations.cartan.group import is_simple_group_name
+
+        if is_simple_group_name(spec):
+            raise ParseError(f"{spec!r} is not SU(N) or U(N): this computation is defined for SU(N)/U(N) only"
+                             " (SO(N), Spin(N), Sp(2n), G2: knotobs loop/poly; SO(3) also with --level)")
     if not m or m.group(1).upper() == "SL":
         why = "unbalanced brackets" if str(spec).count("(") != str(spec).count(")") else "unknown form"
         raise ParseError(f"cannot read group {spec!r} ({why}): write SU(N), U(N), SO(N), Spin(N), Sp(2n) or G2, e.g. SU(3)")

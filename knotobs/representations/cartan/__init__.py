@@ -36,6 +36,6 @@ def orthogonal_cache_clear() -> None:
     from knotobs.representations.cartan import characters as ch
 
     for f in (og.universal_adams, og.universal_tensor, og.quantum_dimension_factors,
-              ch._dominant_cached, ch._weights_cached):
+              ch._dominant_cached, ch._weights_cached, ch._qdim_weyl_cached):
         f.cache_clear()
     ch._SYSTEMS.clear()

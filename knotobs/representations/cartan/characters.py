@@ -231,6 +231,14 @@ def quantum_dimension_weyl(R: RootSystem, lam: Sequence[int], var: str = "q") ->
     >>> quantum_dimension_weyl(type_c.root_system(1), (2,)) == quantum_dimension(type_c.root_system(1), (2,))
     True
     """
+    _register(R)
+    return _qdim_weyl_cached(_key(R, tuple(int(x) for x in lam)), var)
+
+
+@lru_cache(maxsize=8192)
+def _qdim_weyl_cached(key, var: str) -> Laurent:
+    name, roots, lam = key
+    R = _system(name, roots)
     lr = tuple(x + 1 for x in lam)
     num = Laurent.one(var)
     den = Laurent.one(var)
