@@ -30,8 +30,10 @@ Since SU(2)_k is the product of this category with ``{1, j}`` (``j`` of dimensio
 number from memory), and normalised Wilson loops of integer-spin colours are the SU(2) ones; the
 tests check both against the SU(2) surgery route.
 
-Values are numeric, computed with a private mpmath context at two precisions and certified by
-their agreement (an exact cyclotomic value is not produced here).
+Values are exact cyclotomic numbers (``S'`` and ``theta`` in one field ``Q(zeta_L)``, ``sqrt(K)`` from Gauss
+sums) when the estimated cost is small (:data:`EXACT_AUTO_SECONDS`), and always numeric, computed with a
+private mpmath context at two precisions and certified by their agreement; the two are checked
+against each other.
 """
 
 from __future__ import annotations
@@ -100,6 +102,41 @@ class _Data:
         p_plus = ctx.fsum(self.theta[i] * d[i] ** 2 for i in range(n))
         self.phase = p_plus / D            # exp(2 pi i c'/8)
         self.index = {a: i for i, a in enumerate(self.colours)}
+        self.one = ctx.mpc(1)
+        self.fsum = ctx.fsum
+
+
+class _ExactData:
+    """The same data as exact cyclotomic numbers in one field ``Q(zeta_L)``."""
+
+    def __init__(self, level: int):
+        from knotobs.polynomials.cyclotomic import CyclotomicField, root_of_unity, sqrt_rational
+
+        K = level + 2
+        self.K = K
+        self.colours = list(range(1, K - 1, 2))
+        n = len(self.colours)
+        rK = sqrt_rational(Fraction(1, K))
+        L = 1
+        for x in (rK.conductor, 4, 2 * K, 4 * K):
+            L = L * x // __import__("math").gcd(L, x)
+        F = CyclotomicField(L)
+        self.field = F
+        z = lambda x: root_of_unity(Fraction(x)).to_field(L)           # noqa: E731
+        rK = rK.to_field(L)
+        minus_i = z(Fraction(-1, 4))
+        self.S = [[rK * minus_i * (z(Fraction(a * b, 2 * K)) - z(Fraction(-a * b, 2 * K))) for b in self.colours]
+                  for a in self.colours]
+        self.theta = [z(Fraction(a * a - 1, 4 * K)) for a in self.colours]
+        s00 = self.S[0][0]
+        p_plus = F.zero
+        for i in range(n):
+            d = self.S[0][i] / s00
+            p_plus = p_plus + self.theta[i] * d * d
+        self.phase = p_plus * s00
+        self.index = {a: i for i, a in enumerate(self.colours)}
+        self.one = F.one
+        self.fsum = lambda xs: sum(xs, F.zero)
 
 
 def _plumbing(space):
@@ -112,9 +149,9 @@ def _plumbing(space):
 
 
 def _sum(data: _Data, pres, sigma: int, regular: Sequence[int], exceptional: Mapping[int, int]):
-    ctx = data.ctx
     S, th, n = data.S, data.theta, len(data.colours)
-    center = [ctx.mpc(1)] * n
+    fsum = data.fsum
+    center = [data.one] * n
     degree = 0
     for j, chain in enumerate(pres.chains):
         mu = exceptional.get(j)
@@ -130,13 +167,13 @@ def _sum(data: _Data, pres, sigma: int, regular: Sequence[int], exceptional: Map
             m = data.index[mu]
             u = [u[l] * S[l][m] / S[0][l] for l in range(n)]
         for c in reversed(chain[:-1]):
-            u = [th[l] ** c * ctx.fsum(S[l][v] * u[v] for v in range(n)) for l in range(n)]
-        w = [ctx.fsum(S[l][v] * u[v] for v in range(n)) for l in range(n)]
+            u = [th[l] ** c * fsum(S[l][v] * u[v] for v in range(n)) for l in range(n)]
+        w = [fsum(S[l][v] * u[v] for v in range(n)) for l in range(n)]
         center = [center[l] * w[l] for l in range(n)]
     for mu in regular:
         m = data.index[mu]
         center = [center[l] * S[l][m] / S[0][l] for l in range(n)]
-    total = ctx.fsum(S[0][l] ** (2 - degree) * th[l] ** pres.e0 * center[l] for l in range(n))
+    total = fsum(S[0][l] ** (2 - degree) * th[l] ** pres.e0 * center[l] for l in range(n))
     return data.phase ** (-sigma) * total
 
 
@@ -162,7 +199,38 @@ def _estimate(level: int, pres, what: str) -> None:
             seconds=seconds_for(2 * V * n * n * 2, "ball"), accepted="use a smaller level")
 
 
-def so3_partition_function(space, level: int, digits: int = 30) -> FiniteLevelValue:
+#: Estimated seconds above which the exact cyclotomic value is skipped in the automatic mode.
+EXACT_AUTO_SECONDS = 5.0
+
+
+def _exact_seconds(level: int, pres) -> float:
+    K = level + 2
+    n = (level + 1) // 2
+    V = 1 + sum(len(c) for c in pres.chains)
+    L = 8 * K                                   # an upper bound for the conductor used
+    return V * n * n * L * L / 3e8
+
+
+def _want_exact(level: int, pres, exact: Optional[bool]) -> bool:
+    if exact is False:
+        return False
+    sec = _exact_seconds(level, pres)
+    if exact is None:
+        return sec <= EXACT_AUTO_SECONDS
+    require(f"exact SO(3) value at level {level}", seconds=sec, accepted="ask for the numeric value only (exact=False)")
+    return True
+
+
+def _agree(exact, numeric, digits: int) -> None:
+    """The exact value and the certified numeric value of the same sum must agree (a consistency check)."""
+    ctx = local_mp(digits + 10)
+    e = exact.to_mpc(digits + 5)
+    d = abs(ctx.make_mpc((e.real._mpf_, e.imag._mpf_)) - ctx.make_mpc((numeric.real._mpf_, numeric.imag._mpf_)))
+    if d > ctx.mpf(10) ** (2 - digits) * max(1, abs(ctx.make_mpc((numeric.real._mpf_, numeric.imag._mpf_)))):
+        raise PrecisionError(f"exact and numeric SO(3) values differ by {ctx.nstr(d, 3)}")  # pragma: no cover
+
+
+def so3_partition_function(space, level: int, digits: int = 30, exact: Optional[bool] = None) -> FiniteLevelValue:
     """``Z(M)`` of the SO(3) theory (integer-spin part of SU(2)_k, ``k`` odd) on ``M(0; b; (a_i, b_i))``.
 
     Examples
@@ -179,11 +247,16 @@ def so3_partition_function(space, level: int, digits: int = 30) -> FiniteLevelVa
     b, fibers, pres, sigma = _plumbing(space)
     _estimate(level, pres, f"M(0; {b}; {list(fibers)})")
     val = _certified(lambda ctx: _sum(_Data(level, ctx), pres, sigma, (), {}), digits)
+    ex = None
+    if _want_exact(level, pres, exact):
+        ex = _sum(_ExactData(level), pres, sigma, (), {})
+        _agree(ex, val, digits)
     return FiniteLevelValue(
-        exact=None, numeric=val, digits=digits, framing="canonical 2-framing (Atiyah)",
+        exact=ex, numeric=val, digits=digits, framing="canonical 2-framing (Atiyah)",
         orientation=_orient(b, fibers),
         normalisation="Z(S^3) = S'_11 = sqrt(2) S_11, Z(S^2 x S^1) = 1",
-        details={"route": "SO(3) plumbing sum over odd colours (numeric, certified at two precisions)",
+        details={"route": "SO(3) plumbing sum over odd colours (exact cyclotomic and numeric, certified at two precisions)"
+                 if ex is not None else "SO(3) plumbing sum over odd colours (numeric, certified at two precisions)",
                  "group": "SO(3)", "level": level, "seifert": (b, fibers)},
     )
 
@@ -195,7 +268,7 @@ def _orient(b, fibers) -> str:
 
 
 def so3_fiber_wilson_loop(space, level: int, regular: Sequence = (), exceptional: Optional[Mapping[int, object]] = None,
-                          normalized: bool = True, digits: int = 30) -> FiniteLevelValue:
+                          normalized: bool = True, digits: int = 30, exact: Optional[bool] = None) -> FiniteLevelValue:
     """SO(3) Wilson loops along regular fibers and cores of exceptional fibers (index from 0).
 
     The framing is that of the surgery diagram: the fiber framing for a regular fiber.
@@ -227,12 +300,20 @@ def so3_fiber_wilson_loop(space, level: int, regular: Sequence = (), exceptional
         return z
 
     val = _certified(fn, digits)
+    ex = None
+    if _want_exact(level, pres, exact):
+        data = _ExactData(level)
+        ex = _sum(data, pres, sigma, reg, exc)
+        if normalized:
+            ex = ex / _sum(data, pres, sigma, (), {})
+        _agree(ex, val, digits)
     return FiniteLevelValue(
-        exact=None, numeric=val, digits=digits,
+        exact=ex, numeric=val, digits=digits,
         framing="framing of the surgery diagram (the fiber framing for a regular fiber)",
         orientation=_orient(b, fibers),
         normalisation="Z(M; L)/Z(M)" if normalized else "Z(M; L), Z(S^3) = S'_11",
-        details={"route": "SO(3) plumbing sum over odd colours (numeric, certified at two precisions)",
+        details={"route": "SO(3) plumbing sum over odd colours (exact cyclotomic and numeric, certified at two precisions)"
+                 if ex is not None else "SO(3) plumbing sum over odd colours (numeric, certified at two precisions)",
                  "group": "SO(3)", "level": level, "regular": reg, "exceptional": exc},
     )
 
@@ -277,7 +358,12 @@ def so3_level_loop(knot: Optional[str], level: int, rep="[1]", space: str = "S^3
     C = Fraction(a * a - 1, 4)
     mode = "fiber" if framing == "fiber" else "zero"
     num = v.numeric
+    ex = v.exact
     pq = k.P * k.Q * k.chirality
+    if mode == "zero" and ex is not None:
+        from knotobs.polynomials.cyclotomic import root_of_unity
+
+        ex = ex * root_of_unity(-pq * C / K)
     if mode == "zero":
         ctx = local_mp(digits + 10)
         num = _plain(ctx.make_mpc((num.real._mpf_, num.imag._mpf_))
@@ -295,7 +381,9 @@ def so3_level_loop(knot: Optional[str], level: int, rep="[1]", space: str = "S^3
             from knotobs.evaluation.families import RouteMismatchError
 
             raise RouteMismatchError(f"SO(3) gluing and the Rosso-Jones polynomial disagree for {k} at level {level}")
-    return FiniteLevelValue(exact=None, numeric=num, digits=digits,
+    if ex is not None:
+        _agree(ex, num, digits)
+    return FiniteLevelValue(exact=ex, numeric=num, digits=digits,
                             framing="zero (Seifert) framing" if mode == "zero" else f"fiber framing P*Q = {k.P * k.Q}",
                             orientation=f"S^3 (the fibration {F.manifold})", normalisation=v.normalisation,
                             details=details)

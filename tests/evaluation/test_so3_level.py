@@ -90,6 +90,14 @@ def test_fibonacci():
         phi = (1 + mpmath.sqrt(5)) / 2
         assert _close(z, 1 / mpmath.sqrt(1 + phi**2))
     assert _close(so3_partition_function((0, []), 3).numeric, 1)      # S^2 x S^1
+    # exactly: Z(S^3)^2 = 1/(1 + phi^2) = (5 - sqrt 5)/10
+    from fractions import Fraction
+
+    from knotobs.polynomials.cyclotomic import CyclotomicField, sqrt_rational
+
+    e = so3_partition_function((1, []), 3).exact
+    assert e is not None and e * e == CyclotomicField(1)(Fraction(1, 2)) - sqrt_rational(5) * Fraction(1, 10)
+    assert so3_partition_function((0, []), 3).exact == CyclotomicField(1).one
     ctx = local_mp(30)
     data = _Data(3, ctx)
     dims = [ctx.fsum(data.S[0][i] ** (2 - 2 * g) for i in range(len(data.colours))) for g in range(5)]
