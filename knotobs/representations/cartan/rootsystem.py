@@ -139,10 +139,22 @@ class RootSystem:
         D = self.form_denominator
         return np.array([[int(x * D) for x in row] for row in self.quadratic_form], dtype=np.int64)
 
+    @cached_property
+    def _form_rows(self) -> tuple[tuple[int, ...], ...]:
+        D = self.form_denominator
+        return tuple(tuple(int(x * D) for x in row) for row in self.quadratic_form)
+
     def inner(self, lam: Sequence[int], mu: Sequence[int]) -> Fraction:
-        """``(lam, mu)`` for weights given by Dynkin labels."""
-        F = self.quadratic_form
-        return sum((F[i][j] * lam[i] * mu[j] for i in range(self.rank) for j in range(self.rank) if lam[i] and mu[j]), Fraction(0))
+        """``(lam, mu)`` for weights given by Dynkin labels (integer arithmetic, one division)."""
+        F = self._form_rows
+        r = range(self.rank)
+        tot = 0
+        for i in r:
+            li = lam[i]
+            if li:
+                row = F[i]
+                tot += li * sum(row[j] * mu[j] for j in r if mu[j])
+        return Fraction(tot, self.form_denominator)
 
     def to_orthonormal(self, lam: Sequence[int]) -> tuple[Fraction, ...]:
         """The weight with Dynkin labels ``lam`` in the basis ``e_1, e_2, ...`` (unscaled)."""
