@@ -104,9 +104,12 @@ def poly(
         res = alexander(knot, mirror=mirror)
     elif fam in ("kauffman", "dubrovnik"):
         unused = [o for o, v in (("--color", color), ("--N", rank), ("--form", form)) if v is not None]
+        unused += ["--t"] if t_is != "q^-1" else []
+        unused += ["--rep"] if (rep is not None and fam == "dubrovnik") else []
         if unused or unnormalized:
             raise ParseError(f"--family {fam} takes no {', '.join(unused) or '--unnormalized'}: the polynomial is"
-                             " two-variable and normalised (unknot = 1); SO(N) values: knotobs loop --group 'SO(N)'")
+                             " two-variable, of the vector representation and normalised (unknot = 1);"
+                             " SO(N) values: knotobs loop --group 'SO(N)'")
         res = (kauffman if fam == "kauffman" else dubrovnik)(knot, mirror=mirror, **({"rep": _reps(rep)} if rep and fam == "kauffman" else {}))
     else:
         raise ParseError(f"unknown family {family!r}: choose jones, colored-jones, homfly, alexander, kauffman or dubrovnik")

@@ -169,3 +169,14 @@ def test_cli_poly_and_match():
     pytest.importorskip("database_knotinfo")
     r = CliRunner().invoke(app, ["match", "T(2,6)", "--knotinfo", "--invariant", "kauffman"])
     assert r.exit_code == 0 and "EQUAL" in r.output and "mirror" in r.output
+
+
+def test_identify_by_kauffman_polynomial():
+    # the dataset's string for 8_19 = T(3,4) (CONVENTIONS §8), typed in: identification finds T(3,4) only
+    from knotobs.tables.identify import identify
+
+    text = ("(-a^(-10)-5*a^(-8)-5*a^(-6))*z^(0)+ (5*a^(-9)+ 5*a^(-7))*z^(1)+ (10*a^(-8)+ 10*a^(-6))*z^(2)"
+            "+ (-5*a^(-9)-5*a^(-7))*z^(3)+ (-6*a^(-8)-6*a^(-6))*z^(4)+ (a^(-9)+ a^(-7))*z^(5)+ (a^(-8)+ a^(-6))*z^(6)")
+    r = identify(text, "kauffman", max_p=4, max_q=6)
+    assert [c.knot for c in r.candidates] == ["T(3,4)"]
+    assert r.candidates[0].map.mirror is False
