@@ -148,6 +148,8 @@ def parse_group(spec) -> Group:
     """
     if isinstance(spec, Group):
         return spec
+    if type(spec).__name__ == "SimpleGroup" and getattr(spec, "kind", None) == "SU":
+        return Group("SU", spec.N)            # SU(N) of the Cartan engine: the same group
     if isinstance(spec, tuple) and len(spec) == 2 and str(spec[0]).upper() == "A":
         r = spec[1]
         if not isinstance(r, int) or r < 1:

@@ -135,3 +135,19 @@ def test_cli():
     assert r.exit_code == 0 and "0.58" in r.output or "SO(3)" in r.output, r.output
     r = CliRunner().invoke(app, ["loop", "T(2,3)", "--group", "SO(3)", "--level", "4"])
     assert r.exit_code == 2 and "odd" in r.output
+
+
+def test_cli_exceptional_fiber_matches_library():
+    import json
+
+    from typer.testing import CliRunner
+
+    from knotobs.cli import app
+    from knotobs.fibrations.seifert import parse_space
+
+    r = CliRunner().invoke(app, ["loop", "--group", "SO(3)", "--level", "5", "--in", "Sigma(2,3,5)", "--fiber", "0",
+                                 "--rep", "[1]", "--json"])
+    assert r.exit_code == 0, r.output
+    got = json.loads(r.stdout)["numeric"]
+    ref = so3_fiber_wilson_loop(parse_space("Sigma(2,3,5)"), 5, exceptional={0: "[1]"}).numeric
+    assert abs(complex(float(got["re"]), float(got["im"])) - complex(ref)) < 1e-12
