@@ -10,6 +10,7 @@ Sources:
   (L. Kauffman, Trans. Amer. Math. Soc. 318 (1990) 417–471; CONVENTIONS §8), with ``V`` computed by
   the SU(2) route of knotobs, for torus knots and links well beyond the table;
 * the mirror image ``F_{L*}(a, z) = F_L(a^-1, z)`` (Kauffman (1990); common practice);
+* Kauffman's skein relation on the closed 2-braids ``sigma_1^n`` (Kauffman (1990));
 * the SO(N) specialisations ``a = q^((N-1)/2)``, ``z = q^(1/2) - q^(-1/2)`` of the generic
   (Dubrovnik) form against the Cartan engine's Rosso–Jones and weight-sum routes for fixed N
   (an independent computation: weights of the fixed group, no universal characters).
@@ -180,3 +181,25 @@ def test_identify_by_kauffman_polynomial():
     r = identify(text, "kauffman", max_p=4, max_q=6)
     assert [c.knot for c in r.candidates] == ["T(3,4)"]
     assert r.candidates[0].map.mirror is False
+
+
+@pytest.mark.parametrize("n", range(2, 13))
+def test_skein_relation_on_two_strand_torus_links(n):
+    """Kauffman's relation Lambda(L+) + Lambda(L-) = z (Lambda(L0) + Lambda(Linf)) (Kauffman (1990)).
+
+    At one crossing of the closed 2-braid sigma_1^n: L+ = T(2,n), L- = T(2,n-2), L0 = T(2,n-1), and
+    Linf is an unknot drawn with n - 1 curls, negative once oriented (the smoothing reverses one strand).
+    With Lambda = a^writhe F (writhe n for sigma_1^n with parallel strands) and a positive curl = a:
+        a^n F_n + a^(n-2) F_(n-2) = z (a^(n-1) F_(n-1) + a^-(n-1)),
+    where F_0 is the two-component unlink, (a + a^-1)/z - 1, and F_1 = 1.
+    """
+    a, z = A_SYM, Z_SYM
+
+    def F(m):
+        if m == 0:
+            return (a + 1 / a) / z - 1
+        return _sympy_of(kauffman(TorusLink(2, m)))
+
+    lhs = a**n * F(n) + a ** (n - 2) * F(n - 2)
+    rhs = z * (a ** (n - 1) * F(n - 1) + a ** (-(n - 1)))
+    assert sympy.simplify(sympy.expand(lhs - rhs)) == 0
