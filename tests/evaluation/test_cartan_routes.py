@@ -119,3 +119,15 @@ def test_cli_loop_new_groups():
                          (("--group", "Sp(5)"), "Sp(5)"), (("--group", "G2", "--rep", "[1]"), "partition")]:
         out = _cli("loop", "T(2,3)", *args)
         assert out.exit_code == 2 and needle in out.output and "Traceback" not in out.output
+
+
+@pytest.mark.slow
+@pytest.mark.parametrize("g,lam", [(g, lam) for g, reps in samples("large") for lam in reps], ids=lambda x: str(x))
+@pytest.mark.parametrize("pq", [(2, 9), (3, 7), (4, 5), (4, 7), (5, 6), (3, 6), (4, 4), (2, -8)], ids=str)
+def test_routes_agree_extended(g, lam, pq):
+    k = TorusLink(*pq)
+    from knotobs.representations.cartan import weyl_dimension
+
+    if k.components > 2 and (g.roots.rank > 2 or weyl_dimension(g.roots, lam) > 20):
+        pytest.skip("kept small: the weight sum needs every weight of the tensor power")
+    assert rosso_jones_cartan(k, g, lam) == weight_sum_cartan(k, g, lam)
