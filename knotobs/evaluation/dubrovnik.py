@@ -13,9 +13,9 @@ generic quantum dimension.  Zero (Seifert) framing on every component.  The valu
 normalised by the unknot ``dim_q(V) = (a - a^-1)/z + 1`` (``z = s - s^-1``): it is the Dubrovnik
 polynomial (L. Kauffman, Trans. Amer. Math. Soc. 318 (1990) 417–471) in the normalisation
 
-    D(L+) - D(L-) = z (D(L0) - D(Linf)),   kink = a,   D(unknot) = 1,
+    Lambda(L+) - Lambda(L-) = z (Lambda(L0) - Lambda(Linf)),   positive kink = a,   Lambda(unknot) = 1,
 
-of the zero-framed link (``a`` and ``z`` as above; CONVENTIONS §14 in ``docs/groups.md``).  Setting
+for the framed invariant ``Lambda``, evaluated on the zero-framed link (``a`` and ``z`` as above; CONVENTIONS §14 in ``docs/groups.md``).  Setting
 ``a = q^((N-1)/2)`` gives the normalised SO(N) Wilson loop of the Cartan engine for every N >= 4 (and
 for N = 3 with the SO(3) metric doubled: ``q -> q^2``), which the tests check.
 

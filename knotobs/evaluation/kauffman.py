@@ -76,7 +76,8 @@ def dubrovnik(knot, mirror: bool = False) -> PolynomialResult:
         framing=(0,) * k.components, framing_note="zero (Seifert) framing on every component",
         normalisation=NORMALISED + " (unknot = (a - a^-1)/z + 1 before normalising)",
         chirality="mirror image of the input" if mirror else "as given",
-        skein="D(L+) - D(L-) = z (D(L0) - D(Linf)); a positive kink multiplies by a",
+        skein="Lambda(L+) - Lambda(L-) = z (Lambda(L0) - Lambda(Linf)) for the framed invariant, a positive kink"
+              " multiplies by a; D = Lambda with every component zero-framed",
     )
     return PolynomialResult("dubrovnik", str(k0), "SO(N), generic N", ((1,),) * k.components, D, prof,
                             "rosso-jones (generic N, universal orthogonal characters)",

@@ -10,7 +10,7 @@ Sources:
   (L. Kauffman, Trans. Amer. Math. Soc. 318 (1990) 417–471; CONVENTIONS §8), with ``V`` computed by
   the SU(2) route of knotobs, for torus knots and links well beyond the table;
 * the mirror image ``F_{L*}(a, z) = F_L(a^-1, z)`` (Kauffman (1990); common practice);
-* Kauffman's skein relation on the closed 2-braids ``sigma_1^n`` (Kauffman (1990));
+* Kauffman's skein relations (F and the Dubrovnik form) on the closed 2-braids ``sigma_1^n`` (Kauffman (1990));
 * the SO(N) specialisations ``a = q^((N-1)/2)``, ``z = q^(1/2) - q^(-1/2)`` of the generic
   (Dubrovnik) form against the Cartan engine's Rosso–Jones and weight-sum routes for fixed N
   (an independent computation: weights of the fixed group, no universal characters).
@@ -203,3 +203,25 @@ def test_skein_relation_on_two_strand_torus_links(n):
     lhs = a**n * F(n) + a ** (n - 2) * F(n - 2)
     rhs = z * (a ** (n - 1) * F(n - 1) + a ** (-(n - 1)))
     assert sympy.simplify(sympy.expand(lhs - rhs)) == 0
+
+
+@pytest.mark.parametrize("n", range(2, 13))
+def test_dubrovnik_skein_relation_two_strand(n):
+    """``Lambda(L+) - Lambda(L-) = z (Lambda(L0) - Lambda(Linf))`` (Kauffman (1990), the Dubrovnik form) for
+    the SO(N) form D of knotobs (zero framing on every component).
+
+    On sigma_1^n the blackboard framing of a component is its self-writhe: n for a knot (n odd), 0 for each
+    component of a link (n even); a positive kink is a (theta(V) = q^((N-1)/2)), so Lambda_n = a^n D_n for n
+    odd and D_n for n even; Linf is an unknot with n - 1 negative curls, D_0 = (a - a^-1)/z + 1.
+    """
+    from knotobs.evaluation.dubrovnik import dubrovnik_torus
+
+    a, z = A_SYM, Z_SYM
+
+    def Lam(m):
+        if m == 0:
+            return (a - 1 / a) / z + 1
+        D = sympy.expand(sum(c * a**j * z**k for (j, k), c in dubrovnik_torus(TorusLink(2, m)).to_az().items()))
+        return a**m * D if m % 2 else D
+
+    assert sympy.simplify(Lam(n) - Lam(n - 2) - z * (Lam(n - 1) - a ** (-(n - 1)))) == 0
