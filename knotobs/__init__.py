@@ -58,3 +58,9 @@ __all__ = [
     "parse_group",
     "__version__",
 ]
+
+# groups beyond SU(N), the Kauffman polynomial (docs/groups.md, §14)
+from knotobs.evaluation.kauffman import kauffman  # noqa: E402
+from knotobs.representations.cartan import Dynkin, simple_group  # noqa: E402
+
+__all__ += ["kauffman", "Dynkin", "simple_group"]

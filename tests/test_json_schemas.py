@@ -24,6 +24,11 @@ CASES = [
     (["continue", "Sigma(2,3,5)", "--level", "7.5+0.3i", "--digits", "15", "--json"], "continued-value"),
     (["continue", "T(2,3)", "--couplings", "10+2i,10-2i", "--digits", "15", "--json"], "continued-value"),
     (["match", "T(2,3)", "--poly", "t + t^3 - t^4", "--json"], "comparison"),
+    (["loop", "T(3,4)", "--group", "Sp(4)", "--rep", "(0,1)", "--json"], "polynomial-result"),
+    (["poly", "T(4,6)", "--family", "kauffman", "--json"], "polynomial-result"),
+    (["poly", "T(2,5)", "--family", "dubrovnik", "--json"], "polynomial-result"),
+    (["loop", "T(2,3)", "--group", "SO(3)", "--level", "5", "--json"], "finite-level"),
+    (["space", "Sigma(2,3,5)", "--group", "SO(3)", "--level", "3", "--json"], "finite-level"),
 ]
 
 

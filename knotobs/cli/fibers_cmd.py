@@ -48,7 +48,7 @@ def space(
     ),
     surgery: Optional[str] = typer.Option(None, "--surgery", help="A knot T(p,q) in S^3 to do surgery on."),
     slope: Optional[str] = typer.Option(None, "--slope", help="Surgery slope: integer or fraction like 5/2."),
-    group: str = typer.Option("SU(2)", "--group", "-g", help="With --level: SU(N)."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="With --level: SU(N), or SO(3) at odd level."),
     level: Optional[int] = typer.Option(None, "--level", "-k", help="Print the partition function Z_k."),
     digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
     route: str = typer.Option("auto", "--route", help="With --level: auto, surgery, gauss-sum (SU(2)) or both."),

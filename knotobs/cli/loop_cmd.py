@@ -9,9 +9,11 @@ import typer
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
 from knotobs.evaluation.families import alexander, colored_jones, homfly, homfly_at, jones, wilson_loop
+from knotobs.evaluation.kauffman import dubrovnik, kauffman
 from knotobs.evaluation.level_loops import level_loop
 from knotobs.output.finite_text import finite_json, finite_text
 from knotobs.output.text import render_polynomial
+from knotobs.representations.cartan.group import is_simple_group_name
 from knotobs.representations.partitions import parse_partition
 
 
@@ -38,12 +40,12 @@ def _framing(text: Optional[str]):
 @handle_errors
 def loop(
     knot: Optional[str] = typer.Argument(None, help="Torus knot or link, e.g. T(2,3) or T(4,6)."),
-    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N)."),
-    rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1]; links: [1];[2] per component."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N), U(N), SO(N), Spin(N), Sp(2n) or G2."),
+    rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1], or Dynkin labels (1,0) (SO/Sp/G2); links: [1];[2] per component."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
     normalized: bool = typer.Option(False, "--normalized", help="Divide by the unknot (default: unknot = dim_q)."),
     route: str = typer.Option("rosso-jones", "--route", help="rosso-jones, weight-sum or both (checks agreement)."),
-    level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N) only): exact cyclotomic + numeric."),
+    level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N); SO(3) at odd k): exact cyclotomic + numeric."),
     in_: str = typer.Option("S^3", "--in", help="With --level: S^3, L(p,q), Sigma(a,b,c) or M(0; b; ...)."),
     fiber: Optional[int] = typer.Option(None, "--fiber", help="With --level and no KNOT: colour the core fiber with this index (from 0)."),
     digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
@@ -56,11 +58,12 @@ def loop(
             raise ParseError("give a knot, e.g. knotobs loop 'T(2,3)' (or --level k --in SPACE --fiber i)")
         if in_ != "S^3" or fiber is not None:
             raise ParseError("--in and --fiber need --level k (polynomials in q are computed in S^3)")
-        res = wilson_loop(knot, group, _reps(rep), _framing(framing), normalized, route)
+        reps = rep if is_simple_group_name(group) else _reps(rep)   # SO/Sp/G2 read (1,0) and [1] themselves
+        res = wilson_loop(knot, group, reps, _framing(framing), normalized, route)
         emit(res.to_json(), render_polynomial(res), as_json)
         return
     fr = _framing(framing) if framing is not None else None
-    val = level_loop(knot, level, group, _reps(rep), in_, fiber, fr, not raw, digits)
+    val = level_loop(knot, level, group, rep if is_simple_group_name(group) else _reps(rep), in_, fiber, fr, not raw, digits)
     what = knot if knot is not None else f"core fiber {fiber} of {in_}"
     inputs = {"knot": knot, "space": in_, "fiber": fiber, "group": group, "rep": rep, "level": level,
               "framing": framing, "digits": digits, "raw": raw}
@@ -72,7 +75,7 @@ def loop(
 @handle_errors
 def poly(
     knot: str = typer.Argument(..., help="Torus knot or link, e.g. T(2,3)."),
-    family: str = typer.Option("jones", "--family", help="jones, colored-jones, homfly, alexander or superpolynomial."),
+    family: str = typer.Option("jones", "--family", help="jones, colored-jones, homfly, alexander, kauffman, dubrovnik (SO(N) form) or superpolynomial."),
     color: Optional[int] = typer.Option(None, "--color", help="Colour n of the coloured Jones polynomial (dimension)."),
     rep: Optional[str] = typer.Option(None, "--rep", help="Partition colouring the HOMFLY-PT polynomial, e.g. [2,1]."),
     t_is: str = typer.Option("q^-1", "--t", help="Variable map for Jones: t = q^-1 (standard) or t = q."),
@@ -99,6 +102,15 @@ def poly(
             res = homfly(knot, reps, mirror=mirror, normalized=norm, form=form)
     elif fam == "alexander":
         res = alexander(knot, mirror=mirror)
+    elif fam in ("kauffman", "dubrovnik"):
+        unused = [o for o, v in (("--color", color), ("--N", rank), ("--form", form)) if v is not None]
+        unused += ["--t"] if t_is != "q^-1" else []
+        unused += ["--rep"] if (rep is not None and fam == "dubrovnik") else []
+        if unused or unnormalized:
+            raise ParseError(f"--family {fam} takes no {', '.join(unused) or '--unnormalized'}: the polynomial is"
+                             " two-variable, of the vector representation and normalised (unknot = 1);"
+                             " SO(N) values: knotobs loop --group 'SO(N)'")
+        res = (kauffman if fam == "kauffman" else dubrovnik)(knot, mirror=mirror, **({"rep": _reps(rep)} if rep and fam == "kauffman" else {}))
     elif fam == "superpolynomial":
         for flag, given in (("--color", color is not None), ("--N", rank is not None), ("--form", form is not None),
                             ("--unnormalized", unnormalized), ("--t", t_is != "q^-1")):
@@ -108,7 +120,6 @@ def poly(
 
         res = superpolynomial(knot, _reps(rep) if rep else (1,), mirror=mirror)
     else:
-        raise ParseError(
-            f"unknown family {family!r}: choose jones, colored-jones, homfly, alexander or superpolynomial"
-        )
+        raise ParseError(f"unknown family {family!r}: choose jones, colored-jones, homfly, alexander, kauffman,"
+                         " dubrovnik or superpolynomial")
     emit(res.to_json(), render_polynomial(res), as_json)

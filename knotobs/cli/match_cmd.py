@@ -28,7 +28,7 @@ def match(
     poly: Optional[str] = typer.Option(None, "--poly", "-p", help="Polynomial in plain notation, e.g. 't + t^3 - t^4'."),
     file: Optional[str] = typer.Option(None, "--file", help="Read the polynomial from this text file."),
     knotinfo: bool = typer.Option(False, "--knotinfo", help="Compare with the database-knotinfo entry (optional extra)."),
-    invariant: str = typer.Option("auto", "--invariant", "-i", help="auto, quantum, jones, homfly, alexander or conway."),
+    invariant: str = typer.Option("auto", "--invariant", "-i", help="auto, quantum, jones, homfly, alexander, conway or kauffman."),
     group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N) for one-variable polynomials."),
     rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1]; links: [1];[2] per component."),
     max_p: int = typer.Option(5, "--max-p", help="Identify: largest P of T(P,Q)."),

@@ -44,6 +44,7 @@ from knotobs.representations.groups import (
     quantum_dimension,
     quantum_integer,
 )
+from knotobs.representations.cartan.group import is_simple_group_name
 from knotobs.representations.partitions import as_partition, contents
 
 __all__ = ["wilson_loop", "jones", "colored_jones", "homfly", "homfly_at", "alexander", "ROUTES", "RouteMismatchError"]
@@ -94,7 +95,9 @@ def wilson_loop(
     knot : TorusLink or str
         ``T(p,q)``; a link when ``gcd(p, q) > 1``.
     group : Group or str
-        ``"SU(N)"`` or ``"U(N)"``.
+        ``"SU(N)"`` or ``"U(N)"``; ``"SO(N)"``, ``"Spin(N)"``, ``"Sp(2n)"``, ``"G2"`` go to
+        :func:`knotobs.evaluation.cartan_loops.simple_wilson_loop` (representations as text
+        ``"(1,0)"``/``"[1]"``, see docs/groups.md).
     rep : partition or sequence of partitions
         Colour of every component, or one colour per component.
     framing : int, list of int, ``"zero"`` or ``"fiber"``
@@ -116,6 +119,11 @@ def wilson_loop(
     ----------
     Rosso–Jones (1993); Lawrence–Rozansky (1999); CONVENTIONS §3–§4.
     """
+    if is_simple_group_name(group):
+        # SO(N), Spin(N), Sp(2n), G2: the Cartan engine's routes (docs/groups.md, §14)
+        from knotobs.evaluation.cartan_loops import simple_wilson_loop
+
+        return simple_wilson_loop(knot, group, rep, framing, normalized, route)
     knot = parse_knot(knot)
     group = parse_group(group)
     cols = tuple(group.check(c) for c in colours_for(knot, rep))

@@ -52,7 +52,26 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
             f"{report.recognised} is reducible; knotobs evaluates Seifert manifolds over S^2 "
             "(use Z(M1 # M2) = Z(M1) Z(M2) / Z(S^3) on the summands)"
         )
+    if _is_so3(group):
+        if route not in ("auto", "surgery"):
+            raise KnotobsError(f"SO(3) at level k has one route (the plumbing sum); --route {route} does not apply")
+        from knotobs.evaluation.so3_level import so3_partition_function
+
+        return so3_partition_function(report.manifold, level, digits), report
     return partition_function(report.manifold, group, level, digits, route=route), report
+
+
+def _is_so3(group) -> bool:
+    """SO(3) at odd level (docs/groups.md, §14); other groups of the Cartan engine have no level data here."""
+    from knotobs.representations.cartan.group import is_simple_group_name, simple_group
+
+    if not is_simple_group_name(group):
+        return False
+    g = simple_group(group)
+    if (g.kind, g.N) != ("SO", 3):
+        raise KnotobsError(f"finite-level values are computed for SU(N) and for SO(3) at odd level; got {g}"
+                           " (its exact polynomial in q: knotobs loop KNOT --group ... without --level)")
+    return True
 
 
 def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1,), space: str = "S^3",
@@ -98,9 +117,13 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     ----------
     CONVENTIONS §3, §5, §7; Rosso–Jones (1993); Reshetikhin–Turaev (1991).
     """
+    if _is_so3(group):
+        from knotobs.evaluation.so3_level import so3_level_loop
+
+        return so3_level_loop(knot, level, rep, space, fiber, framing, normalized, digits)
     g = parse_group(group)
     if g.kind != "SU":
-        raise KnotobsError(f"finite-level values are computed for SU(N); got {g}")
+        raise KnotobsError(f"finite-level values are computed for SU(N) and for SO(3) at odd level; got {g}")
     if knot is None:
         if fiber is None:
             raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")

@@ -155,7 +155,7 @@ SCHEMAS: dict[str, dict] = {
         "type": "object",
         "description": "An exact polynomial invariant with its inputs and convention profile.",
         "properties": {
-            "quantity": {"type": "string", "enum": ["wilson-loop", "jones", "colored-jones", "homfly", "alexander", "superpolynomial"]},
+            "quantity": {"type": "string", "enum": ["wilson-loop", "jones", "colored-jones", "homfly", "alexander", "kauffman", "dubrovnik", "superpolynomial"]},
             "knot": _STR, "manifold": _STR, "group": _STR,
             "colours": {"type": "array", "items": _PARTITION},
             "exact": {"type": "string", "description": "sympy-readable exact value (** for powers)"},

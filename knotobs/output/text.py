@@ -19,6 +19,8 @@ _TITLES = {
 def render_polynomial(result: PolynomialResult) -> str:
     """Title line, the exact polynomial, then the convention profile."""
     cols = ", ".join(str(list(c)) for c in result.colours)
+    if result.inputs.get("rep") and isinstance(result.inputs["rep"][0], str):   # Dynkin labels, e.g. (1,0)
+        cols = ", ".join(result.inputs["rep"])
     title = _TITLES.get(result.quantity, result.quantity)
     if result.quantity == "homfly":
         title = "HOMFLY-PT polynomial P(" + ", ".join(result.profile.variables) + ")"

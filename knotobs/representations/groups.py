@@ -148,14 +148,23 @@ def parse_group(spec) -> Group:
     """
     if isinstance(spec, Group):
         return spec
+    if type(spec).__name__ == "SimpleGroup" and getattr(spec, "kind", None) == "SU":
+        return Group("SU", spec.N)            # SU(N) of the Cartan engine: the same group
     if isinstance(spec, tuple) and len(spec) == 2 and str(spec[0]).upper() == "A":
         r = spec[1]
         if not isinstance(r, int) or r < 1:
             raise InvalidGroupError(f"{spec!r} is not a valid Cartan type: rank must be >= 1")
         return Group("SU", r + 1)
     m = _GROUP_RE.match(str(spec))
+    if not m:
+        from knotobs.representations.cartan.group import is_simple_group_name
+
+        if is_simple_group_name(spec):
+            raise ParseError(f"{spec!r} is not SU(N) or U(N): this computation is defined for SU(N)/U(N) only"
+                             " (SO(N), Spin(N), Sp(2n), G2: knotobs loop/poly; SO(3) also with --level)")
     if not m or m.group(1).upper() == "SL":
-        raise ParseError(f"cannot read group {spec!r}: write SU(N) or U(N), e.g. SU(3)")
+        why = "unbalanced brackets" if str(spec).count("(") != str(spec).count(")") else "unknown form"
+        raise ParseError(f"cannot read group {spec!r} ({why}): write SU(N), U(N), SO(N), Spin(N), Sp(2n) or G2, e.g. SU(3)")
     return Group(m.group(1).upper(), int(m.group(2)))
 
 

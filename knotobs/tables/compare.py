@@ -39,7 +39,7 @@ from knotobs.tables.sparse import MPoly
 __all__ = ["ConventionMap", "Comparison", "compare", "compare_knotinfo", "INVARIANTS"]
 
 #: Invariant families :func:`compare` understands (``"auto"`` picks one from the variables).
-INVARIANTS = ("auto", "quantum", "jones", "homfly", "alexander", "conway")
+INVARIANTS = ("auto", "quantum", "jones", "homfly", "alexander", "conway", "kauffman")
 
 #: For each one-variable name: its standard meaning as a power of q (CONVENTIONS §1, §3, §8).
 _STD_Q_POWER = {"t": Fraction(-1), "x": Fraction(-1, 2), "q": Fraction(1), "s": Fraction(1, 2)}
@@ -324,6 +324,18 @@ def _conway_family(k: TorusLink) -> _Family:
     return fam
 
 
+def _kauffman_family(k: TorusLink) -> _Family:
+    from knotobs.evaluation.kauffman import kauffman
+
+    res = kauffman(k)
+    F = MPoly.from_az(res.value, "a", "z")
+    fam = _Family("kauffman", res.group, [[1]] * k.components, res.profile.to_dict(),
+                  f"{res.exact_string()}   (a, z; Kauffman F, F(unknot) = 1)", [("normalised (F(unknot) = 1)", F)], None)
+    zs = [("z", {"z": ("z", Fraction(1), 1)}, "z", False), ("z", {"z": ("z", Fraction(1), -1)}, "-z", True)]
+    fam.var_maps = _a_maps("a", zs)
+    return fam
+
+
 def _alexander_family(k: TorusLink, tvar: str) -> _Family:
     res = alexander(k)
     d = MPoly.from_laurent(res.value, "t")
@@ -475,6 +487,10 @@ def _choose_family(tp: MPoly, invariant: str, knot: TorusLink, group, cols) -> _
             inv = "homfly" if avar else "conway"
         else:
             inv = "quantum"
+    if inv == "kauffman":
+        if not used <= {"a", "z"}:
+            raise ParseError(f"a Kauffman polynomial is written in a and z; found {', '.join(sorted(used))} in {tp}")
+        return _kauffman_family(knot)
     if inv == "conway":
         if not used <= {"z"}:
             raise ParseError(f"a Conway polynomial is written in z only; found {', '.join(sorted(used))} in {tp}")
@@ -554,7 +570,7 @@ def compare(knot, target, group="SU(2)", rep=(1,), invariant: str = "auto",
     g = parse_group(group)
     inv = invariant.lower().replace("_", "-") if isinstance(invariant, str) else invariant
     cols = colours_for(k, rep)
-    if inv not in ("homfly", "alexander", "conway"):
+    if inv not in ("homfly", "alexander", "conway", "kauffman"):
         cols = tuple(g.check(c) for c in cols)
     tp = _target_mpoly(target, variables)
     fam = _choose_family(tp, inv, k, g, cols)
@@ -569,7 +585,7 @@ def compare(knot, target, group="SU(2)", rep=(1,), invariant: str = "auto",
     return Comparison(equal=False, map=None, closest=cm, difference=str(d), differing_terms=n, **base)
 
 
-_KI_INVARIANTS = ("jones", "homfly", "alexander", "conway")
+_KI_INVARIANTS = ("jones", "homfly", "alexander", "conway", "kauffman")
 
 
 def compare_knotinfo(knot, invariant: str = "jones") -> Comparison:
@@ -579,7 +595,7 @@ def compare_knotinfo(knot, invariant: str = "jones") -> Comparison:
     ----------
     knot : str or TorusLink
         A torus knot or link in the dataset (either chirality).
-    invariant : ``"jones"``, ``"homfly"``, ``"alexander"`` or ``"conway"``
+    invariant : ``"jones"``, ``"homfly"``, ``"alexander"``, ``"conway"`` or ``"kauffman"``
 
     Examples
     --------
@@ -599,14 +615,17 @@ def compare_knotinfo(knot, invariant: str = "jones") -> Comparison:
         raise KnotobsError(f"unknown tabulated invariant {invariant!r}: choose one of {', '.join(_KI_INVARIANTS)}")
     k = parse_knot(knot)
     e = lookup(k)
-    text = {"jones": e.jones, "homfly": e.homfly, "alexander": e.alexander, "conway": e.conway}[inv]
+    text = {"jones": e.jones, "homfly": e.homfly, "alexander": e.alexander, "conway": e.conway,
+            "kauffman": e.kauffman}[inv]
     if not text.strip():
         raise KnotobsError(f"the dataset has no {inv} polynomial for {e.name}")
-    allowed = {"jones": (e.jones_variable,), "homfly": ("v", "z"), "alexander": ("t",), "conway": ("z",)}[inv]
+    allowed = {"jones": (e.jones_variable,), "homfly": ("v", "z"), "alexander": ("t",), "conway": ("z",),
+               "kauffman": ("a", "z")}[inv]
     try:
         tp = parse_polynomial(text, allowed)
     except ParseError as exc:
         raise ParseError(f"dataset entry {e.name}: {exc}") from None
-    fam_inv = {"jones": "jones", "homfly": "homfly", "alexander": "alexander", "conway": "conway"}[inv]
+    fam_inv = {"jones": "jones", "homfly": "homfly", "alexander": "alexander", "conway": "conway",
+               "kauffman": "kauffman"}[inv]
     src = f"database-knotinfo {dataset_version()}, entry {e.name} (stored as {e.torus})"
     return compare(k, tp, "SU(2)", (1,), fam_inv, source=src)

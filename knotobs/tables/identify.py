@@ -142,6 +142,8 @@ def identify(target, invariant: str = "auto", group="SU(2)", max_p: int = 5, max
         reps = [lam for n in range(1, max_colour + 1) for lam in partitions_of(n)]
         if inv in ("alexander", "conway"):
             reps = [(1,)]
+    elif inv == "kauffman":
+        reps = [(1,)]                     # the Kauffman polynomial is the vector representation's invariant
     else:
         max_rows = g.N - 1 if g.kind == "SU" else g.N
         reps = [lam for n in range(1, max_colour + 1) for lam in partitions_of(n) if len(lam) <= max_rows]

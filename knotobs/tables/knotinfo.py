@@ -71,8 +71,8 @@ class KnotInfoEntry:
         The dataset's name (``"3_1"``, ``"L6a3{0}"``).
     torus : TorusLink
         The stored diagram as a torus link, with its chirality (``T(2,-6)`` for a mirror).
-    jones, homfly, alexander, conway : str
-        The stored strings (``""`` when absent).
+    jones, homfly, alexander, conway, kauffman : str
+        The stored strings (``""`` when absent); the Kauffman polynomial is in ``(a, z)``.
     jones_variable : str
         ``"t"`` (knot table) or ``"x"`` (link table, ``x = t^(1/2)``).
     """
@@ -85,6 +85,7 @@ class KnotInfoEntry:
     conway: str
     jones_variable: str
     braid: str
+    kauffman: str = ""
 
     @property
     def is_link(self) -> bool:
@@ -154,7 +155,8 @@ def torus_entries() -> tuple[KnotInfoEntry, ...]:
             continue
         out.append(KnotInfoEntry(row["name"], TorusLink(p, chir * q), row.get("jones_polynomial", ""),
                                  row.get("homfly_polynomial", ""), row.get("alexander_polynomial", ""),
-                                 row.get("conway_polynomial", ""), "t", row.get("braid_notation", "")))
+                                 row.get("conway_polynomial", ""), "t", row.get("braid_notation", ""),
+                                 row.get("kauffman_polynomial", "") or ""))
     links = mod.link_list(proper_links=True)
     for row in links[1:]:
         m = _BRAID_LINK.match((row.get("braid_notation") or "").strip())
@@ -166,7 +168,8 @@ def torus_entries() -> tuple[KnotInfoEntry, ...]:
             continue
         out.append(KnotInfoEntry(row["name"], tl, row.get("jones_polynomial", ""),
                                  row.get("homflypt_polynomial", ""), "",
-                                 row.get("conway_polynomial", ""), "x", row.get("braid_notation", "")))
+                                 row.get("conway_polynomial", ""), "x", row.get("braid_notation", ""),
+                                 row.get("kauffman_polynomial", "") or ""))
     return tuple(out)
 
 

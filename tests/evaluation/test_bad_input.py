@@ -96,7 +96,11 @@ CLI_CASES = [
     (["loop", "T(2,3)", "--rep", "[1.5]"], ["[1.5]"]),
     (["loop", "T(2,3)", "--rep", "[2,x]"], ["[2,x]"]),
     (["loop", "T(2,3)", "--group", "SU(2)", "--rep", "[1,1,1]"], ["[1, 1, 1]", "SU(2)"]),
-    (["loop", "T(2,3)", "--group", "SO(3)"], ["SO(3)"]),
+    (["loop", "T(2,3)", "--group", "SO(2)"], ["SO(2)"]),          # SO(3) is accepted since issue #13
+    (["loop", "T(2,3)", "--group", "SU(2"], ["'SU(2'"]),
+    (["loop", "T(2,3)", "--group", "Sp(3)"], ["Sp(3)"]),
+    (["loop", "T(2,3)", "--group", "G2", "--rep", "[1]"], ["partition"]),
+    (["loop", "T(4,6)", "--group", "SO(5)", "--rep", "[1];[1];[1]"], ["3 representations"]),
     (["loop", "T(2,3)", "--group", "U(0)"], ["U(0)"]),
     (["loop", "trefoil"], ["trefoil"]),
     (["loop", "T(2,3", "--json"], ["T(2,3"]),

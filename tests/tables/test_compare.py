@@ -134,4 +134,6 @@ def test_bad_input():
     with pytest.raises(ParseError, match="both 'a' and 'v'"):
         compare("T(2,3)", "a + v")
     with pytest.raises(KnotobsError, match="unknown invariant"):
-        compare("T(2,3)", "t", invariant="kauffman")
+        compare("T(2,3)", "t", invariant="bracket")
+    with pytest.raises(ParseError, match="Kauffman polynomial is written in a and z"):
+        compare("T(2,3)", "t", invariant="kauffman")          # known since issue #13
