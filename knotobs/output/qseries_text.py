@@ -1,0 +1,73 @@
+"""Text and JSON forms of the q-series invariants (CONVENTIONS §13)."""
+
+from __future__ import annotations
+
+from fractions import Fraction
+from typing import Any
+
+__all__ = ["series_string", "qseries_text", "qseries_json"]
+
+
+def _mono(c: int, k: int) -> str:
+    if k == 0:
+        return str(abs(c))
+    body = "q" if k == 1 else f"q^{k}"
+    return body if abs(c) == 1 else f"{abs(c)}*{body}"
+
+
+def series_string(z, max_terms: int | None = None) -> str:
+    """``q^(D) (c_0 + c_1 q + ...)`` of a :class:`~knotobs.qseries.zhat.QSeries`.
+
+    >>> from knotobs.qseries.zhat import zhat
+    >>> series_string(zhat("Sigma(2,3,5)", order=8))
+    'q^(-3/2) * (1 - q - q^3 - q^7 + q^8 + O(q^9))'
+    """
+    parts = []
+    for k, c in enumerate(z.coefficients):
+        if not c:
+            continue
+        m = _mono(c, k)
+        if not parts:
+            parts.append(("-" if c < 0 else "") + m)
+        else:
+            parts.append(("- " if c < 0 else "+ ") + m)
+        if max_terms is not None and len(parts) >= max_terms:
+            parts.append("+ ...")
+            break
+    body = " ".join(parts) if parts else "0"
+    body += f" + O(q^{z.order + 1})"
+    pre = Fraction(z.prefactor)
+    pre_s = "" if pre == 0 else (f"q^({pre}) * " if pre.denominator != 1 or pre < 0 else f"q^{pre} * ")
+    den = f"(1/{z.denominator}) * " if z.denominator != 1 else ""
+    return f"{pre_s}{den}({body})"
+
+
+def qseries_text(series: list, title: str) -> str:
+    """Readable block: one line per label, then the conventions."""
+    lines = [title, ""]
+    for z in series:
+        tag = f"label {z.label.index} = {z.label}"
+        lines.append(f"  {tag}")
+        lines.append(f"    Zhat = {series_string(z, max_terms=40)}")
+    z0 = series[0]
+    lines += [
+        "",
+        f"  plumbing       {z0.plumbing}  ({z0.label_count} label(s), b ~ -b identified)",
+        f"  orientation    {z0.orientation}",
+        f"  normalization  {z0.normalization}",
+        f"  route          {z0.route}",
+    ]
+    return "\n".join(lines)
+
+
+def qseries_json(series: list, inputs: dict[str, Any]) -> dict[str, Any]:
+    """One label: its fields at the top level; several: ``{"labels": [...]}`` plus shared fields."""
+    if len(series) == 1:
+        out = {"quantity": "qseries"}
+        out.update(series[0].to_json())
+        out["inputs"] = inputs
+        return out
+    out = {"quantity": "qseries", "space": series[0].space, "plumbing": series[0].plumbing,
+           "orientation": series[0].orientation, "labels": [z.to_json() for z in series],
+           "inputs": inputs}
+    return out
