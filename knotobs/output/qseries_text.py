@@ -16,9 +16,9 @@ def _mono(c: int, k: int) -> str:
 
 
 def series_string(z, max_terms: int | None = None) -> str:
-    """``q^(D) (c_0 + c_1 q + ...)`` of a :class:`~knotobs.qseries.zhat.QSeries`.
+    """``q^(D) (c_0 + c_1 q + ...)`` of a :class:`~knotobs.qseries.series.QSeries`.
 
-    >>> from knotobs.qseries.zhat import zhat
+    >>> from knotobs.qseries.series import zhat
     >>> series_string(zhat("Sigma(2,3,5)", order=8))
     'q^(-3/2) * (1 - q - q^3 - q^7 + q^8 + O(q^9))'
     """
@@ -71,3 +71,29 @@ def qseries_json(series: list, inputs: dict[str, Any]) -> dict[str, Any]:
            "orientation": series[0].orientation, "labels": [z.to_json() for z in series],
            "inputs": inputs}
     return out
+
+
+_S = {"type": "string"}
+_I = {"type": "integer"}
+_ONE = {
+    "type": "object",
+    "properties": {
+        "quantity": {"type": "string", "enum": ["qseries"]},
+        "space": _S, "plumbing": _S,
+        "label": {"type": "string", "description": "canonical vector of the label (b ~ -b)"},
+        "label_index": _I, "label_count": _I,
+        "prefactor_exponent": {"type": "string", "description": "exact power of q in front, a fraction"},
+        "coefficients": {"type": "array", "items": _I,
+                         "description": "integers from q^0 after the prefactor, divided by denominator"},
+        "denominator": _I, "order": _I, "orientation": _S, "normalization": _S, "route": _S,
+        "inputs": {"type": "object"},
+    },
+    "required": ["space", "label", "prefactor_exponent", "coefficients", "denominator", "orientation"],
+}
+#: JSON schema of ``knotobs qseries --json`` (one label; ``--label all`` gives ``{"labels": [...]}``).
+QSERIES_SCHEMA = {
+    "$id": "knotobs/qseries/1",
+    "type": "object",
+    "properties": dict(_ONE["properties"], labels={"type": "array", "items": _ONE}),
+    "required": ["quantity", "space", "orientation"],
+}

@@ -5,7 +5,7 @@ One concept per module:
 * :mod:`knotobs.qseries.plumbing` -- weighted plumbing trees, their text form ``Plumb(...)``,
   the star plumbing of a Seifert manifold;
 * :mod:`knotobs.qseries.labels` -- the labels ``b`` (spin^c structures up to conjugation);
-* :mod:`knotobs.qseries.zhat` -- the lattice sum (the plumbing route);
+* :mod:`knotobs.qseries.series` -- the lattice sum (the plumbing route);
 * :mod:`knotobs.qseries.seifert_sum` -- the closed one-variable sum from the Seifert invariants
   (the second route);
 * :mod:`knotobs.qseries.radial` -- radial limits and the finite-level SU(2) invariant.
@@ -16,7 +16,7 @@ The Brieskorn-sphere false theta functions of Lawrence–Zagier and Hikami stay 
 
 from knotobs.qseries.labels import Label, LabelSystem, label_system
 from knotobs.qseries.plumbing import PlumbingGraph, parse_plumbing, plumbing_of, star_plumbing
-from knotobs.qseries.zhat import QSeries, zhat, zhat_all
+from knotobs.qseries.series import QSeries, zhat, zhat_all
 
 __all__ = [
     "Label",

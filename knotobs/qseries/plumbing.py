@@ -5,7 +5,7 @@ linking matrix ``B`` has ``B_vv = w_v`` and ``B_uv = 1`` for every edge ``u - v`
 plumbed 3-manifold ``M(Gamma)`` is the boundary of the plumbed 4-manifold, i.e. integral
 surgery on the link of unknots (one per vertex, framing ``w_v``, Hopf-linked along edges)
 with linking matrix ``B`` (common practice: W. D. Neumann, Trans. AMS 268 (1981) 299–344).
-The q-series of :mod:`knotobs.qseries.zhat` need ``B`` negative definite (CONVENTIONS §13).
+The q-series of :mod:`knotobs.qseries.series` need ``B`` negative definite (CONVENTIONS §13).
 
 Text form (our own)
 -------------------

@@ -3,7 +3,7 @@ r"""Radial limits of ``Zhat_b(q)`` at roots of unity and the finite-level SU(2) 
 Radial limit
 ------------
 For a plumbing with at most one vertex of degree ``d >= 3`` (lens spaces: chains; Seifert
-manifolds: stars), :mod:`knotobs.qseries.zhat` writes ``Zhat_b`` as a finite sum plus pieces
+manifolds: stars), :mod:`knotobs.qseries.series` writes ``Zhat_b`` as a finite sum plus pieces
 
     ``q^C sum_{N >= 1, N = N_0 mod kappa} R(N) q^(N^2/(4 a D))``
 
@@ -33,6 +33,13 @@ Expanding the surgery formula of CONVENTIONS §9 for the plumbing, extending eve
 expansion of the vertex factors may be used at the root of unity is the theorem of Y. Murakami,
 arXiv:2302.13526 (the conjecture of Gukov–Pei–Putrov–Vafa); the phases and the constant were
 derived here and are tested against the independent surgery route for many ``K``.
+
+Known limit: when a vertex has degree ``>= 4`` the coefficients grow polynomially and single
+``Zhat_b`` may diverge like ``tau^-1`` at ``q = xi e^-tau``.  Usually these divergences cancel in
+the combination above (e.g. ``Sigma(2,3,5,7)``, ``M(0; 0; (2,1),(3,1),(5,1),(7,1))``, checked);
+for some manifolds with repeated orders (``M(0; -1; (2,1),(2,1),(2,1),(2,1))``) they do not cancel
+with the prescription used here, and :func:`finite_level_from_qseries` refuses instead of giving
+a number.
 """
 
 from __future__ import annotations
@@ -43,7 +50,7 @@ from fractions import Fraction
 from knotobs.errors import KnotobsError, PrecisionError, SizeLimitError
 from knotobs.guard import require, seconds_for
 from knotobs.numerics import local_mp
-from knotobs.qseries.zhat import PlumbingLattice, _vertex_int
+from knotobs.qseries.series import PlumbingLattice, _vertex_int
 from knotobs.qseries.plumbing import plumbing_of
 
 __all__ = ["radial_limit", "radial_limits", "finite_level_from_qseries"]
@@ -82,7 +89,7 @@ def _limit(lat: PlumbingLattice, b, K: int, dps: int):
         total = ctx.mpc(0)
         for nm, c in lat.terms(b, 10**30):
             total += c * xi_pow(lat.base_exponent + Fraction(nm, lat.D))
-        return total
+        return total, {}
     if len(lat.high) > 1:
         raise KnotobsError(
             f"{lat.graph}: radial limits are implemented for plumbings with at most one vertex of"
@@ -95,7 +102,7 @@ def _limit(lat: PlumbingLattice, b, K: int, dps: int):
     scale = 4 * a * D
     col = [adj[i][v0] for i in range(s)]
     adj_b = [sum(adj[i][j] * b[j] for j in range(s)) for i in range(s)]
-    from knotobs.qseries.zhat import _solve_congruence
+    from knotobs.qseries.series import _solve_congruence
 
     const = None
     sing = {}
@@ -155,13 +162,28 @@ def _limit(lat: PlumbingLattice, b, K: int, dps: int):
                     reg -= _poly_val(ctx, poly, Nn) * xi_pow(Fraction(Nn * Nn, scale))
                     Nn -= kappa
     if const is None:
-        return ctx.mpc(0)
-    tol = ctx.mpf(10) ** (-(dps - 8))
+        return ctx.mpc(0), {}
+    E = lat.base_exponent + const
+    ph = xi_pow(E)
+    # singular part: sum_j S_j tau^(-(j+1)/2) with S_j = sing_j Gamma((j+1)/2)/2 scale^((j+1)/2),
+    # all multiplied by q^E = xi^E e^(-tau E); the tau^0 part of e^(-tau E) S_j tau^(-(j+1)/2)
+    # adds S_j (-E)^k/k! when (j+1)/2 = k is an integer.
+    Ef = ctx.mpf(E.numerator) / E.denominator
+    S = {}
     for j, sj in sing.items():
-        if abs(sj) > tol:
-            raise KnotobsError(  # pragma: no cover - the limit exists (Murakami 2023)
-                f"the singular part of order tau^-{j + 1}/2 does not cancel ({ctx.nstr(sj, 5)})")
-    return reg * xi_pow(lat.base_exponent + const)
+        S[j] = sj * ctx.gamma(ctx.mpf(j + 1) / 2) / 2 * ctx.mpf(scale) ** (ctx.mpf(j + 1) / 2)
+        if (j + 1) % 2 == 0:
+            k = (j + 1) // 2
+            reg += S[j] * (-Ef) ** k / ctx.factorial(k)
+    # singular orders tau^(-m/2), m >= 1, including the e^(-tau E) cross terms
+    orders = {}
+    for j, Sj in S.items():
+        k = 0
+        while j + 1 - 2 * k >= 1:
+            m = j + 1 - 2 * k
+            orders[m] = orders.get(m, 0) + ph * Sj * (-Ef) ** k / ctx.factorial(k)
+            k += 1
+    return reg * ph, orders
 
 
 def _poly_val(ctx, poly, N):
@@ -203,7 +225,19 @@ def radial_limit(space, label, K: int, digits: int = 30):
     lat = PlumbingLattice(g)
     lab = lat.labels.find(label)
     _guard(lat, K)
-    return _checked(lambda dps: _limit(lat, lab.vector, K, dps), digits)
+    return _checked(lambda dps: _convergent(_limit(lat, lab.vector, K, dps), dps, lab), digits)
+
+
+def _convergent(pair, dps, lab):
+    val, orders = pair
+    tol = local_mp(dps).mpf(10) ** (-(dps - 10))
+    for m, c in sorted(orders.items(), reverse=True):
+        if abs(c) > tol * max(1, abs(val)):
+            raise KnotobsError(
+                f"the radial limit of Zhat_b for label {lab} diverges like tau^(-{m}/2) as q -> xi e^-tau"
+                " (an Eichler integral of a theta function with non-zero mean); only the combination"
+                " over all labels that gives the finite-level value has a limit")
+    return val
 
 
 def radial_limits(space, K: int, digits: int = 30) -> dict:
@@ -212,11 +246,15 @@ def radial_limits(space, K: int, digits: int = 30) -> dict:
     g, _ = plumbing_of(space)
     lat = PlumbingLattice(g)
     _guard(lat, K)
-    return {lab: _checked(lambda dps, lab=lab: _limit(lat, lab.vector, K, dps), digits)
+    return {lab: _checked(lambda dps, lab=lab: _convergent(_limit(lat, lab.vector, K, dps), dps, lab), digits)
             for lab in lat.labels.labels}
 
 
 def _guard(lat: PlumbingLattice, K: int) -> None:
+    if len(lat.high) > 1:
+        raise KnotobsError(
+            f"{lat.graph}: radial limits are implemented for plumbings with at most one vertex of"
+            f" degree >= 3 (this one has {len(lat.high)}); the q-series itself is available")
     n = abs(lat.det)
     ops = n * (2 ** len(lat.leaves)) * 8 * K * max(1, len(lat.high)) * 20 + n * n * lat.s
     require(f"radial limits at K = {K} ({n} labels)", seconds=seconds_for(ops, "ball"),
@@ -247,23 +285,36 @@ def finite_level_from_qseries(space, K: int, digits: int = 30):
         ctx = local_mp(dps)
         lims = []
         for lab in lat.labels.labels:
-            val = _limit(lat, lab.vector, K, dps)
+            val, orders = _limit(lat, lab.vector, K, dps)
             for beta in lat.labels.class_representatives(lab):
-                lims.append((beta, val))
+                lims.append((beta, val, orders))
         det, adj, s = lat.det, lat.adj, lat.s
         hb = lat.labels._hb
         from itertools import product
 
         total = ctx.mpc(0)
+        worst = ctx.mpf(0)
         for y in product(*[range(hb[i][i]) for i in range(s)]):
             ay = [sum(adj[i][j] * y[j] for j in range(s)) for i in range(s)]
             yy = sum(y[i] * ay[i] for i in range(s))
             ph0 = _frac_phase(ctx, Fraction(-K * yy, det))
             inner = ctx.mpc(0)
-            for beta, val in lims:
+            sing: dict = {}
+            for beta, val, orders in lims:
                 yb = sum(ay[i] * beta[i] for i in range(s))
-                inner += _frac_phase(ctx, Fraction(-yb, det)) * val
+                w = _frac_phase(ctx, Fraction(-yb, det))
+                inner += w * val
+                for m, c in orders.items():
+                    sing[m] = sing.get(m, 0) + w * c
             total += ph0 * inner
+            for c in sing.values():
+                worst = max(worst, abs(c))
+        if worst > ctx.mpf(10) ** (-(dps - 10)) * max(1, abs(total)):
+            raise KnotobsError(
+                f"{lat.graph}: at K = {K} the Zhat_b grow like a negative power of tau as q -> xi e^-tau and"
+                f" the divergences do not cancel in the finite-level combination (size {ctx.nstr(worst, 5)});"
+                " knotobs gives no finite-level value from the q-series here (seen for four or more fibers"
+                " with repeated orders, e.g. M(0; -1; (2,1),(2,1),(2,1),(2,1))); use knotobs space SPACE --level k")
         return total / (2j * ctx.sqrt(2 * K) * ctx.sqrt(abs(det)))
 
     return _checked(f, digits)

@@ -49,7 +49,7 @@ from knotobs.guard import require, seconds_for
 from knotobs.qseries.labels import Label, LabelSystem
 from knotobs.qseries.plumbing import PlumbingGraph, plumbing_of
 
-__all__ = ["QSeries", "PlumbingLattice", "zhat", "zhat_all", "vertex_coefficient", "MAX_ORDER"]
+__all__ = ["QSeries", "PlumbingLattice", "zhat", "zhat_all", "qseries_for", "vertex_coefficient", "MAX_ORDER"]
 
 #: Largest truncation order accepted.
 MAX_ORDER = 10**6
@@ -211,6 +211,24 @@ class PlumbingLattice:
                     if nm <= cut:
                         yield nm, cout * cv
                 x += m
+
+    def class_has_support(self, b) -> bool:
+        """Whether some ``n`` in ``b + 2BZ^s`` has the shape of the support (leaf signs fixed).
+
+        Exact for at most one vertex of degree ``>= 3`` (the congruence for it is solved);
+        with more such vertices ``True`` (the enumeration then decides).
+        """
+        if len(self.high) != 1:
+            return True
+        adj, s = self.adj, self.s
+        v0 = self.high[0]
+        col = [adj[i][v0] for i in range(s)]
+        adj_b = [sum(adj[i][j] * b[j] for j in range(s)) for i in range(s)]
+        for fixed, _ in self._fixed_choices():
+            y0 = [sum(adj[i][u] * x for u, x in fixed.items()) - adj_b[i] for i in range(s)]
+            if _solve_congruence(col, y0, self.M) is not None:
+                return True
+        return False
 
     def minimum_estimate(self) -> int:
         """A lower bound of ``D Q(n)`` over every ``n`` in the support (any class)."""
@@ -396,11 +414,12 @@ def _series(lat: PlumbingLattice, lab: Label, order: int, route_text: str, space
     # the lowest exponent in the support of this class
     step = lat.D
     lead = None
-    while lead is None:
+    empty = not lat.class_has_support(b)
+    while lead is None and not empty:
         nums = [nm for nm, _ in lat.terms(b, base + step)]
         if nums:
             lead = min(nums)
-        elif not lat.high:
+        elif not lat.high or step > lat.D * 10**12:
             break
         else:
             step *= 2
@@ -497,3 +516,16 @@ def zhat_all(space, order: int = 20) -> list[QSeries]:
     g, text = plumbing_of(space)
     lat = PlumbingLattice(g)
     return [_series(lat, lab, order, "plumbing lattice sum", text) for lab in lat.labels.labels]
+
+
+def qseries_for(space, label=None, order: int = 20) -> list[QSeries]:
+    """The series asked for on the command line: label ``0`` by default, one label, or ``"all"``.
+
+    >>> [z.label.index for z in qseries_for("L(5,2)", "all", 3)]
+    [0, 1, 2]
+    >>> qseries_for("Sigma(2,3,5)", None, 3)[0].coefficients
+    (1, -1, 0, -1)
+    """
+    if isinstance(label, str) and label.strip().lower() == "all":
+        return zhat_all(space, order)
+    return [zhat(space, 0 if label is None else label, order)]
