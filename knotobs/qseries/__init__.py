@@ -8,7 +8,8 @@ One concept per module:
 * :mod:`knotobs.qseries.series` -- the lattice sum (the plumbing route);
 * :mod:`knotobs.qseries.seifert_sum` -- the closed one-variable sum from the Seifert invariants
   (the second route);
-* :mod:`knotobs.qseries.radial` -- radial limits and the finite-level SU(2) invariant.
+* :mod:`knotobs.qseries.radial` -- radial limits and the finite-level SU(2) invariant;
+* :mod:`knotobs.qseries.knot_complement` -- the two-variable series F_K(x, q) of torus knots.
 
 The Brieskorn-sphere false theta functions of Lawrence–Zagier and Hikami stay in
 :mod:`knotobs.continuation.qseries` (importable from there as before).
