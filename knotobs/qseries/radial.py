@@ -56,10 +56,11 @@ from knotobs.qseries.plumbing import plumbing_of
 __all__ = ["radial_limit", "radial_limits", "finite_level_from_qseries"]
 
 
-def _poly_in_N(d: int, a: int, shift: int, sign_x: int) -> list[Fraction]:
-    """Coefficients (in ``N``) of ``binom((y + d - 4)/2, d - 3)`` with ``y = (sign_x * N - ... )``.
+def _poly_in_N(d: int, a: int, shift: int) -> list[Fraction]:
+    """Coefficients (in ``N``) of ``binom((y + d - 4)/2, d - 3)`` with ``y = (N + shift)/(2a)``.
 
-    ``y = (N + shift)/(2a)`` where ``N`` is the Gaussian variable on that side.
+    ``y = |x| >= 1`` is the value at the vertex of degree ``d`` and ``N`` the Gaussian variable
+    on that side of ``x = 0``.
     """
     # P(y) = prod_{k=0}^{d-4} ((y + d - 4)/2 - k) / (d-3)!
     poly = [Fraction(1)]
@@ -125,7 +126,7 @@ def _limit(lat: PlumbingLattice, b, K: int, dps: int):
             sx = 1 if side < 0 else (-1) ** d          # s_d(x)
             coef = Fraction(cfix * sx, 2)
             shift = -side * bb                           # y = (N + shift)/(2a)
-            poly = [coef * p for p in _poly_in_N(d, a, shift, side)]
+            poly = [coef * p for p in _poly_in_N(d, a, shift)]
             # y = side*x = r' mod m with r' = side*r; first y >= 1
             rp = (side * r) % m
             y1 = rp if rp >= 1 else rp + m

@@ -187,7 +187,6 @@ class PlumbingLattice:
                 continue
             r, m = ap
             # coefficient of the outer high vertices
-    
             cout = cfix
             for k, x in enumerate(outer, start=1):
                 cout *= _vertex_int(self.deg[H[k]], x)
@@ -425,9 +424,8 @@ def _series(lat: PlumbingLattice, lab: Label, order: int, route_text: str, space
             step *= 2
     h = len(lat.high)
     if lead is None:           # a class with no terms at all: Zhat_b = 0
-        coeffs = [0] * (order + 1)
         return QSeries(space, str(lat.graph), lab, len(lat.labels.labels), lat.base_exponent,
-                       tuple(coeffs), 1, order, _ORIENT, route_text, details={"empty": True})
+                       (0,) * (order + 1), 1, order, _ORIENT, route_text, details={"empty": True})
     extra = 0
     while True:
         acc: dict[int, int] = {}
@@ -442,20 +440,12 @@ def _series(lat: PlumbingLattice, lab: Label, order: int, route_text: str, space
             break
         extra = first
     shift = first or 0
-    if first is None:
-        shift = 0
     coeffs = [acc.get(k + shift, 0) for k in range(order + 1)]
-    g = 0
-    for c in coeffs:
-        g = math.gcd(g, c)
+    # the printed coefficients are integers over the smallest power of two that makes them so
     den = 2 ** h
-    while den > 1 and g % 2 == 0 and den % 2 == 0:
-        if all(c % 2 == 0 for c in coeffs):
-            coeffs = [c // 2 for c in coeffs]
-            den //= 2
-            g //= 2
-        else:
-            break
+    while den > 1 and all(c % 2 == 0 for c in coeffs):
+        coeffs = [c // 2 for c in coeffs]
+        den //= 2
     pref = lat.base_exponent + Fraction(lead, lat.D) + shift
     return QSeries(space, str(lat.graph), lab, len(lat.labels.labels), pref, tuple(coeffs), den,
                    order, _ORIENT, route_text)

@@ -23,7 +23,11 @@ def test_json_fields_for_sigma_237():
     validate(d, "qseries")
     assert d["prefactor_exponent"] == "1/2"
     assert d["coefficients"] == [1, -1, 0, 0, 0, -1, 0, 0, 0, 0, 1, -1]       # GPPV
-    assert d["label"] == "(1,0,1,0,1,1,1,0,0,0,1)" or d["label"].startswith("(")
+    assert d["label_index"] == 0 and d["label_count"] == 1
+    # the star plumbing of Sigma(2,3,7) = M(0; 1; (2,-1), (3,-1), (7,-1)): centre -1, legs -2, -3, -7;
+    # delta = degrees mod 2 = (1,1,1,1) is the only label of a homology sphere
+    assert d["plumbing"] == "Plumb(-1,-2,-3,-7 : 1-2, 1-3, 1-4)"
+    assert (d["label"], d["label_index"], d["label_count"]) == ("(1,1,1,1)", 0, 1)
     assert "negative definite" in d["orientation"]
 
 

@@ -124,6 +124,37 @@ def test_blow_up_leaves_zhat_unchanged():
     assert a == b
 
 
+def _leaf_blow_up(g, v):
+    """Attach a -1 leaf to vertex v, whose weight drops by 1 (Neumann move; keeps M and definiteness)."""
+    w = list(g.weights)
+    w[v] -= 1
+    w.append(-1)
+    return type(g)(tuple(w), g.edges + ((v, len(w) - 1),))
+
+
+@pytest.mark.parametrize("seq", [(1,), (2,), (1, 4), (1, 3, 5)])
+def test_leaf_blow_ups_with_several_high_degree_vertices(seq):
+    # Attaching -1 leaves to degree-2 vertices of E8 creates vertices of degree 3 and 4 (up to four of
+    # degree >= 3): the Fincke-Pohst enumeration in several variables and the 2^-h symmetric expansion
+    # must still give the Poincare-sphere series (GPPV: invariance under the moves).
+    g = parse_plumbing(E8)
+    ref = zhat(g, order=40)
+    h = g
+    for v in seq:
+        h = _leaf_blow_up(h, v)
+    z = zhat(h, order=40)
+    assert (z.prefactor, z.coefficients, z.denominator) == (ref.prefactor, ref.coefficients, 1)
+
+
+def test_leaf_blow_up_of_a_lens_space_chain_keeps_every_label():
+    # L(17,?) chain; the blown-up tree has a vertex of degree 3.  Labels are numbered per plumbing,
+    # so the non-zero series are compared as a multiset.
+    c = parse_plumbing("Plumb(-3,-2,-4 : 1-2, 2-3)")
+    nz = lambda zs: sorted((z.prefactor, z.coefficients) for z in zs if any(z.coefficients))  # noqa: E731
+    a = nz(zhat_all(c, 10))
+    assert a and a == nz(zhat_all(_leaf_blow_up(c, 1), 10))
+
+
 SEIFERT_CASES = [
     "Sigma(2,3,5)", "Sigma(2,3,7)", "Sigma(3,4,5)", "Sigma(2,3,5,7)",
     "L(5,2)", "L(7,1)", "L(12,5)", "L(9,2)",
