@@ -17,7 +17,10 @@ common to all pieces (checked).  With ``q = xi e^(-tau)``, ``xi = exp(2 pi i/K)`
 (B = Bernoulli polynomials; R. Lawrence and D. Zagier, Asian J. Math. 3 (1999) 93–107, §1, for
 ``j = 0``; the same Mellin argument for every ``j``).  The singular parts of all pieces must
 cancel (they are checked to cancel to the working precision), and the radial limit is
-``xi^C`` times the sum of the ``L``-values and the finite terms.
+``xi^C`` times the sum of the ``L``-values and the finite terms.  Every ingredient is an exact
+rational multiple of a root of unity (Bernoulli polynomials at rational points), so the limit
+is assembled exactly as a rational combination of roots of unity and only evaluated at the end,
+at two precisions that must agree.
 
 Finite level
 ------------
@@ -77,37 +80,67 @@ def _poly_in_N(d: int, a: int, shift: int) -> list[Fraction]:
     return [p / f for p in poly]
 
 
-def _frac_phase(ctx, x: Fraction):
-    """``exp(2 pi i x)`` with ``x`` reduced mod 1 exactly."""
-    x = x - math.floor(x)
-    return ctx.expjpi(2 * ctx.mpf(x.numerator) / x.denominator)
+_BERN: dict[int, list[Fraction]] = {}
 
 
-def _limit(lat: PlumbingLattice, b, K: int, dps: int):
-    ctx = local_mp(dps)
-    xi_pow = lambda e: _frac_phase(ctx, Fraction(e) / K)  # noqa: E731  xi^e
+def _bernoulli_poly(n: int) -> list[Fraction]:
+    """Coefficients of the Bernoulli polynomial ``B_n(x)`` (lowest degree first), exact."""
+    if n not in _BERN:
+        B = [Fraction(1)]
+        for m in range(1, n + 1):
+            B.append(-sum(math.comb(m + 1, k) * B[k] for k in range(m)) / (m + 1))
+        _BERN[n] = [math.comb(n, k) * B[n - k] for k in range(n + 1)]   # coefficient of x^k
+    return _BERN[n]
+
+
+def _add(dct: dict, key: Fraction, val: Fraction) -> None:
+    key = key - math.floor(key)
+    dct[key] = dct.get(key, 0) + val
+
+
+class _Limit:
+    """Exact data of one radial limit: ``sum coef e^(2 pi i key)`` (regularised finite part) and,
+    per singular order ``tau^(-m/2)``, a rational combination of phases (times a common non-zero
+    constant ``Gamma((m+1)/2) scale^((m+1)/2)/2``)."""
+
+    def __init__(self, finite: dict, orders: dict):
+        self.finite = {k: v for k, v in finite.items() if v}
+        self.orders = {m: {k: v for k, v in d.items() if v} for m, d in orders.items()}
+        self.orders = {m: d for m, d in self.orders.items() if d}
+
+    @staticmethod
+    def value(ctx, dct: dict, cache: dict):
+        tot = ctx.mpc(0)
+        for k, c in dct.items():
+            ph = cache.get(k)
+            if ph is None:
+                ph = cache[k] = ctx.expjpi(2 * ctx.mpf(k.numerator) / k.denominator)
+            tot += ph * (ctx.mpf(c.numerator) / c.denominator)
+        return tot
+
+
+def _limit(lat: PlumbingLattice, b, K: int) -> _Limit:
+    key = lambda e: Fraction(e) / K  # noqa: E731  xi^e = exp(2 pi i key)
+    finite: dict = {}
     if not lat.high:
-        total = ctx.mpc(0)
         for nm, c in lat.terms(b, 10**30):
-            total += c * xi_pow(lat.base_exponent + Fraction(nm, lat.D))
-        return total, {}
+            _add(finite, key(lat.base_exponent + Fraction(nm, lat.D)), Fraction(c))
+        return _Limit(finite, {})
     if len(lat.high) > 1:
         raise KnotobsError(
             f"{lat.graph}: radial limits are implemented for plumbings with at most one vertex of"
             f" degree >= 3 (this one has {len(lat.high)}); the q-series itself is available")
+    from knotobs.qseries.series import _solve_congruence
+
     v0 = lat.high[0]
     d = lat.deg[v0]
     adj, s, sgn, M = lat.adj, lat.s, lat.sgn, lat.M
     a = -sgn * adj[v0][v0]
-    D = lat.D
-    scale = 4 * a * D
+    scale = 4 * a * lat.D
     col = [adj[i][v0] for i in range(s)]
     adj_b = [sum(adj[i][j] * b[j] for j in range(s)) for i in range(s)]
-    from knotobs.qseries.series import _solve_congruence
-
     const = None
-    sing = {}
-    reg = ctx.mpc(0)
+    mean: dict[int, dict] = {}
     for fixed, cfix in lat._fixed_choices():
         y0 = [sum(adj[i][u] * x for u, x in fixed.items()) - adj_b[i] for i in range(s)]
         ap = _solve_congruence(col, y0, M)
@@ -115,8 +148,7 @@ def _limit(lat: PlumbingLattice, b, K: int, dps: int):
             continue
         r, m = ap
         bb = 2 * sum(-sgn * adj[v0][u] * x for u, x in fixed.items())
-        cc = lat.num(fixed)
-        C = Fraction(4 * a * cc - bb * bb, scale)
+        C = Fraction(4 * a * lat.num(fixed) - bb * bb, scale)
         if const is None:
             const = C
         elif C != const:  # pragma: no cover - a star plumbing has one constant
@@ -125,70 +157,60 @@ def _limit(lat: PlumbingLattice, b, K: int, dps: int):
             # x = side * y, y >= 1; N = side * (2 a x + bb) = 2 a y + side * bb
             sx = 1 if side < 0 else (-1) ** d          # s_d(x)
             coef = Fraction(cfix * sx, 2)
-            shift = -side * bb                           # y = (N + shift)/(2a)
-            poly = [coef * p for p in _poly_in_N(d, a, shift)]
-            # y = side*x = r' mod m with r' = side*r; first y >= 1
+            poly = [coef * c for c in _poly_in_N(d, a, -side * bb)]
             rp = (side * r) % m
             y1 = rp if rp >= 1 else rp + m
             kappa = 2 * a * m
             N0 = 2 * a * y1 + side * bb
-            # psi(N) = [N = N0 mod kappa] xi^(N^2/scale); period in t (N = N0 + kappa t):
+            # psi(N) = [N = N0 mod kappa] xi^(N^2/scale), period p = kappa T in N
             u = Fraction(kappa * kappa, scale)
             v = Fraction(2 * N0 * kappa, scale)
-            L0 = math.lcm(u.denominator, v.denominator)
-            T = 2 * K * L0
+            T = 2 * K * math.lcm(u.denominator, v.denominator)
             p = kappa * T
             n_start = N0 % kappa or kappa
-            res = [(n_start + kappa * t) for t in range(T)]            # r in 1..p
-            vals = [xi_pow(Fraction(rr * rr, scale)) for rr in res]
+            res = [n_start + kappa * t for t in range(T)]            # the r in 1..p with psi(r) != 0
+            keys = [key(Fraction(rr * rr, scale)) for rr in res]
             for j, rho in enumerate(poly):
                 if not rho:
                     continue
-                Lv = ctx.mpc(0)
-                for rr, ps in zip(res, vals):
-                    Lv += ps * ctx.bernpoly(j + 1, ctx.mpf(rr) / p)
-                Lv *= -ctx.mpf(p) ** j / (j + 1)
-                reg += rho * Lv if rho.denominator == 1 else (ctx.mpf(rho.numerator) / rho.denominator) * Lv
-                mean = ctx.fsum(vals) / p
-                sing[j] = sing.get(j, 0) + ctx.mpf(rho.numerator) / rho.denominator * mean
+                bern = _bernoulli_poly(j + 1)
+                f = -rho * Fraction(p) ** j / (j + 1)
+                for rr, kk in zip(res, keys):
+                    x = Fraction(rr, p)
+                    _add(finite, kk, f * sum(c * x ** i for i, c in enumerate(bern)))
+                    _add(mean.setdefault(j, {}), kk, rho / p)
             # finite corrections: the sum runs over N >= N0, the L-value over N >= 1 (same class)
-            if N0 <= 0:
-                Nn = N0
-                while Nn <= 0:
-                    reg += _poly_val(ctx, poly, Nn) * xi_pow(Fraction(Nn * Nn, scale))
-                    Nn += kappa
-            else:
-                Nn = N0 - kappa
-                while Nn >= 1:
-                    reg -= _poly_val(ctx, poly, Nn) * xi_pow(Fraction(Nn * Nn, scale))
-                    Nn -= kappa
+            Nn, stop, sign, step = (N0, 0, 1, kappa) if N0 <= 0 else (N0 - kappa, 1, -1, -kappa)
+            while (Nn <= stop) if N0 <= 0 else (Nn >= stop):
+                val = sum(c * Fraction(Nn) ** i for i, c in enumerate(poly))
+                _add(finite, key(Fraction(Nn * Nn, scale)), sign * val)
+                Nn += step
     if const is None:
-        return ctx.mpc(0), {}
+        return _Limit({}, {})
     E = lat.base_exponent + const
-    ph = xi_pow(E)
-    # singular part: sum_j S_j tau^(-(j+1)/2) with S_j = sing_j Gamma((j+1)/2)/2 scale^((j+1)/2),
-    # all multiplied by q^E = xi^E e^(-tau E); the tau^0 part of e^(-tau E) S_j tau^(-(j+1)/2)
-    # adds S_j (-E)^k/k! when (j+1)/2 = k is an integer.
-    Ef = ctx.mpf(E.numerator) / E.denominator
-    S = {}
-    for j, sj in sing.items():
-        S[j] = sj * ctx.gamma(ctx.mpf(j + 1) / 2) / 2 * ctx.mpf(scale) ** (ctx.mpf(j + 1) / 2)
-        if (j + 1) % 2 == 0:
-            k = (j + 1) // 2
-            reg += S[j] * (-Ef) ** k / ctx.factorial(k)
-    # singular orders tau^(-m/2), m >= 1, including the e^(-tau E) cross terms
-    orders = {}
-    for j, Sj in S.items():
-        k = 0
-        while j + 1 - 2 * k >= 1:
-            m = j + 1 - 2 * k
-            orders[m] = orders.get(m, 0) + ph * Sj * (-Ef) ** k / ctx.factorial(k)
-            k += 1
-    return reg * ph, orders
-
-
-def _poly_val(ctx, poly, N):
-    return sum((ctx.mpf(c.numerator) / c.denominator) * ctx.mpf(N) ** j for j, c in enumerate(poly))
+    # singular part: sum_j S_j tau^(-(j+1)/2), S_j = mean_j Gamma((j+1)/2)/2 scale^((j+1)/2), all
+    # times q^E = xi^E e^(-tau E).  The tau^0 part of e^(-tau E) S_j tau^(-(j+1)/2) is
+    # S_j (-E)^k/k! for (j+1)/2 = k an integer; the rest are the singular orders m = j + 1 - 2k.
+    orders: dict[int, dict] = {}
+    for j, mj in mean.items():
+        for kk in range(0, (j + 1) // 2 + 1):
+            mo = j + 1 - 2 * kk
+            # Gamma((j+1)/2) scale^((j+1)/2) = Gamma((mo+1)/2) scale^((mo+1)/2) * g, g rational
+            if mo == 0:       # Gamma(kk) scale^kk (-E)^kk / kk! / 2, exact
+                fac = Fraction(scale) ** kk * (-E) ** kk / (2 * kk)
+                target = finite
+            else:
+                g = Fraction(scale) ** kk
+                for i in range(kk):
+                    g *= Fraction(mo + 1, 2) + i
+                fac = g * (-E) ** kk / math.factorial(kk) / 2
+                target = orders.setdefault(mo, {})
+            for k0, c in mj.items():
+                _add(target, k0, fac * c)
+    shift = key(E)
+    finite = {(k + shift) - math.floor(k + shift): c for k, c in finite.items()}
+    orders = {mo: {(k + shift) - math.floor(k + shift): c for k, c in dd.items()} for mo, dd in orders.items()}
+    return _Limit(finite, orders)
 
 
 def _checked(f, digits: int):
@@ -226,19 +248,20 @@ def radial_limit(space, label, K: int, digits: int = 30):
     lat = PlumbingLattice(g)
     lab = lat.labels.find(label)
     _guard(lat, K)
-    return _checked(lambda dps: _convergent(_limit(lat, lab.vector, K, dps), dps, lab), digits)
+    lim = _limit(lat, lab.vector, K)
+    _convergent(lim, lab)
+    return _checked(lambda dps: _Limit.value(local_mp(dps), lim.finite, {}), digits)
 
 
-def _convergent(pair, dps, lab):
-    val, orders = pair
-    tol = local_mp(dps).mpf(10) ** (-(dps - 10))
-    for m, c in sorted(orders.items(), reverse=True):
-        if abs(c) > tol * max(1, abs(val)):
+def _convergent(lim: "_Limit", lab) -> None:
+    ctx = local_mp(40)
+    for m, dct in sorted(lim.orders.items(), reverse=True):
+        size = sum(abs(c) for c in dct.values())
+        if abs(_Limit.value(ctx, dct, {})) > ctx.mpf(10) ** -30 * max(1, size):
             raise KnotobsError(
                 f"the radial limit of Zhat_b for label {lab} diverges like tau^(-{m}/2) as q -> xi e^-tau"
                 " (an Eichler integral of a theta function with non-zero mean); only the combination"
                 " over all labels that gives the finite-level value has a limit")
-    return val
 
 
 def radial_limits(space, K: int, digits: int = 30) -> dict:
@@ -247,8 +270,12 @@ def radial_limits(space, K: int, digits: int = 30) -> dict:
     g, _ = plumbing_of(space)
     lat = PlumbingLattice(g)
     _guard(lat, K)
-    return {lab: _checked(lambda dps, lab=lab: _convergent(_limit(lat, lab.vector, K, dps), dps, lab), digits)
-            for lab in lat.labels.labels}
+    out = {}
+    for lab in lat.labels.labels:
+        lim = _limit(lat, lab.vector, K)
+        _convergent(lim, lab)
+        out[lab] = _checked(lambda dps, lim=lim: _Limit.value(local_mp(dps), lim.finite, {}), digits)
+    return out
 
 
 def _guard(lat: PlumbingLattice, K: int) -> None:
@@ -282,39 +309,52 @@ def finite_level_from_qseries(space, K: int, digits: int = 30):
     lat = PlumbingLattice(g)
     _guard(lat, K)
 
+    lims = []
+    for lab in lat.labels.labels:
+        lim = _limit(lat, lab.vector, K)
+        for beta in lat.labels.class_representatives(lab):
+            lims.append((beta, lim))
+    det, adj, s = lat.det, lat.adj, lat.s
+    hb = lat.labels._hb
+    from itertools import product
+
+    ys = list(product(*[range(hb[i][i]) for i in range(s)]))
+    adj_beta = [[sum(adj[i][j] * beta[j] for j in range(s)) for i in range(s)] for beta, _ in lims]
+    phase_keys = []            # (key of e^(-2 pi i K (y, B^-1 y)), [key of e^(-2 pi i (y, B^-1 beta))])
+    for y in ys:
+        ay = [sum(adj[i][j] * y[j] for j in range(s)) for i in range(s)]
+        yy = sum(y[i] * ay[i] for i in range(s))
+        ws = [Fraction(-sum(y[i] * ab[i] for i in range(s)), det) for ab in adj_beta]
+        phase_keys.append((Fraction(-K * yy, det), ws))
+
     def f(dps):
         ctx = local_mp(dps)
-        lims = []
-        for lab in lat.labels.labels:
-            val, orders = _limit(lat, lab.vector, K, dps)
-            for beta in lat.labels.class_representatives(lab):
-                lims.append((beta, val, orders))
-        det, adj, s = lat.det, lat.adj, lat.s
-        hb = lat.labels._hb
-        from itertools import product
+        cache: dict = {}
 
+        def ph(k):
+            k = k - math.floor(k)
+            v = cache.get(k)
+            if v is None:
+                v = cache[k] = ctx.expjpi(2 * ctx.mpf(k.numerator) / k.denominator)
+            return v
+
+        vals = [_Limit.value(ctx, lim.finite, cache) for _, lim in lims]
+        ms = sorted({m for _, lim in lims for m in lim.orders})
+        sing_vals = {m: [_Limit.value(ctx, lim.orders.get(m, {}), cache) for _, lim in lims] for m in ms}
+        sizes = {m: sum(sum(abs(c) for c in lim.orders.get(m, {}).values()) for _, lim in lims) for m in ms}
         total = ctx.mpc(0)
-        sing_total: dict = {}
-        for y in product(*[range(hb[i][i]) for i in range(s)]):
-            ay = [sum(adj[i][j] * y[j] for j in range(s)) for i in range(s)]
-            yy = sum(y[i] * ay[i] for i in range(s))
-            ph0 = _frac_phase(ctx, Fraction(-K * yy, det))
-            inner = ctx.mpc(0)
-            sing: dict = {}
-            for beta, val, orders in lims:
-                yb = sum(ay[i] * beta[i] for i in range(s))
-                w = _frac_phase(ctx, Fraction(-yb, det))
-                inner += w * val
-                for m, c in orders.items():
-                    sing[m] = sing.get(m, 0) + w * c
-            total += ph0 * inner
-            for m, c in sing.items():
-                sing_total[m] = sing_total.get(m, 0) + ph0 * c
-        worst = max((abs(c) for c in sing_total.values()), default=ctx.mpf(0))
-        if worst > ctx.mpf(10) ** (-(dps - 10)) * max(1, abs(total)):
-            raise KnotobsError(  # pragma: no cover - the combination has a limit (Murakami 2023)
-                f"{lat.graph}: at K = {K} the divergences of the Zhat_b do not cancel in the finite-level"
-                f" combination (size {ctx.nstr(worst, 5)}); no value is given")
+        sing_total = {m: ctx.mpc(0) for m in ms}
+        for k0, ws in phase_keys:
+            p0 = ph(k0)
+            wv = [ph(w) for w in ws]
+            total += p0 * ctx.fdot(wv, vals)
+            for m in ms:
+                sing_total[m] += p0 * ctx.fdot(wv, sing_vals[m])
+        for m in ms:
+            if abs(sing_total[m]) > ctx.mpf(10) ** (-(dps - 10)) * max(1, sizes[m]) * len(phase_keys):
+                raise KnotobsError(  # pragma: no cover - the combination has a limit (Murakami 2023)
+                    f"{lat.graph}: at K = {K} the divergences of the Zhat_b do not cancel in the"
+                    f" finite-level combination (size {ctx.nstr(abs(sing_total[m]), 5)}); no value is given")
         return total / (2j * ctx.sqrt(2 * K) * ctx.sqrt(abs(det)))
 
     return _checked(f, digits)
