@@ -42,8 +42,8 @@ def series_string(z, max_terms: int | None = None) -> str:
     return f"{pre_s}{den}({body})"
 
 
-def qseries_text(series: list, title: str) -> str:
-    """Readable block: one line per label, then the conventions."""
+def qseries_text(series: list, title: str, report=None) -> str:
+    """Readable block: one line per label, then the conventions (and the radial limits, if any)."""
     lines = [title, ""]
     for z in series:
         tag = f"label {z.label.index} = {z.label}"
@@ -57,19 +57,34 @@ def qseries_text(series: list, title: str) -> str:
         f"  normalization  {z0.normalization}",
         f"  route          {z0.route}",
     ]
+    if report is not None:
+        d = report.to_json()
+        fmt = lambda v: "diverges (only the combination has a limit)" if v is None else f"{v['re']} + ({v['im']}) i"  # noqa: E731
+        lines += ["", f"  radial limits at q -> exp(2 pi i/{report.K}), {report.digits} digits:"]
+        for item in d["limits"]:
+            lines.append(f"    label {item['label_index']}: {fmt(item['value'])}")
+        lines.append(f"  Z_K from all labels      {fmt(d['finite_level_from_qseries'])}")
+        if d["finite_level_surgery"] is not None:
+            lines.append(f"  Z_K by the surgery route {fmt(d['finite_level_surgery'])}"
+                         f"   ({'agree' if d['agree'] else 'DISAGREE'})")
+        lines.append(f"  normalization            {report.normalization}")
     return "\n".join(lines)
 
 
-def qseries_json(series: list, inputs: dict[str, Any]) -> dict[str, Any]:
-    """One label: its fields at the top level; several: ``{"labels": [...]}`` plus shared fields."""
+def qseries_json(series: list, inputs: dict[str, Any], report=None) -> dict[str, Any]:
+    """One label: its fields at the top level; several: ``{"labels": [...]}`` plus shared fields.
+
+    With a radial report (``--K``), its fields under ``"radial"``.
+    """
     if len(series) == 1:
         out = {"quantity": "qseries"}
         out.update(series[0].to_json())
-        out["inputs"] = inputs
-        return out
-    out = {"quantity": "qseries", "space": series[0].space, "plumbing": series[0].plumbing,
-           "orientation": series[0].orientation, "labels": [z.to_json() for z in series],
-           "inputs": inputs}
+    else:
+        out = {"quantity": "qseries", "space": series[0].space, "plumbing": series[0].plumbing,
+               "orientation": series[0].orientation, "labels": [z.to_json() for z in series]}
+    if report is not None:
+        out["radial"] = report.to_json()
+    out["inputs"] = inputs
     return out
 
 
@@ -87,6 +102,7 @@ _ONE = {
                          "description": "integers from q^0 after the prefactor, divided by denominator"},
         "denominator": _I, "order": _I, "orientation": _S, "normalization": _S, "route": _S,
         "inputs": {"type": "object"},
+        "radial": {"type": "object", "required": ["K", "limits", "finite_level_from_qseries", "agree"]},
     },
     "required": ["space", "label", "prefactor_exponent", "coefficients", "denominator", "orientation"],
 }

@@ -48,6 +48,7 @@ in every case tested.
 from __future__ import annotations
 
 import math
+from dataclasses import dataclass
 from fractions import Fraction
 
 from knotobs.errors import KnotobsError, PrecisionError, SizeLimitError
@@ -56,7 +57,7 @@ from knotobs.numerics import local_mp
 from knotobs.qseries.series import PlumbingLattice, _vertex_int
 from knotobs.qseries.plumbing import plumbing_of
 
-__all__ = ["radial_limit", "radial_limits", "finite_level_from_qseries"]
+__all__ = ["radial_limit", "radial_limits", "finite_level_from_qseries", "RadialReport", "radial_report"]
 
 
 def _poly_in_N(d: int, a: int, shift: int) -> list[Fraction]:
@@ -358,3 +359,98 @@ def finite_level_from_qseries(space, K: int, digits: int = 30):
         return total / (2j * ctx.sqrt(2 * K) * ctx.sqrt(abs(det)))
 
     return _checked(f, digits)
+
+
+@dataclass(frozen=True)
+class RadialReport:
+    """Radial limits of the ``Zhat_b`` at ``q -> exp(2 pi i/K)`` and the finite-level value from them.
+
+    Attributes
+    ----------
+    limits : dict
+        ``{Label: value or None}`` (``None``: this block diverges at ``xi``; the combination still
+        has a limit).
+    from_qseries : mpc
+        ``Z_K(M)`` from the radial limits (module docstring).
+    surgery : mpc or None
+        ``Z_K(M)`` from the independent surgery route (Seifert spaces only).
+    """
+
+    space: str
+    K: int
+    digits: int
+    limits: dict
+    from_qseries: object
+    surgery: object
+    normalization: str = "Z(S^3) = S_00, Z(S^2 x S^1) = 1, canonical 2-framing (CONVENTIONS §9)"
+
+    @property
+    def agree(self):
+        """Whether the two routes agree to ``digits`` (``None`` without a surgery value)."""
+        if self.surgery is None:
+            return None
+        ctx = local_mp(self.digits + 10)
+        return bool(abs(ctx.mpc(self.from_qseries) - ctx.mpc(self.surgery)) < ctx.mpf(10) ** (2 - self.digits))
+
+    def to_json(self) -> dict:
+        ctx = local_mp(self.digits)
+
+        tiny = ctx.mpf(10) ** (-self.digits - 2)      # absolute accuracy: exact zeros print as 0
+
+        def part(x):
+            return "0.0" if abs(x) < tiny else ctx.nstr(x, self.digits)
+
+        def num(z):
+            return None if z is None else {"re": part(ctx.mpc(z).real), "im": part(ctx.mpc(z).imag)}
+
+        return {
+            "K": self.K, "digits": self.digits,
+            "limits": [{"label": str(lab), "label_index": lab.index, "value": num(v), "diverges": v is None}
+                       for lab, v in self.limits.items()],
+            "finite_level_from_qseries": num(self.from_qseries),
+            "finite_level_surgery": num(self.surgery),
+            "agree": self.agree,
+            "normalization": self.normalization,
+        }
+
+
+def radial_report(space, K: int, digits: int = 30, labels=None) -> RadialReport:
+    """Radial limits for ``labels`` (default: all) and ``Z_K`` by both routes.
+
+    Examples
+    --------
+    >>> r = radial_report("Sigma(2,3,5)", 5, 20)
+    >>> r.agree, len(r.limits)
+    (True, 1)
+
+    References
+    ----------
+    Gukov, Pei, Putrov & Vafa (2020); Y. Murakami, arXiv:2302.13526; CONVENTIONS §9, §13.
+    """
+    from knotobs.qseries.plumbing import is_plumbing_text, PlumbingGraph
+
+    K = _check_K(K)
+    if isinstance(digits, bool) or not isinstance(digits, int) or not 1 <= digits <= 1000:
+        raise SizeLimitError(f"digits = {digits!r} must be an integer between 1 and 1000")
+    g, text = plumbing_of(space)
+    lat = PlumbingLattice(g)
+    _guard(lat, K)
+    chosen = lat.labels.labels if labels is None else [lat.labels.find(x) for x in labels]
+    limits = {}
+    for lab in chosen:
+        lim = _limit(lat, lab.vector, K)
+        try:
+            _convergent(lim, lab)
+        except KnotobsError:
+            limits[lab] = None
+            continue
+        limits[lab] = _checked(lambda dps, lim=lim: _Limit.value(local_mp(dps), lim.finite, {}), digits)
+    zq = finite_level_from_qseries(g, K, digits)
+    zs = None
+    if K >= 3 and not (isinstance(space, PlumbingGraph) or is_plumbing_text(space)):
+        from knotobs.evaluation.surgery import partition_function
+        from knotobs.fibrations.seifert import parse_space
+
+        sp = parse_space(space) if isinstance(space, str) else space
+        zs = partition_function(sp, "SU(2)", level=K - 2, digits=digits, route="surgery").numeric
+    return RadialReport(text, K, digits, limits, zq, zs)

@@ -65,3 +65,20 @@ def test_refusals_are_one_line_errors():
         r = runner.invoke(app, args)
         assert r.exit_code == 2, (args, r.output)
         assert "error:" in r.output and "Traceback" not in r.output
+
+
+def test_radial_limits_on_the_command_line():
+    # --K: radial limits and Z_K from the q-series beside the independent surgery route
+    # (Reshetikhin-Turaev; CONVENTIONS §9); L(5,2) at K = 5 has Z = 0 exactly (CONVENTIONS §9).
+    r = runner.invoke(app, ["qseries", "Sigma(2,3,7)", "--order", "5", "--K", "9", "--digits", "25", "--json"])
+    assert r.exit_code == 0, r.output
+    d = json.loads(r.output)
+    validate(d, "qseries")
+    assert d["radial"]["agree"] is True and d["radial"]["digits"] == 25
+    a, b = d["radial"]["finite_level_from_qseries"], d["radial"]["finite_level_surgery"]
+    assert all(abs(float(a[k]) - float(b[k])) < 1e-14 for k in ("re", "im"))
+    r = runner.invoke(app, ["qseries", "L(5,2)", "--order", "3", "--K", "5", "--json"])
+    d = json.loads(r.output)["radial"]
+    assert d["finite_level_from_qseries"] == {"re": "0.0", "im": "0.0"} and d["agree"] is True
+    r = runner.invoke(app, ["qseries", "L(5,2)", "--order", "3", "--digits", "5"])
+    assert r.exit_code == 2 and "--K" in r.output
