@@ -57,7 +57,8 @@ from knotobs.numerics import local_mp
 from knotobs.qseries.series import PlumbingLattice, _vertex_int
 from knotobs.qseries.plumbing import plumbing_of
 
-__all__ = ["radial_limit", "radial_limits", "finite_level_from_qseries", "RadialReport", "radial_report"]
+__all__ = ["radial_limit", "radial_limits", "finite_level_from_qseries", "finite_level_exact",
+           "RadialReport", "radial_report"]
 
 
 def _poly_in_N(d: int, a: int, shift: int) -> list[Fraction]:
@@ -454,3 +455,73 @@ def radial_report(space, K: int, digits: int = 30, labels=None) -> RadialReport:
         sp = parse_space(space) if isinstance(space, str) else space
         zs = partition_function(sp, "SU(2)", level=K - 2, digits=digits, route="surgery").numeric
     return RadialReport(text, K, digits, limits, zq, zs)
+
+
+def finite_level_exact(space, K: int):
+    """``Z_K(M)`` from the radial limits as an exact number ``sqrt(r) * c``, ``c`` cyclotomic.
+
+    Every radial limit is an exact rational combination of roots of unity (module docstring), so
+    the formula for ``Z_K`` is evaluated in ``Q(zeta_n)``; the result is a
+    :class:`~knotobs.polynomials.cyclotomic.CyclotomicSurd` with radicand ``1/(2K |det B|)``.
+
+    Examples
+    --------
+    >>> from knotobs.evaluation.surgery import partition_function
+    >>> from knotobs.fibrations.seifert import parse_space
+    >>> z = finite_level_exact("Sigma(2,3,5)", 5)
+    >>> z == partition_function(parse_space("Sigma(2,3,5)"), "SU(2)", level=3, exact=True).exact
+    True
+
+    References
+    ----------
+    As :func:`finite_level_from_qseries`.
+    """
+    from itertools import product
+
+    from knotobs.polynomials.cyclotomic import CyclotomicField, CyclotomicSurd
+
+    K = _check_K(K)
+    g, _ = plumbing_of(space)
+    lat = PlumbingLattice(g)
+    _guard(lat, K)
+    det, adj, s = lat.det, lat.adj, lat.s
+    lims = []
+    for lab in lat.labels.labels:
+        lim = _limit(lat, lab.vector, K)
+        for beta in lat.labels.class_representatives(lab):
+            lims.append(([sum(adj[i][j] * beta[j] for j in range(s)) for i in range(s)], lim))
+    n_ops = len(lims) * abs(det) * max(1, max(len(lm.finite) for _, lm in lims))
+    require(f"exact finite-level value from {len(lims)} blocks", seconds=seconds_for(n_ops * 3, "python"),
+            accepted="use finite_level_from_qseries (numeric) or a smaller K")
+    hb = lat.labels._hb
+    ms = sorted({m for _, lm in lims for m in lm.orders})
+    terms: dict[Fraction, Fraction] = {}
+    sing: dict[int, dict] = {m: {} for m in ms}
+    for y in product(*[range(hb[i][i]) for i in range(s)]):
+        ay = [sum(adj[i][j] * y[j] for j in range(s)) for i in range(s)]
+        k0 = Fraction(-K * sum(y[i] * ay[i] for i in range(s)), det)
+        for ab, lim in lims:
+            w = k0 + Fraction(-sum(y[i] * ab[i] for i in range(s)), det)
+            for k, c in lim.finite.items():
+                _add(terms, w + k, c)
+            for m, dct in lim.orders.items():
+                for k, c in dct.items():
+                    _add(sing[m], w + k, c)
+
+    def element(dct):
+        n = 4
+        for k in dct:
+            n = math.lcm(n, k.denominator)
+        F = CyclotomicField(n)
+        vec = [Fraction(0)] * n
+        for k, c in dct.items():
+            vec[int(k * n) % n] += c
+        return F, F.from_group_ring(vec)
+
+    for m in ms:
+        if not element(sing[m])[1].is_zero():
+            raise KnotobsError(  # pragma: no cover - the combination has a limit (Murakami 2023)
+                f"{lat.graph}: at K = {K} the tau^(-{m}/2) divergences of the Zhat_b do not cancel")
+    F, total = element(terms)
+    minus_i_half = F.zeta(3 * F.n // 4) * Fraction(1, 2)          # 1/(2i) = -i/2
+    return CyclotomicSurd(total * minus_i_half, Fraction(1, 2 * K * abs(det)))

@@ -109,3 +109,18 @@ def test_divergent_blocks_still_give_the_finite_level_value(space, Ks):
         assert abs(ctx.mpc(a) - ctx.mpc(_surgery(space, K))) < ctx.mpf(10) ** (-DIGITS + 2), (space, K)
     with pytest.raises(KnotobsError, match="diverges"):
         radial_limit("M(0; -1; (2,1),(2,1),(2,1),(2,1))", 1, 5, 20)
+
+
+EXACT = [("Sigma(2,3,5)", (3, 5, 8)), ("Sigma(2,3,7)", (4, 9)), ("Sigma(3,4,5)", (5,)), ("L(5,2)", (5, 7)),
+         ("L(12,5)", (5, 6)), ("M(0; 1; (2,-1),(4,-1),(6,-1))", (6, 7)), ("Sigma(2,3,5,7)", (4, 6)),
+         ("M(0; -1; (2,1),(2,1),(2,1),(2,1))", (5, 6)), ("M(0; 0; (3,1),(3,1),(6,1))", (5,))]
+
+
+@pytest.mark.parametrize("space,Ks", EXACT)
+def test_radial_limits_give_the_finite_level_value_exactly(space, Ks):
+    # exact equality in Q(zeta_n) (times one square root) with the surgery route's exact value
+    from knotobs.qseries.radial import finite_level_exact
+    for K in Ks:
+        a = finite_level_exact(space, K)
+        b = partition_function(parse_space(space), "SU(2)", level=K - 2, exact=True, route="surgery").exact
+        assert b is not None and a == b, (space, K)
