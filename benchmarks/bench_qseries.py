@@ -44,6 +44,9 @@ def _cli(space, label, order):
 
 def main() -> None:
     print(f"{'what':72s} {'in-process s':>12s} {'CLI s':>8s} {'target s':>9s}")
+    exe = os.path.join(os.path.dirname(sys.executable), "knotobs")
+    t0 = _best(lambda: subprocess.run([exe, "--help"], check=True, stdout=subprocess.DEVNULL))
+    print(f"{'knotobs --help (start-up and imports only, for comparison)':72s} {'':12s} {t0:8.2f}")
     for space, label, order, target in CASES:
         t_in = _best(lambda: qseries_for(space, label, order))
         t_cli = _best(_cli(space, label, order))
