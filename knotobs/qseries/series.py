@@ -396,9 +396,10 @@ class QSeries:
         }
 
     def __str__(self) -> str:
-        from knotobs.output.qseries_text import series_string
-
-        return series_string(self)
+        lead = ", ".join(str(c) for c in self.coefficients[:8])
+        more = ", ..." if len(self.coefficients) > 8 else ""
+        den = f"(1/{self.denominator}) " if self.denominator != 1 else ""
+        return f"Zhat_{self.label}(q) = q^({self.prefactor}) {den}[{lead}{more}] + O(q^{self.order + 1})"
 
 
 def _series(lat: PlumbingLattice, lab: Label, order: int, route_text: str, space: str) -> QSeries:
