@@ -42,17 +42,21 @@ def series_string(z, max_terms: int | None = None) -> str:
     return f"{pre_s}{den}({body})"
 
 
+def _short(text: str, limit: int = 160) -> str:
+    return text if len(text) <= limit else text[: limit - 40] + f" ... ({len(text)} characters; full in --json)"
+
+
 def qseries_text(series: list, title: str, report=None) -> str:
     """Readable block: one line per label, then the conventions (and the radial limits, if any)."""
     lines = [title, ""]
     for z in series:
-        tag = f"label {z.label.index} = {z.label}"
+        tag = f"label {z.label.index} = {_short(str(z.label))}"
         lines.append(f"  {tag}")
         lines.append(f"    Zhat = {series_string(z, max_terms=40)}")
     z0 = series[0]
     lines += [
         "",
-        f"  plumbing       {z0.plumbing}  ({z0.label_count} label(s), b ~ -b identified)",
+        f"  plumbing       {_short(z0.plumbing)}  ({z0.label_count} label(s), b ~ -b identified)",
         f"  orientation    {z0.orientation}",
         f"  normalization  {z0.normalization}",
         f"  route          {z0.route}",

@@ -84,9 +84,28 @@ class LabelSystem:
         self._hb = [[int(H1[i, j]) for j in range(s)] for i in range(s)]
         self._h2 = [[2 * x for x in row] for row in self._hb]
         n = abs(self.det)
+        snf = fmpz_mat(B).snf()
+        two = 2 ** sum(1 for i in range(s) if int(snf[i, i]) % 2 == 0)
+        #: number of labels: (|H_1| + |H_1/2H_1|)/2 (conjugation fixes the spin structures)
+        self.count = (n + two) // 2
+        b0 = self.reduce(list(self.delta))
+        m0 = self.reduce([-x for x in b0])
+        self.first = Label(0, min(b0, m0), b0 == m0)
+        self._labels: tuple[Label, ...] | None = None
+
+    @property
+    def labels(self) -> tuple[Label, ...]:
+        """All labels in order (enumerated on first use; guarded by the size of ``H_1``)."""
+        if self._labels is None:
+            self._enumerate()
+        return self._labels
+
+    def _enumerate(self) -> None:
+        s = self.graph.size
+        n = abs(self.det)
         require(f"listing the {n} spin^c labels of a plumbing with {s} vertices",
                 seconds=seconds_for(n * s * s, "python"), memory_mb=n * s * 8e-5,
-                accepted="use a manifold with smaller |H_1|")
+                accepted="use label 0 (no listing needed) or a manifold with smaller |H_1|")
         seen: dict[tuple[int, ...], tuple[tuple[int, ...], bool]] = {}
         ranges = [range(self._hb[i][i]) for i in range(s)]
         for a in product(*ranges):
@@ -97,12 +116,11 @@ class LabelSystem:
             canon = min(b, m)
             seen[b] = seen[m] = (canon, b == m)
         canon_set = {v for v in seen.values()}
-        d0 = seen[self.reduce(list(self.delta))][0]
-        rest = sorted(c for c in canon_set if c[0] != d0)
-        first = next(c for c in canon_set if c[0] == d0)
-        self.labels: tuple[Label, ...] = tuple(
-            Label(i, c[0], c[1]) for i, c in enumerate([first] + rest))
-        self._by_vec = {lab.vector: lab for lab in self.labels}
+        rest = sorted(c for c in canon_set if c[0] != self.first.vector)
+        self._labels = (self.first,) + tuple(Label(i, c[0], c[1]) for i, c in enumerate(rest, start=1))
+        if len(self._labels) != self.count:  # pragma: no cover - would contradict the count above
+            raise InvalidSeifertDataError(f"internal: {len(self._labels)} labels, expected {self.count}")
+        self._by_vec = {lab.vector: lab for lab in self._labels}
 
     def reduce(self, v: Sequence[int]) -> tuple[int, ...]:
         """The representative of ``v + 2 B Z^s`` with ``0 <= v_i < H_ii`` (H = HNF of 2B)."""
@@ -127,6 +145,9 @@ class LabelSystem:
                 f"label {v}: entry v_i must have the parity of deg(v_i) (delta = {self.delta})")
         b = self.reduce(v)
         m = self.reduce([-x for x in b])
+        if min(b, m) == self.first.vector:
+            return self.first
+        self.labels  # noqa: B018 - enumerate for the numbering
         return self._by_vec[min(b, m)]
 
     def find(self, label) -> Label:
@@ -137,15 +158,15 @@ class LabelSystem:
             raise ParseError(f"label {label!r}: give a label number or a vector")
         if isinstance(label, int) or (isinstance(label, str) and re.fullmatch(r"\s*\d+\s*", label)):
             i = int(label)
-            if not 0 <= i < len(self.labels):
+            if not 0 <= i < self.count:
                 raise ParseError(
-                    f"label {label!r} does not exist: this space has labels 0..{len(self.labels) - 1}")
-            return self.labels[i]
+                    f"label {label!r} does not exist: this space has labels 0..{self.count - 1}")
+            return self.first if i == 0 else self.labels[i]
         if isinstance(label, str):
             body = label.strip()
             if not re.fullmatch(r"\(\s*[+-]?\d+(\s*,\s*[+-]?\d+)*\s*\)", body):
                 raise ParseError(
-                    f"label {label!r}: give a label number 0..{len(self.labels) - 1} or a vector"
+                    f"label {label!r}: give a label number 0..{self.count - 1} or a vector"
                     f" (b_1,...,b_{self.graph.size})")
             return self.label_of([int(x) for x in body.strip("()").split(",")])
         try:

@@ -425,7 +425,7 @@ def _series(lat: PlumbingLattice, lab: Label, order: int, route_text: str, space
             step *= 2
     h = len(lat.high)
     if lead is None:           # a class with no terms at all: Zhat_b = 0
-        return QSeries(space, str(lat.graph), lab, len(lat.labels.labels), lat.base_exponent,
+        return QSeries(space, str(lat.graph), lab, lat.labels.count, lat.base_exponent,
                        (0,) * (order + 1), 1, order, _ORIENT, route_text, details={"empty": True})
     extra = 0
     while True:
@@ -448,7 +448,7 @@ def _series(lat: PlumbingLattice, lab: Label, order: int, route_text: str, space
         coeffs = [c // 2 for c in coeffs]
         den //= 2
     pref = lat.base_exponent + Fraction(lead, lat.D) + shift
-    return QSeries(space, str(lat.graph), lab, len(lat.labels.labels), pref, tuple(coeffs), den,
+    return QSeries(space, str(lat.graph), lab, lat.labels.count, pref, tuple(coeffs), den,
                    order, _ORIENT, route_text)
 
 

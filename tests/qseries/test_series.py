@@ -261,3 +261,11 @@ def test_oversized_request_is_refused_before_work():
     with limits(seconds=0.001):
         with pytest.raises(KnotobsError, match="estimated"):
             zhat("M(0; 0; (2,1),(3,1),(5,1),(7,1),(11,1),(13,1),(17,1),(19,1))", order=100000)
+
+
+def test_label_zero_needs_no_listing_of_all_labels():
+    # |H_1| = 97*98*99*(1/97 + 1/98 + 1/99) = 28811 and the star plumbing has 292 vertices: label 0
+    # (the class of deg mod 2) is computed without enumerating the 14406 = (28811 + 1)/2 labels.
+    z = zhat("M(0; 0; (97,1),(98,1),(99,1))", order=5)
+    assert z.label_count == 14406 and z.label.index == 0
+    assert z.denominator == 2 and z.coefficients[:2] == (1, -1)
