@@ -22,6 +22,10 @@ def series_string(z, max_terms: int | None = None) -> str:
     >>> series_string(zhat("Sigma(2,3,5)", order=8))
     'q^(-3/2) * (1 - q - q^3 - q^7 + q^8 + O(q^9))'
     """
+    if not any(z.coefficients):
+        if z.details.get("empty"):
+            return "0  (identically: no lattice point of this class carries a term)"
+        return f"0 + O(q^({Fraction(z.prefactor) + z.order + 1}))"
     parts = []
     for k, c in enumerate(z.coefficients):
         if not c:
