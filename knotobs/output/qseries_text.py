@@ -108,7 +108,7 @@ _ONE = {
         "prefactor_exponent": {"type": "string", "description": "exact power of q in front, a fraction"},
         "coefficients": {"type": "array", "items": _I,
                          "description": "integers from q^0 after the prefactor, divided by denominator"},
-        "denominator": _I, "order": _I, "orientation": _S, "normalization": _S, "route": _S,
+        "denominator": _I, "order": _I, "identically_zero": {"type": "boolean"}, "orientation": _S, "normalization": _S, "route": _S,
         "inputs": {"type": "object"},
         "radial": {"type": "object", "required": ["K", "limits", "finite_level_from_qseries", "agree"]},
     },

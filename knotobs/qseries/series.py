@@ -388,6 +388,7 @@ class QSeries:
             "label_count": self.label_count,
             "prefactor_exponent": str(self.prefactor),
             "coefficients": list(self.coefficients),
+            "identically_zero": bool(self.details.get("empty", False)),
             "denominator": self.denominator,
             "order": self.order,
             "orientation": self.orientation,
