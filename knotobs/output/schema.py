@@ -367,3 +367,12 @@ def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
         except OSError as exc:
             raise KnotobsError(f"cannot write {out!r}: {exc.strerror}") from None
     return text
+
+
+def _register_qseries() -> None:
+    from knotobs.output.qseries_text import QSERIES_SCHEMA
+
+    SCHEMAS["qseries"] = QSERIES_SCHEMA
+
+
+_register_qseries()
