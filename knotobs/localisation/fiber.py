@@ -109,7 +109,14 @@ class FiberFactor:
         self.phi = rademacher_phi(self.V)
         self.modulus = 2 * N * a * K
         self.mu_hat = shifted(self.mu, N)
-        self.table = gauss_table(a, self.y, K, N)
+        self._table = None
+
+    @property
+    def table(self) -> np.ndarray:
+        """The Gauss table of :func:`gauss_table` (built on first use, after the size guard)."""
+        if self._table is None:
+            self._table = gauss_table(self.a, self.y, self.K, self.N)
+        return self._table
 
     def exponents(self, lam_hat: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
         """``(E, zidx, eps)``: ``E[l, w]`` mod ``M``, the table row ``zidx[l, w]`` and the signs."""
