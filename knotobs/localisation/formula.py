@@ -232,9 +232,12 @@ class LocalisationSum:
 
 
 def exact_cost(s: LocalisationSum) -> float:
-    """Rough count of coefficient operations of :meth:`LocalisationSum.exact`."""
+    """Coefficient operations of :meth:`LocalisationSum.exact`: per weight, one group-ring
+    vector of length ``L`` per fiber and ``n' + |Delta+| + 1`` products in ``Q(zeta_L)``
+    (degree ``phi(L) <= L``).  About ``2.5e-7`` s each on the reference machine.
+
+    >>> exact_cost(LocalisationSum(0, -1, ((2, 1), (3, 1), (5, 1)), 2, 3)) > 0
+    True
+    """
     L = s.field_conductor()
-    deg = L  # the group-ring vectors have length L; the field degree is phi(L) <= L
-    per = s.npos + s.n_general + 1
-    W = math.factorial(s.N)
-    return float(s.size) * (per * deg + s.n_general * W * 2 * max((f.a for f in s.general), default=1))
+    return float(s.size) * L * (2 * s.n_general + s.npos + 1)
