@@ -144,6 +144,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
             " framing: use the fiber framing"
         )
     in_s3 = k is not None and space.replace(" ", "").upper() in ("S^3", "S3")
+    if framing is None and mode == "zero" and F.homology_class is None \
+            and not F.manifold.is_rational_homology_sphere:
+        mode = "fiber"          # H_1 infinite (e = 0 or base genus >= 1): no zero framing to default to
     try:
         v = fiber_wilson_loop(F.manifold, level, str(g), regular=list(cols), normalized=normalized,
                               digits=digits, framing=mode, route=route)

@@ -340,12 +340,12 @@ def _surgery_loop(M, N, k, regular, exceptional, normalized, digits, framing, ex
     ours = [M.fiber_framing if M.is_rational_homology_sphere else None for _ in regular]
     ours += [M.core_self_linking(j) if M.is_rational_homology_sphere else None for j in exceptional]
     shift = Fraction(0)
-    for f_l, f_s, mu in zip(ours, fr, colours):
+    for idx, (f_l, f_s, mu) in enumerate(zip(ours, fr, colours)):
+        if idx < len(regular):
+            continue                    # regular fibers: both routes use the fiber framing
         if f_l is None or f_s is None:
-            if mu:
-                raise KnotobsError("the surgery route's framing of a core cannot be converted when"
-                                   " H_1 is infinite; use --route localisation")
-            continue
+            raise KnotobsError("the surgery route's framing of a core cannot be converted when"
+                               " H_1 is infinite; use --route localisation")
         shift += (f_l - f_s) * _casimir(mu, N) / (k + N)
     ph = root_of_unity(shift)
     if v.exact is not None:
@@ -359,7 +359,7 @@ def _surgery_loop(M, N, k, regular, exceptional, normalized, digits, framing, ex
             numeric = +numeric
     return dataclasses.replace(v, exact=value, numeric=numeric, digits=digits,
                                framing=("fibration framing (regular fibers: a nearby fiber; cores: the"
-                                        f" gluing-matrix curve -y mu + x h); self-linking in M: {[str(f) for f in ours]}"),
+                                        f" gluing-matrix curve -y mu + x h); self-linking in M: {[_fr(f) for f in ours]}"),
                                details={**v.details, "route": "surgery", "framings": ours})
 
 
@@ -418,6 +418,9 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
     factor = 2 if normalized else 1
     ests = []
     s = _surgery_estimate(M, N, k, lines=len(regular) + len(exceptional))
+    if s.applicable and exceptional and framing == "fiber" and not M.is_rational_homology_sphere:
+        s = RouteEstimate("surgery", None, None, "its framing of a core cannot be converted to the"
+                          " fibration framing when H_1 is infinite")
     ests.append(dataclasses.replace(s, seconds=None if s.seconds is None else s.seconds * factor))
     loc = _loc_estimate(M, N, k, exceptional, regular, exact)
     ests.append(dataclasses.replace(loc, seconds=loc.seconds * factor, memory_mb=loc.memory_mb))
@@ -431,3 +434,8 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
                                               exact=exact)
 
     return _dispatch(route, LOOP_ROUTES, ests, what, run, digits)
+
+
+def _fr(f) -> str:
+    """A self-linking number as text (``undefined`` when ``H_1`` is infinite)."""
+    return "undefined (H_1 infinite)" if f is None else str(f)

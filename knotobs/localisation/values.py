@@ -264,7 +264,7 @@ def localisation_fiber_wilson_loop(space, level: int, group="SU(2)", regular: Se
         with working_precision(digits):
             numeric = +numeric
     fr_text = ("fibration framing (regular fibers: a nearby fiber; cores: the gluing-matrix curve"
-               f" -y mu + x h); self-linking in M: {[str(f) for f in framings]}") if framing == "fiber" \
+               f" -y mu + x h); self-linking in M: {[_fr(f) for f in framings]}") if framing == "fiber" \
         else "zero (Seifert) framing"
     return FiniteLevelValue(
         exact=value, numeric=numeric, digits=digits, framing=fr_text,
@@ -281,3 +281,8 @@ def _casimir(lam, N: int) -> Fraction:
     n = sum(lam)
     kap = sum(x * (x - 2 * i - 1) for i, x in enumerate(lam))
     return Fraction(kap + N * n, 2) - Fraction(n * n, 2 * N)
+
+
+def _fr(f) -> str:
+    """A self-linking number as text (``undefined`` when ``H_1`` is infinite)."""
+    return "undefined (H_1 infinite)" if f is None else str(f)

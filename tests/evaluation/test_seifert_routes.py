@@ -118,3 +118,25 @@ def test_unknown_route():
         partition_function("S^3", "SU(2)", 3, route="fast")
     with pytest.raises(KnotobsError, match="unknown route"):
         fiber_wilson_loop("S^3", 3, "SU(2)", regular=[(1,)], route="gauss-sum")
+
+
+def test_loops_when_h1_is_infinite():
+    # S^2 x S^1: the regular fiber is the S^1 factor; Z(S^2 x S^1; lam) = dim of the space of
+    # conformal blocks on S^2 with one puncture lam = delta_{lam, 0} (Verlinde 1988): W = 0 for lam != 0
+    w = fiber_wilson_loop("S^2xS^1", 3, "SU(2)", regular=[(1,)], route="both", normalized=False)
+    assert w.details["agreement"].startswith("exact") and w.exact.is_zero()
+    # S^1 x Sigma_2 with the fundamental along the circle: odd number of fundamental punctures,
+    # no conformal blocks (SU(2) fusion is Z/2-graded; common practice)
+    r = runner.invoke(app, ["loop", "fiber", "--in", "M(2; 0)", "--level", "3"])
+    assert r.exit_code == 0, r.output
+    assert "exact     0" in r.output and "undefined (H_1 infinite)" in r.output
+    # with the adjoint: the gluing formula sum_j S_0j^(1-2g) S_j,adj from the modular data (CONVENTIONS §7)
+    import numpy as np
+    from knotobs.evaluation.modular import ModularData
+    S = ModularData(2, 4).S_numeric()
+    ref = int(round(float(np.sum(S[0, :] ** (1 - 4) * S[:, 2]).real)))
+    z = fiber_wilson_loop("M(2; 0)", 4, "SU(2)", regular=[(2,)], normalized=False)
+    assert z.exact.as_cyclotomic().rational_value() == ref == 45
+    # a core when e = 0: only the localisation route converts framings
+    v = fiber_wilson_loop("M(0; -1; (2,1), (2,1))", 3, "SU(3)", exceptional={0: (1,)}, normalized=False)
+    assert v.details["routes"] == ["localisation"]
