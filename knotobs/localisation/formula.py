@@ -20,8 +20,8 @@ them), with ``F_i`` the Gauss sum of :class:`knotobs.localisation.fiber.FiberFac
 
 It is the gluing formula ``Z = phase sum_lam S_{0 lam}^(2-2g-n) prod_i rho(S U_i)_{lam, mu_i}``
 (CONVENTIONS §7) with each ``rho(S U_i)`` replaced by its closed Gauss sum, and the phase of
-the canonical 2-framing ``exp(2 pi i c (Sum Phi - 3 sign e)/24)`` (Jeffrey 1992, §3-4 for
-SU(2); Rozansky 1996; Hansen, Algebr. Geom. Topol. 1 (2001) Thm. 8.4); the factors
+the canonical 2-framing ``exp(2 pi i c (Sum Phi - 3 sign e)/24)`` (Jeffrey 1992 for
+SU(2); Rozansky 1996; Hansen, Algebr. Geom. Topol. 1 (2001)); the factors
 ``exp(-2 pi i dim G Phi/24)`` of the Gauss sums combine with it into the two exponentials
 above (``c - dim G = -2 |rho|^2 / K``).  Nothing here uses the S and T matrices.
 """
