@@ -44,7 +44,7 @@ def loop(
     rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1], or Dynkin labels (1,0) (SO/Sp/G2); links: [1];[2] per component."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
     normalized: bool = typer.Option(False, "--normalized", help="Divide by the unknot (default: unknot = dim_q)."),
-    route: str = typer.Option("rosso-jones", "--route", help="rosso-jones, weight-sum or both (checks agreement)."),
+    route: Optional[str] = typer.Option(None, "--route", help="Polynomial: rosso-jones (default), weight-sum or both. With --level: auto (default), surgery, localisation or both."),
     level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N); SO(3) at odd k): exact cyclotomic + numeric."),
     in_: str = typer.Option("S^3", "--in", help="With --level: S^3, L(p,q), Sigma(a,b,c) or M(0; b; ...)."),
     fiber: Optional[int] = typer.Option(None, "--fiber", help="With --level and no KNOT: colour the core fiber with this index (from 0)."),
@@ -59,11 +59,15 @@ def loop(
         if in_ != "S^3" or fiber is not None:
             raise ParseError("--in and --fiber need --level k (polynomials in q are computed in S^3)")
         reps = rep if is_simple_group_name(group) else _reps(rep)   # SO/Sp/G2 read (1,0) and [1] themselves
-        res = wilson_loop(knot, group, reps, _framing(framing), normalized, route)
+        res = wilson_loop(knot, group, reps, _framing(framing), normalized, route or "rosso-jones")
         emit(res.to_json(), render_polynomial(res), as_json)
         return
     fr = _framing(framing) if framing is not None else None
-    val = level_loop(knot, level, group, rep if is_simple_group_name(group) else _reps(rep), in_, fiber, fr, not raw, digits)
+    if route in ("rosso-jones", "weight-sum"):
+        raise ParseError(f"--route {route} names a polynomial route; with --level use auto, surgery,"
+                         " localisation or both")
+    val = level_loop(knot, level, group, rep if is_simple_group_name(group) else _reps(rep), in_, fiber, fr,
+                     not raw, digits, route or "auto")
     what = knot if knot is not None else f"core fiber {fiber} of {in_}"
     inputs = {"knot": knot, "space": in_, "fiber": fiber, "group": group, "rep": rep, "level": level,
               "framing": framing, "digits": digits, "raw": raw}
