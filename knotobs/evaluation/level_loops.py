@@ -16,6 +16,8 @@ from typing import Optional
 
 import mpmath
 
+from knotobs.numerics import working_precision
+
 from knotobs.errors import InexactDivisionError, InvalidKnotError, KnotobsError, SizeLimitError
 from knotobs.evaluation.families import RouteMismatchError
 from knotobs.evaluation.finite_value import FiniteLevelValue
@@ -157,7 +159,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         f = int(framing)
         K = level + g.N
         phase = sum(f * casimir(g, lam) for lam in cols) / K
-        with mpmath.workdps(digits + 10):
+        with working_precision(digits + 10):
             numeric = numeric * mpmath.expjpi(2 * mpmath.mpf(phase.numerator) / phase.denominator)
         if exact is not None:
             exact = exact * root_of_unity(phase)
@@ -167,7 +169,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     if in_s3 and normalized:
         poly = rosso_jones(k, g, cols, extra if mode == "zero" else "fiber")
         check = poly.at_root_of_unity(level + g.N, dps=digits + 5)
-        with mpmath.workdps(digits + 5):
+        with working_precision(digits + 5):
             diff = abs(check - numeric)
         details["polynomial_check"] = float(diff)
         if diff > mpmath.mpf(10) ** (-digits + 3) * max(1, abs(numeric)):

@@ -36,6 +36,8 @@ from typing import Any, Callable, Iterable, Sequence
 
 import mpmath
 
+from knotobs.numerics import working_precision
+
 from knotobs.errors import (
     NotIntegrableError,
     InvalidRepresentationError,
@@ -262,11 +264,11 @@ def _numeric(value, K: int, dps: int) -> tuple[str, str]:
     """Value at q = exp(2 pi i/K) to ``dps`` digits, checked against ``dps + 15`` digits."""
     a = value.at_root_of_unity(K, dps)
     b = value.at_root_of_unity(K, dps + 15)
-    with mpmath.workdps(dps + 15):
+    with working_precision(dps + 15):
         scale = max(abs(b), mpmath.mpf(1))
         if abs(a - b) > scale * mpmath.mpf(10) ** (-(dps - 2)):
             raise PrecisionError(f"value at K = {K} not stable at {dps} digits; raise dps")
-    with mpmath.workdps(dps):
+    with working_precision(dps):
         b = mpmath.mpc(b)
         tol = scale * mpmath.mpf(10) ** (-(dps - 3))
         re = b.real if abs(b.real) > tol else mpmath.mpf(0)
