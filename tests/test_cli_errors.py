@@ -163,3 +163,24 @@ def test_big_knot_message_names_the_knot_and_colour():
     assert "partition [9999]" not in line
     line = one_error(run("poly", "T(2,3)", "--family", "colored-jones", "--color", "2001"), "--color 2001")
     assert "partition [4000]" not in line
+
+
+def test_polynomial_power_runaway_refused_quickly():
+    import time
+
+    t = time.time()
+    one_error(run("match", "--poly", "(1+t+a+z+q)^200"), "estimated", "terms")
+    assert time.time() - t < 2
+    # a power that fits is expanded: (1+t)^3 = 1 + 3t + 3t^2 + t^3 (binomial theorem)
+    from knotobs.tables.polyparse import read_polynomial
+
+    assert read_polynomial("(1+t)^3") == read_polynomial("1 + 3*t + 3*t^2 + t^3")
+
+
+def test_deep_nesting_is_a_parse_error_in_the_library():
+    from knotobs.errors import ParseError
+    from knotobs.tables.polyparse import read_polynomial
+
+    with pytest.raises(ParseError, match="nested 5000 deep"):
+        read_polynomial("(" * 5000 + "t" + ")" * 5000)
+    assert read_polynomial("(" * 100 + "t" + ")" * 100) == read_polynomial("t")
