@@ -184,3 +184,12 @@ def test_deep_nesting_is_a_parse_error_in_the_library():
     with pytest.raises(ParseError, match="nested 5000 deep"):
         read_polynomial("(" * 5000 + "t" + ")" * 5000)
     assert read_polynomial("(" * 100 + "t" + ")" * 100) == read_polynomial("t")
+
+
+def test_level_plane_runaway_refused_with_estimate(tmp_path):
+    import time
+
+    t = time.time()
+    one_error(run("plot", "level-plane", "Sigma(2,3,5)", "-o", str(tmp_path / "p.png"), "--n", "400"),
+              "400 x 400", "estimated")
+    assert time.time() - t < 2 and not (tmp_path / "p.png").exists()

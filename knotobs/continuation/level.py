@@ -88,6 +88,7 @@ __all__ = [
     "DomainError",
     "sector_values",
     "require_continuation",
+    "continuation_cost",
 ]
 
 
@@ -688,6 +689,15 @@ def require_continuation(d: LRData, Kv, digits: int) -> None:
 
     >>> require_continuation(LRData.from_space("Sigma(2,3,5)"), mpmath.mpc(7.5, 0.3), 30)
     """
+    seconds, memory, what = continuation_cost(d, Kv, digits)
+    require(what, seconds=seconds, memory_mb=memory,
+            accepted="ask for fewer digits, or a manifold with fewer or smaller exceptional fibers")
+
+
+def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
+    """Estimated ``(seconds, memory_mb, description)`` of one continued ``Z(K)`` (see
+    :func:`require_continuation`); the residue count alone is checked against the limits first,
+    since the contour set-up itself is ``O(P)``."""
     n = max(d.n, 1)
     absK = float(abs(Kv))
     alpha = float(mpmath.arg(Kv))
@@ -706,9 +716,8 @@ def require_continuation(d: LRData, Kv, digits: int) -> None:
     seconds = (ball_seconds(2 * abs(d.H) * 2 * N * (n + 4), digits + 12) / QUADRATURE_SPEED
                + ball_seconds(2 * terms * n * (n + 2) ** 2, digits + 12) / RESIDUE_SPEED)
     memory = terms * 400 / 1e6 + abs(d.H) * (digits + 12) * 8 / 1e6
-    require(f"{where} ({abs(d.H)} Gaussian integrals of {2 * N} nodes, {terms} residue terms;"
-            f" {d.n} fibers, P = {d.P})", seconds=seconds, memory_mb=memory,
-            accepted=accepted)
+    return seconds, memory, (f"{where} ({abs(d.H)} Gaussian integrals of {2 * N} nodes, {terms} residue terms;"
+                             f" {d.n} surgery coefficients, P = {d.P})")
 
 
 def continued_partition_function(space, level=None, *, K=None, digits: int = 30,

@@ -71,6 +71,33 @@ def _range(r, name: str) -> tuple[float, float]:
     return a, b
 
 
+class _Progress:
+    """``label i/n`` on stderr while a long figure is computed, only when stderr is a terminal."""
+
+    def __init__(self, label: str, total: int):
+        import sys
+        import time
+
+        self.label, self.total, self.done = label, total, 0
+        self.stream = sys.stderr
+        self.on = self.stream.isatty() and total > 1
+        self.t0 = self.last = time.monotonic()
+        self._time = time.monotonic
+
+    def step(self) -> None:
+        self.done += 1
+        now = self._time()
+        if self.on and (now - self.last > 0.2 or self.done == self.total):
+            self.last = now
+            self.stream.write(f"\r{self.label}: {self.done}/{self.total}  {now - self.t0:5.1f} s")
+            self.stream.flush()
+
+    def close(self) -> None:
+        if self.on:
+            self.stream.write("\n")
+            self.stream.flush()
+
+
 def asymptotic_levels(kmax: int) -> list[int]:
     """The levels ``K`` of :func:`plot_asymptotics` up to ``kmax``: every 5th to 100, then every
     25th, and beyond ``K = 1100`` 40 geometrically spaced levels (so the cost stays bounded).
@@ -114,16 +141,27 @@ def plot_level_plane(space, out, re_range=(3.0, 12.0), im_range=(-1.0, 1.0), n=4
         raise PlotError(f"grid size n = {n} must be between 2 and 400")
     re_range = _range(re_range, "re_range")
     im_range = _range(im_range, "im_range")
+    from knotobs.continuation.level import LRData, continuation_cost
+    from knotobs.guard import require
+
+    d = LRData.from_space(space)
+    corner = mpmath.mpc(max(abs(re_range[0]), abs(re_range[1])), max(abs(im_range[0]), abs(im_range[1])))
+    one, mem, _ = continuation_cost(d, corner, digits)
+    require(f"plot level-plane of {space}: {n} x {n} continued values to {digits} digits", seconds=one * n * n,
+            memory_mb=mem, accepted=f"use a smaller grid (--n below {n}) or a smaller range")
     plt = _plt()
     xs = np.linspace(*re_range, n)
     ys = np.linspace(*im_range, n)
     mod = np.zeros((n, n))
     ph = np.zeros((n, n))
+    bar = _Progress(f"level-plane {space}", n * n)
     for i, y in enumerate(ys):
         for j, x in enumerate(xs):
             z = continued_partition_function(space, K=mpmath.mpc(float(x), float(y)), digits=digits).numeric
             mod[i, j] = float(mpmath.log10(abs(z))) if z != 0 else -digits
             ph[i, j] = float(mpmath.arg(z))
+            bar.step()
+    bar.close()
     fig, axes = plt.subplots(1, 2, figsize=(11, 4.2), constrained_layout=True)
     ext = (re_range[0], re_range[1], im_range[0], im_range[1])
     im0 = axes[0].imshow(mod, origin="lower", extent=ext, aspect="auto", cmap="viridis")
@@ -173,8 +211,10 @@ def plot_asymptotics(space, out, Ks=None, orders=(0, 1, 2), digits=30):
     plt = _plt()
     fig, axes = plt.subplots(1, 2, figsize=(11, 4.2), constrained_layout=True)
     rows0 = None
+    bar = _Progress(f"asymptotics {space}", len(orders))
     for order in orders:
         rows = compare_with_exact(space, Ks, order=order, digits=digits)
+        bar.step()
         rows0 = rows0 or rows
         errs = [float(r.error) for r in rows]
         axes[1].loglog(Ks, errs, "o-", ms=3, label=f"order {order}")
@@ -183,6 +223,7 @@ def plot_asymptotics(space, out, Ks=None, orders=(0, 1, 2), digits=30):
         axes[1].loglog(Ks, [ref * k ** (-e) for k in Ks], "--", lw=0.8, color="gray")
         if order == orders[-1]:
             axes[0].plot(Ks, [float(r.asymptotic.real) for r in rows], "-", lw=1, label="asymptotic (Re)")
+    bar.close()
     axes[0].plot(Ks, [float(r.exact.real) for r in rows0], "k.", ms=4, label="exact (Re)")
     axes[0].set_xlabel(r"$K = k + 2$")
     axes[0].set_ylabel(r"Re $Z_K$")
