@@ -193,3 +193,13 @@ def test_level_plane_runaway_refused_with_estimate(tmp_path):
     one_error(run("plot", "level-plane", "Sigma(2,3,5)", "-o", str(tmp_path / "p.png"), "--n", "400"),
               "400 x 400", "estimated")
     assert time.time() - t < 2 and not (tmp_path / "p.png").exists()
+
+
+def test_digits_refused_by_the_library_too():
+    from knotobs.errors import KnotobsError
+    from knotobs.evaluation.level_loops import level_loop, level_partition_function
+
+    with pytest.raises(KnotobsError, match="from 1 to 2000"):
+        level_loop("T(2,3)", 3, digits=-5)
+    with pytest.raises(KnotobsError, match="from 1 to 2000"):
+        level_partition_function("Sigma(2,3,5)", "SU(2)", 3, digits=10000)

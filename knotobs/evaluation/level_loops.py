@@ -48,6 +48,9 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
     >>> z.numeric
     mpc(real='1.0', imag='0.0')
     """
+    from knotobs.precision import check_digits
+
+    digits = check_digits(digits)
     report = space_report(space, surgery=surgery, slope=slope)
     if report.manifold is None:
         raise KnotobsError(
@@ -100,6 +103,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     ----------
     CONVENTIONS §3, §5, §7; Rosso–Jones (1993); Reshetikhin–Turaev (1991).
     """
+    from knotobs.precision import check_digits
+
+    digits = check_digits(digits)
     g = parse_group(group)
     if g.kind != "SU":
         raise KnotobsError(f"finite-level values are computed for SU(N); got {g}")
