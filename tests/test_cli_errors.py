@@ -203,3 +203,10 @@ def test_digits_refused_by_the_library_too():
         level_loop("T(2,3)", 3, digits=-5)
     with pytest.raises(KnotobsError, match="from 1 to 2000"):
         level_partition_function("Sigma(2,3,5)", "SU(2)", 3, digits=10000)
+
+
+def test_max_memory_takes_effect():
+    # (1+t)^150 expands to 151 terms (binomial theorem): fine under the default limit,
+    # refused with its memory estimate under a limit of 1 kB
+    assert run("match", "--poly", "(1+t)^150").exit_code == 0
+    one_error(run("--max-memory", "0.001", "match", "--poly", "(1+t)^150"), "MB of memory", "--max-memory")
