@@ -637,8 +637,11 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
                 for b in batches:
                     consume(compute_batch(b, run_id))
             else:
+                from knotobs.guard import current_limits
+
+                lim = current_limits()
                 with cf.ProcessPoolExecutor(max_workers=workers, initializer=_worker_init,
-                                            initargs=(os.getpid(),)) as ex:
+                                            initargs=(os.getpid(), lim.seconds, lim.memory_mb)) as ex:
                     futs = [ex.submit(compute_batch, b, run_id) for b in batches]
                     try:
                         for fut in cf.as_completed(futs):
@@ -655,8 +658,17 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
         st.close()
 
 
-def _worker_init(parent: int) -> None:
-    """In each worker process: exit as soon as the parent process is gone (e.g. killed with -9)."""
+def _apply_limits(seconds: float, memory_mb: float) -> None:
+    """Make the parent's size/time limits (``--max-seconds``, ``--max-memory``) those of this process."""
+    os.environ["KNOTOBS_MAX_SECONDS"] = repr(float(seconds))
+    os.environ["KNOTOBS_MAX_MEMORY_MB"] = repr(float(memory_mb))
+
+
+def _worker_init(parent: int, seconds: float | None = None, memory_mb: float | None = None) -> None:
+    """In each worker process: the parent's limits, and exit as soon as the parent process is gone
+    (e.g. killed with -9)."""
+    if seconds is not None and memory_mb is not None:
+        _apply_limits(seconds, memory_mb)
     try:  # Linux: the kernel sends SIGTERM when the parent dies
         import ctypes
         import signal

@@ -267,3 +267,14 @@ def test_workers_exit_when_the_parent_is_killed(tmp_path):
     while time.time() - t < 10 and any(_alive(k) for k in kids):
         time.sleep(0.2)
     assert not any(_alive(k) for k in kids), "workers outlived their parent"
+
+
+def test_workers_inherit_the_limits(monkeypatch):
+    from knotobs.guard import current_limits, limits
+
+    monkeypatch.setenv("KNOTOBS_MAX_SECONDS", "60")
+    monkeypatch.setenv("KNOTOBS_MAX_MEMORY_MB", "2048")
+    with limits(seconds=7, memory_mb=300):
+        lim = current_limits()
+    grid_mod._apply_limits(lim.seconds, lim.memory_mb)     # what each worker runs first
+    assert current_limits().seconds == 7 and current_limits().memory_mb == 300
