@@ -90,7 +90,14 @@ def continue_(
         raise ParseError("give --level k (complex, e.g. 7.5+0.3i), --K, or --couplings t,tt")
     from knotobs.continuation.level import continued_partition_function
 
-    res = continued_partition_function(target, level, K=K, digits=digits, phases=phases)
+    from knotobs.output.progress import terminal_progress
+
+    bar = terminal_progress(f"continue {target}")
+    try:
+        res = continued_partition_function(target, level, K=K, digits=digits, phases=phases, progress=bar)
+    finally:
+        if bar is not None:
+            bar.close()
     text = (f"Z({res.space}) at K = {mpmath.nstr(res.K, 12)} (level k = K - 2)\n"
             f"  value = {certified_str(res.numeric, digits)}\n  normalisation: Z(S^3) = S_11, canonical 2-framing\n"
             f"  continuation: Lawrence-Rozansky integral + residues, phases {phases}")

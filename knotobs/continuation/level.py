@@ -536,7 +536,7 @@ def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
     return total * ha * u
 
 
-def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True) -> tuple[acb, dict[str, acb]]:
+def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True, tick=None) -> tuple[acb, dict[str, acb]]:
     """``Z(K)`` as a ball (rounding only; discretisation checked by the caller, who sets the precision)."""
     pieces: dict[str, acb] = {}
     two_pi_i = acb(0, 2) * arb.pi()
@@ -547,9 +547,13 @@ def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True) -> tuple[acb, d
         x = Fraction(d.P * r * r, d.H)
         pref = _phase(K, _sym(x) if reduced else x)
         integral_part += pref * J
+        if tick is not None:
+            tick()
     residue_part = acb(0)
     for t in residue_terms(d):
         residue_part += _residue_value(d, t, K, reduced)
+    if tick is not None:
+        tick()
     bracket = integral_part - two_pi_i * d.sigma * residue_part
     B = _B(d, K)
     pieces["integral"] = B * integral_part
@@ -721,7 +725,7 @@ def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
 
 
 def continued_partition_function(space, level=None, *, K=None, digits: int = 30,
-                                 phases: str = "reduced") -> ContinuedValue:
+                                 phases: str = "reduced", progress=None) -> ContinuedValue:
     """SU(2) partition function of a Seifert rational homology sphere at complex level.
 
     Parameters
@@ -741,6 +745,10 @@ def continued_partition_function(space, level=None, *, K=None, digits: int = 30,
         the continuation of smallest exponential type (Carlson's theorem: two
         continuations of type below ``pi`` in a half-plane that agree at the integers are
         equal), while the unreduced one grows like ``exp(pi m^2 |Im K|/(2P))``.
+
+    progress : callable, optional
+        ``progress(done, total)`` after each Gaussian integral and residue sum of both runs
+        (the command line shows it on a terminal).
 
     Returns
     -------
@@ -774,12 +782,18 @@ def continued_partition_function(space, level=None, *, K=None, digits: int = 30,
     Kv = resolve_K(level, K)
     require_continuation(d, Kv, digits)
     holder = {}
+    steps = {"done": 0, "total": 2 * (abs(d.H) + 1)}
+
+    def tick():
+        steps["done"] += 1
+        if progress is not None:
+            progress(steps["done"], steps["total"])
 
     def comp(dg):
         with working_bits(bits(dg)):
             # the level is read again at this precision, so the two runs are independent
             Ka = to_acb(resolve_K(level, K))
-            z, pieces = _Z_acb(d, Ka, dg, phases == "reduced")
+            z, pieces = _Z_acb(d, Ka, dg, phases == "reduced", tick)
             holder["pieces"] = pieces
             return z
 

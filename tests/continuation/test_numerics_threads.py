@@ -127,3 +127,26 @@ def test_runaway_continuations_are_refused_fast():
         assert time.time() - t < 2
     out = runner.invoke(app, ["continue", "Sigma(2,3,5)", "--K", "1000000000000000.5"])
     assert "too small" not in out.stderr and "large" in out.stderr
+
+
+def test_progress_reports_every_step_and_does_not_change_the_value():
+    seen = []
+    z = continued_partition_function("Sigma(2,3,7)", K="7.5+0.3i", digits=20,
+                                     progress=lambda done, total: seen.append((done, total))).numeric
+    assert seen and seen[-1][0] == seen[-1][1] and [d for d, _ in seen] == list(range(1, len(seen) + 1))
+    assert z == continued_partition_function("Sigma(2,3,7)", K="7.5+0.3i", digits=20).numeric
+
+
+def test_terminal_progress_line():
+    import io
+
+    from knotobs.output.progress import TerminalProgress
+
+    buf = io.StringIO()
+    p = TerminalProgress("continue Sigma(2,3,5)", stream=buf)
+    p(1, 4)                       # within the first second: nothing shown
+    assert buf.getvalue() == ""
+    p.t0 -= 2
+    p(4, 4)
+    p.close()
+    assert buf.getvalue().startswith("\rcontinue Sigma(2,3,5): 4/4") and buf.getvalue().endswith("\n")
