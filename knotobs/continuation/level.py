@@ -53,7 +53,7 @@ from fractions import Fraction
 from typing import Any, Sequence
 
 import mpmath
-from flint import acb, arb, ctx
+from flint import acb, arb
 
 from knotobs.continuation._num import (
     bernoulli_plus,

@@ -251,29 +251,28 @@ class GridStore:
     def _check(self, c) -> bool:
         """Validate an existing store; ``True`` when it is an SQLite file without tables (adopt it)."""
         fresh = False
-        if True:
-            bad = c.execute("PRAGMA quick_check").fetchone()[0]
-            if bad != "ok":
-                raise StoreError(f"results store {self.path!r} is damaged ({bad}); it was not modified")
-            app = c.execute("PRAGMA application_id").fetchone()[0]
-            tables = {r[0] for r in c.execute("SELECT name FROM sqlite_master WHERE type='table'")}
-            if app != APPLICATION_ID:
-                if tables:
-                    raise StoreError(f"{self.path!r} is an SQLite database of another program (tables:"
-                                     f" {', '.join(sorted(tables))}); give a new file name or a store written by knotobs")
-                fresh = True
-            else:
-                ver = c.execute("PRAGMA user_version").fetchone()[0]
-                if ver > SCHEMA_VERSION:
-                    raise StoreError(f"results store {self.path!r} has format {ver}, newer than this"
-                                     f" knotobs understands ({SCHEMA_VERSION}); upgrade knotobs")
-                missing = {"meta", "specs", "rows"} - tables
-                if missing:
-                    raise StoreError(f"results store {self.path!r} is damaged: missing table(s)"
-                                     f" {', '.join(sorted(missing))}")
-                cols = [r[1] for r in c.execute("PRAGMA table_info(rows)")]
-                if tuple(cols) != _ROW_COLUMNS:
-                    raise StoreError(f"results store {self.path!r} is damaged: unexpected columns {cols}")
+        bad = c.execute("PRAGMA quick_check").fetchone()[0]
+        if bad != "ok":
+            raise StoreError(f"results store {self.path!r} is damaged ({bad}); it was not modified")
+        app = c.execute("PRAGMA application_id").fetchone()[0]
+        tables = {r[0] for r in c.execute("SELECT name FROM sqlite_master WHERE type='table'")}
+        if app != APPLICATION_ID:
+            if tables:
+                raise StoreError(f"{self.path!r} is an SQLite database of another program (tables:"
+                                 f" {', '.join(sorted(tables))}); give a new file name or a store written by knotobs")
+            fresh = True
+        else:
+            ver = c.execute("PRAGMA user_version").fetchone()[0]
+            if ver > SCHEMA_VERSION:
+                raise StoreError(f"results store {self.path!r} has format {ver}, newer than this"
+                                 f" knotobs understands ({SCHEMA_VERSION}); upgrade knotobs")
+            missing = {"meta", "specs", "rows"} - tables
+            if missing:
+                raise StoreError(f"results store {self.path!r} is damaged: missing table(s)"
+                                 f" {', '.join(sorted(missing))}")
+            cols = [r[1] for r in c.execute("PRAGMA table_info(rows)")]
+            if tuple(cols) != _ROW_COLUMNS:
+                raise StoreError(f"results store {self.path!r} is damaged: unexpected columns {cols}")
         if fresh and self.readonly:
             raise StoreError(f"results store {self.path!r} has no tables yet: run a grid first")
         return fresh
