@@ -190,6 +190,10 @@ class GridStore:
                 self._init_retrying(fresh, timeout)
         except sqlite3.OperationalError as exc:
             self.conn.close()
+            if readonly:
+                raise StoreError(f"cannot read results store {self.path!r} ({exc}): its directory cannot be"
+                                 " written and it has an unfinished write-ahead log (-wal file) from an interrupted"
+                                 " writer; copy the store with its -wal file to a writable place") from None
             if any(w in str(exc).lower() for w in ("full", "readonly", "read-only", "locked", "busy", "unable to open")):
                 raise store_write_error(self.path, exc, resumable=False) from None
             raise StoreError(f"{self.path!r} is not a usable knotobs results store ({exc});"
