@@ -121,7 +121,8 @@ def build(r, command):
 
 
 @pytest.mark.parametrize("command", ["loop", "poly", "match", "fibers", "space", "flat", "continue", "plot", "grid"])
-def test_fuzz_command(command, tmp_path):
+def test_fuzz_command(command, tmp_path, monkeypatch):
+    monkeypatch.chdir(tmp_path)          # garbage file names (stores, figures, exports) land here
     r = random.Random(f"knotobs-{command}")
     (tmp_path / "EMPTY").write_bytes(b"")
     (tmp_path / "OUTDIR").mkdir()
