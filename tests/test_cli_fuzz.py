@@ -32,7 +32,9 @@ spaces = st.one_of(
 
 def _ok(result):
     assert result.exit_code in (0, 1, 2), result.output
-    assert "Traceback" not in result.output
+    # the runner catches exceptions itself: an escaped one would be in result.exception
+    assert result.exception is None or isinstance(result.exception, SystemExit), repr(result.exception)
+    assert "Traceback" not in result.output and "internal error" not in result.output, result.output
     if result.exit_code == 2:
         assert result.output.strip(), "an error must say something"
 

@@ -7,6 +7,7 @@ from typing import Optional
 import mpmath
 import typer
 
+from knotobs.cli import _inputs
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
 
@@ -58,13 +59,16 @@ def continue_(
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Values at complex level (Seifert partition functions) or at SL(N,C) couplings (torus knots)."""
+    from knotobs.precision import certified_str
+
+    digits = _inputs.digits(digits)
     if couplings is not None and not target.strip().upper().startswith("T("):
         from knotobs.continuation.complex import sl2c_partition_function
 
         res = sl2c_partition_function(target, couplings, digits=digits)
         js = res.to_json()
         text = (f"SL(2,C) partition function of {target} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
-                f"  value = {mpmath.nstr(res.numeric, digits)}\n  sum over flat-connection sectors: {js['variables']}")
+                f"  value = {certified_str(res.numeric, digits)}\n  sum over flat-connection sectors: {js['variables']}")
         for cs, (h, _a) in sorted(res.sectors.items()):
             text += f"\n    cs = {str(cs):>10s}  holomorphic block = {mpmath.nstr(h, min(digits, 12))}"
         for n in res.notes:
@@ -77,7 +81,7 @@ def continue_(
         res = sl_wilson_loop(target, rep, couplings, N=N, digits=digits)
         js = res.to_json()
         text = (f"SL({N},C) Wilson loop of {target} in {rep} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
-                f"  value = {mpmath.nstr(res.numeric, digits)}\n  variables: {js['variables']}")
+                f"  value = {certified_str(res.numeric, digits)}\n  variables: {js['variables']}")
         for n in res.notes:
             text += f"\n  note: {n}"
         emit(js, text, as_json)
@@ -86,9 +90,16 @@ def continue_(
         raise ParseError("give --level k (complex, e.g. 7.5+0.3i), --K, or --couplings t,tt")
     from knotobs.continuation.level import continued_partition_function
 
-    res = continued_partition_function(target, level, K=K, digits=digits, phases=phases)
+    from knotobs.output.progress import terminal_progress
+
+    bar = terminal_progress(f"continue {target}")
+    try:
+        res = continued_partition_function(target, level, K=K, digits=digits, phases=phases, progress=bar)
+    finally:
+        if bar is not None:
+            bar.close()
     text = (f"Z({res.space}) at K = {mpmath.nstr(res.K, 12)} (level k = K - 2)\n"
-            f"  value = {mpmath.nstr(res.numeric, digits)}\n  normalisation: Z(S^3) = S_11, canonical 2-framing\n"
+            f"  value = {certified_str(res.numeric, digits)}\n  normalisation: Z(S^3) = S_11, canonical 2-framing\n"
             f"  continuation: Lawrence-Rozansky integral + residues, phases {phases}")
     for n in res.notes:
         text += f"\n  note: {n}"
@@ -110,21 +121,18 @@ def plot(
     """Figures: |Z| and arg Z over the complex K plane, exact vs asymptotic, zeros of a polynomial."""
     from knotobs.continuation import plots
 
-    def rng(s: str):
-        try:
-            a, b = (float(x) for x in s.split(","))
-        except ValueError:
-            raise ParseError(f"cannot read range {s!r}: write two numbers a,b") from None
-        return a, b
-
     k = kind.lower()
-    if k == "level-plane":
-        p = plots.plot_level_plane(target, out, rng(re_range), rng(im_range), n=n)
-    elif k == "asymptotics":
-        Ks = sorted(set(list(range(10, min(kmax, 100) + 1, 5)) + list(range(100, kmax + 1, 25))))
-        p = plots.plot_asymptotics(target, out, Ks=Ks)
-    elif k == "zeros":
-        p = plots.plot_zeros(target, out, family="colored-jones" if color else "jones", color=color)
-    else:
+    if k not in ("level-plane", "asymptotics", "zeros"):
         raise ParseError(f"unknown plot {kind!r}: use level-plane, asymptotics or zeros")
+    _inputs.output_path(out, "--out")
+    if k == "level-plane":
+        p = plots.plot_level_plane(target, out, _inputs.float_range(re_range, "--re"),
+                                   _inputs.float_range(im_range, "--im"), n=n)
+    elif k == "asymptotics":
+        _inputs.int_at_least(kmax, 15, "--kmax", "the plot starts at K = 10 and needs two levels")
+        p = plots.plot_asymptotics(target, out, Ks=plots.asymptotic_levels(kmax))
+    else:
+        if color is not None:
+            _inputs.int_at_least(color, 1, "--color", "the colour is the dimension n >= 1 of the SU(2) irrep")
+        p = plots.plot_zeros(target, out, family="colored-jones" if color is not None else "jones", color=color)
     emit({"file": str(p), "kind": k}, f"wrote {p}", False)

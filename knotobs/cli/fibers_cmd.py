@@ -60,8 +60,12 @@ def space(
         report = space_report(space_, surgery=surgery, slope=slope)
         emit(space_json(report), space_text(report), as_json)
         return
-    value, report = level_partition_function(space_, group, level, digits, surgery=surgery, slope=slope,
-                                             route=route)
+    from knotobs.cli import _inputs
+
+    digits = _inputs.digits(digits)
+    with _inputs.naming(f"{space_ or surgery} at --level {level}"):
+        value, report = level_partition_function(space_, group, level, digits, surgery=surgery, slope=slope,
+                                                 route=route)
     payload = space_json(report)
     payload.update(finite_json(value, {"space": space_, "surgery": surgery, "slope": slope,
                                        "group": group, "level": level, "digits": digits, "route": route},

@@ -9,9 +9,8 @@ from typing import Optional
 import typer
 
 from knotobs.cli._app import app, emit, handle_errors
-from knotobs.errors import ParseError
+from knotobs.errors import ParseError, SizeLimitError
 from knotobs.output.schema import EXPORT_FORMATS, export_grid
-from knotobs.representations.partitions import parse_partition
 from knotobs.tables.grid import GridSpec, grid_status, resume_grid, run_grid, torus_knots
 
 grid_app = typer.Typer(help="Grids of invariants: run (resumable), resume, export, status.", no_args_is_help=True)
@@ -30,7 +29,12 @@ def _knots(text: Optional[str], max_pq: Optional[int], links: bool) -> list[str]
             raise ParseError(f"cannot read knots {text!r}: write a list like 'T(2,3),T(2,5),T(3,4)'")
         out += found
     if max_pq is not None:
-        out += torus_knots(max_pq, links=links)
+        if max_pq < 6:
+            raise ParseError(f"--max-pq {max_pq}: the smallest torus knot is T(2,3) (P*Q = 6); give --max-pq >= 6")
+        try:
+            out += torus_knots(max_pq, links=links)
+        except SizeLimitError as exc:
+            raise SizeLimitError(str(exc).replace("max_pq = ", "--max-pq ").replace("max_pq <=", "--max-pq <=")) from None
     if not out:
         raise ParseError("give the knots: --knots 'T(2,3),T(3,4)' and/or --max-pq N (all torus knots with P*Q <= N)")
     return out
@@ -46,6 +50,8 @@ def _levels(text: str) -> list:
                 out.append(int(tok))
             except ValueError:
                 raise ParseError(f"cannot read level {tok!r}: use 'generic' or a positive integer, e.g. generic,1,2,3") from None
+    if not out:
+        raise ParseError(f"--levels {text!r} is empty: use 'generic' and/or positive integers, e.g. generic,1,2,3")
     return out
 
 
@@ -74,7 +80,9 @@ def run(
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Compute a grid (skipping rows already in the store) and store every row."""
-    spec = GridSpec(_knots(knots, max_pq, links), group, [parse_partition(r) for r in reps.split(";") if r.strip()],
+    from knotobs.cli import _inputs
+
+    spec = GridSpec(_knots(knots, max_pq, links), group, _inputs.reps(reps, "--reps", one_allowed=False),
                     _levels(levels), quantity, not unnormalized, framing, dps)
     rep = run_grid(spec, store, workers, _show(progress), scheduler)
     emit(rep.to_json(), rep.describe(), as_json)

@@ -6,6 +6,7 @@ from typing import Optional
 
 import typer
 
+from knotobs.cli import _inputs
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
 from knotobs.evaluation.families import alexander, colored_jones, homfly, homfly_at, jones, wilson_loop
@@ -14,15 +15,11 @@ from knotobs.evaluation.level_loops import level_loop
 from knotobs.output.finite_text import finite_json, finite_text
 from knotobs.output.text import render_polynomial
 from knotobs.representations.cartan.group import is_simple_group_name
-from knotobs.representations.partitions import parse_partition
 
 
-def _reps(text: str):
-    """``[2,1]`` or ``[2,1];[1]`` (one partition per component)."""
-    parts = [p for p in text.split(";") if p.strip()]
-    if len(parts) == 1:
-        return parse_partition(parts[0])
-    return [parse_partition(p) for p in parts]
+def _reps(text: str, option: str = "--rep"):
+    """``[2,1]`` or ``[2,1];[1]`` (one partition per component); empty or unbalanced text is refused."""
+    return _inputs.reps(text, option)
 
 
 def _framing(text: Optional[str]):
@@ -59,15 +56,18 @@ def loop(
         if in_ != "S^3" or fiber is not None:
             raise ParseError("--in and --fiber need --level k (polynomials in q are computed in S^3)")
         reps = rep if is_simple_group_name(group) else _reps(rep)   # SO/Sp/G2 read (1,0) and [1] themselves
-        res = wilson_loop(knot, group, reps, _framing(framing), normalized, route or "rosso-jones")
+        with _inputs.naming(f"{knot} with --rep {rep}"):
+            res = wilson_loop(knot, group, reps, _framing(framing), normalized, route or "rosso-jones")
         emit(res.to_json(), render_polynomial(res), as_json)
         return
     fr = _framing(framing) if framing is not None else None
     if route in ("rosso-jones", "weight-sum"):
         raise ParseError(f"--route {route} names a polynomial route; with --level use auto, surgery,"
                          " localisation or both")
-    val = level_loop(knot, level, group, rep if is_simple_group_name(group) else _reps(rep), in_, fiber, fr,
-                     not raw, digits, route or "auto")
+    digits = _inputs.digits(digits)
+    reps = rep if is_simple_group_name(group) else _reps(rep)
+    with _inputs.naming(f"{knot if knot is not None else in_} at --level {level} with --rep {rep}"):
+        val = level_loop(knot, level, group, reps, in_, fiber, fr, not raw, digits, route or "auto")
     what = knot if knot is not None else f"core fiber {fiber} of {in_}"
     inputs = {"knot": knot, "space": in_, "fiber": fiber, "group": group, "rep": rep, "level": level,
               "framing": framing, "digits": digits, "raw": raw}
@@ -97,13 +97,15 @@ def poly(
     elif fam in ("colored-jones", "coloured-jones"):
         if color is None:
             raise ParseError("--family colored-jones needs --color N (N = dimension of the SU(2) irrep, N >= 1)")
-        res = colored_jones(knot, color, t_is=t_is, mirror=mirror, normalized=norm)
+        with _inputs.naming(f"{knot} with --color {color}"):
+            res = colored_jones(knot, color, t_is=t_is, mirror=mirror, normalized=norm)
     elif fam in ("homfly", "homfly-pt", "homflypt"):
-        reps = _reps(rep) if rep else (1,)
-        if rank is not None:
-            res = homfly_at(knot, rank, reps, mirror=mirror)
-        else:
-            res = homfly(knot, reps, mirror=mirror, normalized=norm, form=form)
+        reps = _reps(rep) if rep is not None else (1,)
+        with _inputs.naming(f"{knot} with --rep {rep if rep is not None else '[1]'}"):
+            if rank is not None:
+                res = homfly_at(knot, rank, reps, mirror=mirror)
+            else:
+                res = homfly(knot, reps, mirror=mirror, normalized=norm, form=form)
     elif fam == "alexander":
         res = alexander(knot, mirror=mirror)
     elif fam in ("kauffman", "dubrovnik"):

@@ -6,19 +6,16 @@ from typing import Optional
 
 import typer
 
+from knotobs.cli import _inputs
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
-from knotobs.representations.partitions import parse_partition
 from knotobs.tables.compare import compare, compare_knotinfo
 from knotobs.tables.identify import identify
 from knotobs.tables.polyparse import read_polynomial
 
 
 def _reps(text: str):
-    parts = [p for p in text.split(";") if p.strip()]
-    if len(parts) == 1:
-        return parse_partition(parts[0])
-    return [parse_partition(p) for p in parts]
+    return _inputs.reps(text, "--rep")
 
 
 @app.command()

@@ -8,6 +8,7 @@ python-flint's ``acb`` balls and convert the midpoint to ``mpmath`` once.
 from __future__ import annotations
 
 import re
+from contextlib import contextmanager
 from fractions import Fraction
 from typing import Callable, Sequence
 
@@ -15,6 +16,7 @@ import mpmath
 from flint import acb, arb, ctx
 
 from knotobs.errors import ParseError, PrecisionError
+from knotobs.numerics import working_precision
 
 __all__ = [
     "bits",
@@ -28,6 +30,8 @@ __all__ = [
     "ser_sin",
     "bernoulli_plus",
     "agree",
+    "working_bits",
+    "ball_seconds",
 ]
 
 
@@ -36,9 +40,23 @@ def bits(digits: int, guard: int = 20) -> int:
     return int((digits + guard) * 3.33) + 16
 
 
+@contextmanager
+def working_bits(b: int):
+    """At least ``b`` bits in python-flint and mpmath for the block (under the numerics lock)."""
+    with working_precision(int(b / 3.3219280948873626) + 2):
+        yield
+
+
+def ball_seconds(ops: float, digits: int) -> float:
+    """Estimated seconds for ``ops`` ball (acb) operations at ``digits`` decimal digits."""
+    from knotobs.guard import seconds_for
+
+    return seconds_for(ops, "ball") * max(1.0, (digits / 30.0)) ** 1.6
+
+
 def to_mpc(z: acb, digits: int) -> mpmath.mpc:
     """Midpoint of an ``acb`` ball as an ``mpmath.mpc`` (``digits + 10`` digits kept)."""
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         re_ = mpmath.mpf(z.real.mid().str(digits + 10, radius=False))
         im_ = mpmath.mpf(z.imag.mid().str(digits + 10, radius=False))
         return mpmath.mpc(re_, im_)
@@ -107,16 +125,19 @@ def parse_complex(value, name: str = "value") -> mpmath.mpc:
 
 def agree(a: mpmath.mpc, b: mpmath.mpc, digits: int) -> bool:
     """``|a - b| <= 10^-digits * max(|a|, 1)`` (absolute below 1, relative above)."""
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         return abs(a - b) <= mpmath.mpf(10) ** (-digits) * max(abs(a), 1)
 
 
 def checked(compute: Callable[[int], acb], digits: int, what: str) -> mpmath.mpc:
-    """``compute(d)`` at ``d = digits`` and ``digits + 10`` must agree to ``digits`` digits.
+    """``compute(d)`` at ``d = digits + 3`` and ``digits + 12`` must agree to ``digits`` digits.
 
     ``compute`` receives the number of digits it should aim for and sets its own
     precision, step sizes and cut-offs from it; the two runs therefore differ in
-    every discretisation parameter, not only in rounding.
+    every discretisation parameter, not only in rounding.  ``compute`` must derive everything
+    from the user's input afresh at its own precision (parse the level again, recompute every
+    constant): a quantity computed once at the lower precision and reused would carry the same
+    error into both runs, and the comparison could not see it.
     """
     z1 = to_mpc(compute(digits + 3), digits)
     z2 = to_mpc(compute(digits + 12), digits + 10)
@@ -126,7 +147,7 @@ def checked(compute: Callable[[int], acb], digits: int, what: str) -> mpmath.mpc
             f" {mpmath.nstr(abs(z1 - z2), 3)}); request fewer digits or a level further from"
             " the boundary of the allowed region"
         )
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +z2
 
 

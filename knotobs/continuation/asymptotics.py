@@ -35,7 +35,7 @@ from typing import Sequence
 import mpmath
 from flint import acb, arb, ctx
 
-from knotobs.continuation._num import bits, parse_complex, ser_inv, ser_mul, ser_sin, to_acb, to_mpc
+from knotobs.continuation._num import bits, parse_complex, ser_inv, ser_mul, ser_sin, to_acb, to_mpc, working_bits
 from knotobs.continuation.level import (
     DomainError,
     LRData,
@@ -45,6 +45,7 @@ from knotobs.continuation.level import (
     residue_terms,
 )
 from knotobs.errors import SizeLimitError
+from knotobs.numerics import working_precision
 
 __all__ = [
     "predicted_exponent",
@@ -136,9 +137,7 @@ def _vanishes(d: LRData, terms) -> bool:
     polynomial of degree ``<= n - 3`` in ``K``, so vanishing at ``n + 2`` integers
     with the phases aligned means vanishing at all integers; checked at high precision.
     """
-    old = ctx.prec
-    try:
-        ctx.prec = 300
+    with working_bits(300):
         for K in [acb(101 + 37 * i) for i in range(d.n + 2)]:
             s = acb(0)
             for t in terms:
@@ -146,8 +145,6 @@ def _vanishes(d: LRData, terms) -> bool:
             if not (abs(s) < arb(10) ** -60):
                 return False
         return True
-    finally:
-        ctx.prec = old
 
 
 def _saddle_terms(d: LRData, r: int, order: int) -> list[tuple[int, acb]]:
@@ -234,9 +231,7 @@ def asymptotic_value(space, K, order: int = 2, digits: int = 30, per_sector: boo
         raise SizeLimitError(f"order = {order!r} must be an integer between 0 and 60")
     d = space if isinstance(space, LRData) else LRData.from_space(space)
     Kv = parse_complex(K, "K")
-    old = ctx.prec
-    try:
-        ctx.prec = bits(digits)
+    with working_bits(bits(digits)):
         Ka = to_acb(Kv)
         total = acb(0)
         parts = []
@@ -245,8 +240,6 @@ def asymptotic_value(space, K, order: int = 2, digits: int = 30, per_sector: boo
             total += v
             parts.append((c, to_mpc(v, digits)))
         res = to_mpc(total, digits)
-    finally:
-        ctx.prec = old
     return (res, parts) if per_sector else res
 
 
@@ -257,9 +250,7 @@ def predicted_exponent(space, order: int) -> Fraction:
     (Fraction(7, 2), Fraction(5, 2))
     """
     d = space if isinstance(space, LRData) else LRData.from_space(space)
-    old = ctx.prec
-    try:
-        ctx.prec = 200
+    with working_bits(200):
         best = None
         for r in range(abs(d.H)):
             terms = _saddle_terms(d, r, order + 1)
@@ -268,8 +259,6 @@ def predicted_exponent(space, order: int) -> Fraction:
                 e = Fraction(2 * j + 1, 2)
                 best = e if best is None else min(best, e)
         return best if best is not None else Fraction(10**6)
-    finally:
-        ctx.prec = old
 
 
 @dataclass(frozen=True)
@@ -299,7 +288,7 @@ def compare_with_exact(space, Ks: Sequence[int], order: int = 2, digits: int = 3
             raise DomainError(f"K = {K!r}: the comparison needs integers K >= 3")
         ex = gauss_sum_partition_function(d.space, K - 2, digits=digits, exact=False).numeric
         asy = asymptotic_value(d, K, order, digits)
-        with mpmath.workdps(digits):
+        with working_precision(digits):
             rows.append(AsymptoticRow(K, ex, asy, abs(ex - asy)))
     return rows
 

@@ -43,7 +43,10 @@ from typing import Any
 import mpmath
 
 from knotobs.continuation._num import parse_complex
-from knotobs.errors import InvalidRepresentationError, ParseError
+from knotobs.errors import InvalidRepresentationError, ParseError, PrecisionError
+from knotobs.guard import require, seconds_for
+from knotobs.numerics import working_precision
+from knotobs.precision import certified_parts, check_digits
 from knotobs.evaluation.families import wilson_loop
 from knotobs.representations.complexified import ComplexRep
 
@@ -124,19 +127,40 @@ class ComplexObservable:
             "rep": [list(self.rep.lam), list(self.rep.lamt)],
             "couplings": {"t": c(self.t), "tt": c(self.tt)},
             "variables": "q = exp(4 pi i/t), qt = exp(-4 pi i/tt)",
-            "numeric": {**c(self.numeric), "digits": self.digits},
-            "holomorphic": c(self.holomorphic),
-            "antiholomorphic": c(self.antiholomorphic),
+            "numeric": {**_value_json(self.numeric, self.digits), "digits": self.digits},
+            "holomorphic": _value_json(self.holomorphic, self.digits),
+            "antiholomorphic": _value_json(self.antiholomorphic, self.digits),
             "unitary": not self.notes,
             "notes": list(self.notes),
         }
 
 
-def _chiral(knot, N: int, lam, log_q, framing, normalized, digits) -> mpmath.mpc:
+def _value_json(z, digits: int) -> dict[str, str]:
+    """A computed value: only its certified decimal places (CONVENTIONS §16)."""
+    re_, im_ = certified_parts(z, digits)
+    return {"re": re_, "im": im_}
+
+
+def _chiral_poly(knot, N: int, lam, framing, normalized):
     if lam == ():
+        return None
+    return wilson_loop(knot, f"SU({N})", lam, framing, normalized).value
+
+
+def _chiral(W, log_q, digits) -> mpmath.mpc:
+    if W is None:
         return mpmath.mpc(1)
-    W = wilson_loop(knot, f"SU({N})", lam, framing, normalized).value
     return mpmath.mpc(W.evaluate(log_x=log_q, dps=digits))
+
+
+def _extra_digits(t, tt, polys) -> int:
+    """Digits lost to the phase ``exp(e * 4 pi i/t)``: log10 of the largest ``|e * 4 pi/t|``."""
+    top = 1
+    for W in polys:
+        if W is not None:
+            top = max([top] + [abs(float(e)) + 1 for e in W.terms()])
+    big = max(abs(4 * mpmath.pi / t), abs(4 * mpmath.pi / tt), 1) * top
+    return int(mpmath.ceil(mpmath.log10(big))) + 5
 
 
 def sl_wilson_loop(knot, rep, couplings, N: int | None = None, framing=0, normalized: bool = False,
@@ -177,20 +201,37 @@ def sl_wilson_loop(knot, rep, couplings, N: int | None = None, framing=0, normal
         rep = ComplexRep.parse(N, rep)
     if not isinstance(rep, ComplexRep):
         raise InvalidRepresentationError(f"{rep!r} is not an SL(N,C) representation: use ComplexRep or '[lam];[lamt]'")
+    digits = check_digits(digits)
     t, tt = parse_couplings(couplings)
-    with mpmath.workdps(digits + 15):
-        lq = 4j * mpmath.pi / t
-        lqt = -4j * mpmath.pi / tt
-        vals = []
-        for d in (digits + 5, digits + 15):
-            h = _chiral(knot, rep.N, rep.lam, lq, framing, normalized, d)
-            a = _chiral(knot, rep.N, rep.lamt, lqt, framing, normalized, d)
-            vals.append((h, a, h * a))
-        if abs(vals[0][2] - vals[1][2]) > mpmath.mpf(10) ** (-digits) * max(abs(vals[1][2]), 1):
-            raise ParseError("value not stable at the requested precision; ask for fewer digits")  # pragma: no cover
-    h, a, v = vals[1]
+    Wh = _chiral_poly(knot, rep.N, rep.lam, framing, normalized)
+    Wa = _chiral_poly(knot, rep.N, rep.lamt, framing, normalized)
+    extra = _extra_digits(t, tt, (Wh, Wa))
+    terms = sum(len(W.terms()) for W in (Wh, Wa) if W is not None)
+    top = digits + 15 + extra
+    require(f"SL({rep.N},C) Wilson loop of {knot} at couplings {couplings!r} to {digits} digits"
+            f" ({extra} extra digits for the phases, {terms} terms)",
+            seconds=seconds_for(2 * terms * 10, "ball") * max(1.0, top / 30) ** 1.6,
+            accepted="give couplings of moderate size (|4 pi/t| below about 10^1000) or fewer digits")
+
+    def run(d):
+        # everything from the user's text again, at this run's precision: the couplings, the
+        # logarithms of q and qt and the phases (a value reused from the other run would carry
+        # its error into both, and the comparison could not see it)
+        with working_precision(d + extra):
+            t_, tt_ = parse_couplings(couplings)
+            h = _chiral(Wh, 4j * mpmath.pi / t_, d + extra)
+            a = _chiral(Wa, -4j * mpmath.pi / tt_, d + extra)
+            return h, a, h * a
+
+    lo = run(digits + 5)
+    hi = run(digits + 15)
+    with working_precision(top):
+        if abs(lo[2] - hi[2]) > mpmath.mpf(10) ** (-digits) * max(abs(hi[2]), 1):
+            raise PrecisionError(f"SL({rep.N},C) Wilson loop of {knot}: {digits} digits could not be"
+                                 " confirmed by two independent precisions; request fewer digits")
+    h, a, v = hi
     note = unitarity_note(t, tt)
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return ComplexObservable(str(knot), rep, t, tt, +h, +a, +v, digits, (note,) if note else ())
 
 
@@ -215,9 +256,10 @@ class SectorSum:
             "space": self.space,
             "couplings": {"t": c(self.t), "tt": c(self.tt)},
             "variables": "K = t/2 (q = exp(4 pi i/t)); antiholomorphic block conj Z_alpha(conj(tt)/2)",
-            "sectors": [{"cs": str(cs), "holomorphic": c(h), "antiholomorphic": c(a)}
+            "sectors": [{"cs": str(cs), "holomorphic": _value_json(h, self.digits),
+                         "antiholomorphic": _value_json(a, self.digits)}
                         for cs, (h, a) in sorted(self.sectors.items())],
-            "numeric": {**c(self.numeric), "digits": self.digits},
+            "numeric": {**_value_json(self.numeric, self.digits), "digits": self.digits},
             "unitary": not self.notes,
             "notes": list(self.notes),
         }
@@ -256,8 +298,9 @@ def sl2c_partition_function(space, couplings, digits: int = 30) -> SectorSum:
     """
     from knotobs.continuation.level import sector_values
 
+    digits = check_digits(digits)
     t, tt = parse_couplings(couplings)
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         hol = sector_values(space, t / 2, digits + 5)
         anti_raw = sector_values(space, mpmath.conj(tt) / 2, digits + 5)
         sectors = {}
@@ -269,5 +312,5 @@ def sl2c_partition_function(space, couplings, digits: int = 30) -> SectorSum:
             total += h * a
     note = unitarity_note(t, tt)
     name = str(getattr(space, "normal_form", lambda: space)()) if not isinstance(space, str) else space
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return SectorSum(name, t, tt, sectors, +total, digits, (note,) if note else ())

@@ -21,6 +21,8 @@ from dataclasses import dataclass
 
 import mpmath
 
+from knotobs.numerics import working_precision
+
 from knotobs.errors import InvalidRepresentationError, SizeLimitError
 from knotobs.evaluation.families import colored_jones
 
@@ -59,10 +61,10 @@ def kashaev_invariant(knot, N: int, digits: int = 30) -> mpmath.mpc:
     J = colored_jones(knot, N).value
     v1 = J.at_root_of_unity(N, dps=digits + 5)
     v2 = J.at_root_of_unity(N, dps=digits + 15)
-    with mpmath.workdps(digits + 5):
+    with working_precision(digits + 5):
         if abs(v1 - v2) > mpmath.mpf(10) ** (-digits) * max(abs(v2), 1):  # pragma: no cover
             raise SizeLimitError("Kashaev invariant not stable at the requested precision")
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +mpmath.mpc(v2)
 
 

@@ -53,7 +53,7 @@ from fractions import Fraction
 from typing import Any, Sequence
 
 import mpmath
-from flint import acb, arb, ctx
+from flint import acb, arb
 
 from knotobs.continuation._num import (
     bernoulli_plus,
@@ -66,8 +66,13 @@ from knotobs.continuation._num import (
     ser_sin,
     to_acb,
     to_mpc,
+    ball_seconds,
+    working_bits,
 )
-from knotobs.errors import InvalidSeifertDataError, KnotobsError, PrecisionError
+from knotobs.errors import InvalidSeifertDataError, KnotobsError, PrecisionError, SizeLimitError
+from knotobs.guard import require
+from knotobs.numerics import working_precision
+from knotobs.precision import certified_parts, check_digits
 from knotobs.fibrations.seifert import SeifertManifold, parse_space
 from knotobs.polynomials.laurent import Laurent
 
@@ -82,6 +87,8 @@ __all__ = [
     "ResidueTerm",
     "DomainError",
     "sector_values",
+    "require_continuation",
+    "continuation_cost",
 ]
 
 
@@ -116,6 +123,9 @@ def resolve_K(level=None, K=None, N: int = 2) -> mpmath.mpc:
         Kv = parse_complex(level, "level") + N
     if Kv == 0:
         raise DomainError(f"K = 0 (level k = {-N}) is not allowed: q = exp(2 pi i/K) is undefined")
+    if not (mpmath.isfinite(Kv.real) and mpmath.isfinite(Kv.imag)) or abs(Kv) > mpmath.mpf(10) ** 100:
+        given = K if K is not None else level
+        raise DomainError(f"{'K' if K is not None else 'level'} = {given!s}: |K| must be at most 1e100")
     return Kv
 
 
@@ -154,29 +164,30 @@ def evaluate_polynomial(poly: Laurent, *, K=None, level=None, q=None, N: int = 2
     """
     if not isinstance(poly, Laurent):
         raise KnotobsError(f"expected an exact Laurent polynomial, got {type(poly).__name__}")
+    digits = check_digits(digits)
     if q is not None:
         if K is not None or level is not None:
             raise DomainError("give q, or K/level, not both")
-        qv = parse_complex(q, "q")
-        if qv == 0:
+        if parse_complex(q, "q") == 0:
             raise DomainError("q = 0 is not allowed for a Laurent polynomial")
 
         def comp(d):
-            with mpmath.workdps(d + 10):
-                return poly.evaluate(qv, dps=d)
+            # q is read again at this precision: both runs start from the text the user gave
+            with working_precision(d + 10):
+                return poly.evaluate(parse_complex(q, "q"), dps=d)
     else:
-        Kv = resolve_K(level, K, N)
+        resolve_K(level, K, N)
 
         def comp(d):
-            with mpmath.workdps(d + 10):
-                return poly.evaluate(log_x=2j * mpmath.pi / Kv, dps=d)
+            with working_precision(d + 10):
+                return poly.evaluate(log_x=2j * mpmath.pi / resolve_K(level, K, N), dps=d)
 
     z1 = mpmath.mpc(comp(digits + 5))
     z2 = mpmath.mpc(comp(digits + 15))
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         if abs(z1 - z2) > mpmath.mpf(10) ** (-digits) * max(abs(z2), 1):
             raise PrecisionError(f"polynomial value not stable to {digits} digits; request fewer digits")
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +z2
 
 
@@ -427,14 +438,26 @@ def _angle(d: LRData, K: acb) -> tuple[acb, float]:
     return (acb(0, 1) * th).exp(), st
 
 
-def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
-    """``int_{L_r} exp(-i pi K H (z + c_r)^2/(2P)) G(z) dz`` on the steepest line through the centre."""
-    u, st = _angle(d, K)
+MAX_NODES = 2_000_000
+# measured speed-ups over knotobs.guard's generic ball-operation cost (2-core machine, 2026): the
+# trapezoid loop runs geometric recurrences (cheap products), the residue series are short
+QUADRATURE_SPEED = 60.0
+RESIDUE_SPEED = 3.0
+
+
+def _nodes_message(d: "LRData", Kv, N: int) -> str:
+    K = mpmath.nstr(Kv, 15)
+    why = ("|K| is large: the Gaussian is narrow, and the nodes grow like sqrt|K|; use a smaller |K|"
+           if abs(Kv) > 100 else "|K| is small or K is close to the cut; move K away from 0 and from the cut")
+    return f"K = {K} on {d.space}: the quadrature needs {2 * N} nodes per integral (at most {2 * MAX_NODES}); {why}"
+
+
+def _quadrature(d: "LRData", r: int, absK: float, st: float, digits: int):
+    """Centre shift ``c``, start ``x0``, step ``h`` and half-count ``N`` of the ``r``-th trapezoid rule."""
     c = -d.saddle(r)                         # Fraction >= 0
     x0 = -c
     if d.n >= 3 and c.denominator == 1 and d.pole_order(-int(c)) >= 1:
         x0 = -c - Fraction(1, 2)             # saddle on a pole: pass beside it
-    absK = float(abs(K).mid())
     a = math.pi * absK * abs(d.H) / (2 * d.P)
     # distance from the line to the nearest pole of G
     if d.n >= 3:
@@ -454,11 +477,15 @@ def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
     smax = (b + math.sqrt(b * b + 4 * a * T)) / (2 * a) + abs(shift)
     h = 2 * math.pi * strip / (T + a * strip * strip + b * strip + max(0.0, math.log(1 / max(dist - strip, 1e-6))) + 5)
     N = int(math.ceil(smax / h))
-    if N > 400_000:
-        raise DomainError(
-            f"K = {mpmath.nstr(to_mpc(K, 10), 8)} needs {2 * N} quadrature nodes; |K| is too small or too"
-            " close to the cut for this representation"
-        )
+    return c, x0, h, N
+
+
+def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
+    """``int_{L_r} exp(-i pi K H (z + c_r)^2/(2P)) G(z) dz`` on the steepest line through the centre."""
+    u, st = _angle(d, K)
+    c, x0, h, N = _quadrature(d, r, float(abs(K).mid()), st, digits)
+    if N > MAX_NODES:
+        raise SizeLimitError(_nodes_message(d, to_mpc(K, 15), N))
     ha = arb(h)
     coef = acb(0, -1) * arb.pi() * K * d.H / (2 * d.P)
     xa = acb(x0.numerator) / x0.denominator
@@ -509,9 +536,8 @@ def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
     return total * ha * u
 
 
-def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True) -> tuple[acb, dict[str, acb]]:
-    """``Z(K)`` as a ball (rounding only; discretisation checked by the caller)."""
-    ctx.prec = bits(digits)
+def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True, tick=None) -> tuple[acb, dict[str, acb]]:
+    """``Z(K)`` as a ball (rounding only; discretisation checked by the caller, who sets the precision)."""
     pieces: dict[str, acb] = {}
     two_pi_i = acb(0, 2) * arb.pi()
     bracket = acb(0)
@@ -521,9 +547,13 @@ def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True) -> tuple[acb, d
         x = Fraction(d.P * r * r, d.H)
         pref = _phase(K, _sym(x) if reduced else x)
         integral_part += pref * J
+        if tick is not None:
+            tick()
     residue_part = acb(0)
     for t in residue_terms(d):
         residue_part += _residue_value(d, t, K, reduced)
+    if tick is not None:
+        tick()
     bracket = integral_part - two_pi_i * d.sigma * residue_part
     B = _B(d, K)
     pieces["integral"] = B * integral_part
@@ -535,9 +565,8 @@ def _sectors_acb(d: LRData, K: acb, digits: int, reduced: bool = True) -> dict[F
     """``Z(K)`` split by Chern–Simons value: ``{cs mod 1 in [0, 1): value}`` (B included).
 
     Gaussian pieces ``r`` carry ``cs = P r^2/H``; residues carry their own ``cs``.  The
-    values add up to :func:`_Z_acb`.
+    values add up to :func:`_Z_acb`.  The caller sets the precision.
     """
-    ctx.prec = bits(digits)
     two_pi_i = acb(0, 2) * arb.pi()
     B = _B(d, K)
     out: dict[Fraction, acb] = {}
@@ -575,15 +604,15 @@ def sector_values(space, K, digits: int = 30, phases: str = "reduced") -> dict[F
     """
     if phases not in PHASES:
         raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
+    digits = check_digits(digits)
     d = LRData.from_space(space)
     Kv = resolve_K(K=K)
+    require_continuation(d, Kv, digits)
+
     def run(dg):
-        old = ctx.prec
-        try:
-            ctx.prec = bits(dg)
-            return _sectors_acb(d, to_acb(Kv), dg, phases == "reduced")
-        finally:
-            ctx.prec = old
+        with working_bits(bits(dg)):
+            # K is read again at this precision, so the two runs are independent
+            return _sectors_acb(d, to_acb(resolve_K(K=K)), dg, phases == "reduced")
 
     lo, hi = run(digits + 3), run(digits + 12)
     keep = set(hi)
@@ -639,10 +668,8 @@ class ContinuedValue:
             "space": self.space,
             "K": {"re": mpmath.nstr(self.K.real, 15), "im": mpmath.nstr(self.K.imag, 15)},
             "level": {"re": mpmath.nstr(self.K.real - 2, 15), "im": mpmath.nstr(self.K.imag, 15)},
-            "numeric": {"re": mpmath.nstr(self.numeric.real, self.digits),
-                        "im": mpmath.nstr(self.numeric.imag, self.digits), "digits": self.digits},
-            "pieces": {k: {"re": mpmath.nstr(v.real, self.digits), "im": mpmath.nstr(v.imag, self.digits)}
-                       for k, v in self.pieces.items()},
+            "numeric": {**_certified_json(self.numeric, self.digits), "digits": self.digits},
+            "pieces": {k: _certified_json(v, self.digits) for k, v in self.pieces.items()},
             "route": "Lawrence-Rozansky integral plus residues (analytic continuation in K)",
             "normalisation": "Z(S^3) = S_11, Z(S^2 x S^1) = 1, canonical 2-framing",
             "notes": list(self.notes),
@@ -652,8 +679,53 @@ class ContinuedValue:
 PHASES = ("reduced", "lawrence-rozansky")
 
 
+def _certified_json(z, digits: int) -> dict[str, str]:
+    re_, im_ = certified_parts(z, digits)
+    return {"re": re_, "im": im_}
+
+
+def require_continuation(d: LRData, Kv, digits: int) -> None:
+    """Refuse (CONVENTIONS §16) a continued ``Z(K)`` whose estimated cost is above the limits.
+
+    The work is two runs (at ``digits + 3`` and ``digits + 12`` digits) of: ``|H|`` trapezoid
+    rules of ``2 N`` nodes with ``n + 4`` ball products each, and about ``2P + P|H|`` residue
+    terms, each a product of ``n`` truncated series of length ``n``.
+
+    >>> require_continuation(LRData.from_space("Sigma(2,3,5)"), mpmath.mpc(7.5, 0.3), 30)
+    """
+    seconds, memory, what = continuation_cost(d, Kv, digits)
+    require(what, seconds=seconds, memory_mb=memory,
+            accepted="ask for fewer digits, or a manifold with fewer or smaller exceptional fibers")
+
+
+def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
+    """Estimated ``(seconds, memory_mb, description)`` of one continued ``Z(K)`` (see
+    :func:`require_continuation`); the residue count alone is checked against the limits first,
+    since the contour set-up itself is ``O(P)``."""
+    n = max(d.n, 1)
+    absK = float(abs(Kv))
+    alpha = float(mpmath.arg(Kv))
+    theta = -d.sigma * math.pi / 4 - alpha / 2
+    st = max(abs(math.sin(theta)), 0.02)
+    where = f"continued Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
+    terms = (2 * d.P + d.P * abs(d.H)) if d.n >= 3 else 0
+    accepted = "ask for fewer digits, or a manifold with fewer or smaller exceptional fibers"
+    # the residue terms alone (and the pole search of the contour, O(P)) come first
+    require(f"{where} ({terms} residue terms; {d.n} surgery coefficients, P = {d.P}, |H| = {abs(d.H)})",
+            seconds=ball_seconds(2 * terms * n * (n + 2) ** 2 + 4 * d.P, digits + 12) / RESIDUE_SPEED,
+            memory_mb=terms * 400 / 1e6, accepted=accepted)
+    N = _quadrature(d, 0, absK, st, digits + 12)[3]
+    if N > MAX_NODES:
+        raise SizeLimitError(f"{where}: " + _nodes_message(d, Kv, N))
+    seconds = (ball_seconds(2 * abs(d.H) * 2 * N * (n + 4), digits + 12) / QUADRATURE_SPEED
+               + ball_seconds(2 * terms * n * (n + 2) ** 2, digits + 12) / RESIDUE_SPEED)
+    memory = terms * 400 / 1e6 + abs(d.H) * (digits + 12) * 8 / 1e6
+    return seconds, memory, (f"{where} ({abs(d.H)} Gaussian integrals of {2 * N} nodes, {terms} residue terms;"
+                             f" {d.n} surgery coefficients, P = {d.P})")
+
+
 def continued_partition_function(space, level=None, *, K=None, digits: int = 30,
-                                 phases: str = "reduced") -> ContinuedValue:
+                                 phases: str = "reduced", progress=None) -> ContinuedValue:
     """SU(2) partition function of a Seifert rational homology sphere at complex level.
 
     Parameters
@@ -673,6 +745,10 @@ def continued_partition_function(space, level=None, *, K=None, digits: int = 30,
         the continuation of smallest exponential type (Carlson's theorem: two
         continuations of type below ``pi`` in a half-plane that agree at the integers are
         equal), while the unreduced one grows like ``exp(pi m^2 |Im K|/(2P))``.
+
+    progress : callable, optional
+        ``progress(done, total)`` after each Gaussian integral and residue sum of both runs
+        (the command line shows it on a terminal).
 
     Returns
     -------
@@ -701,22 +777,25 @@ def continued_partition_function(space, level=None, *, K=None, digits: int = 30,
     """
     if phases not in PHASES:
         raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
+    digits = check_digits(digits)
     d = LRData.from_space(space)
     Kv = resolve_K(level, K)
-    if not isinstance(digits, int) or digits < 1 or digits > 2000:
-        raise DomainError(f"digits = {digits!r} must be an integer between 1 and 2000")
+    require_continuation(d, Kv, digits)
     holder = {}
+    steps = {"done": 0, "total": 2 * (abs(d.H) + 1)}
+
+    def tick():
+        steps["done"] += 1
+        if progress is not None:
+            progress(steps["done"], steps["total"])
 
     def comp(dg):
-        old = ctx.prec
-        try:
-            ctx.prec = bits(dg)
-            Ka = to_acb(Kv)
-            z, pieces = _Z_acb(d, Ka, dg, phases == "reduced")
+        with working_bits(bits(dg)):
+            # the level is read again at this precision, so the two runs are independent
+            Ka = to_acb(resolve_K(level, K))
+            z, pieces = _Z_acb(d, Ka, dg, phases == "reduced", tick)
             holder["pieces"] = pieces
             return z
-        finally:
-            ctx.prec = old
 
     val = checked(comp, digits, f"Z({d.space}) at K = {mpmath.nstr(Kv, 10)}")
     pieces = {k: to_mpc(v, digits) for k, v in holder["pieces"].items()}

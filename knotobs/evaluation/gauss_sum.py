@@ -38,6 +38,8 @@ from fractions import Fraction
 from typing import Sequence
 
 import mpmath
+
+from knotobs.numerics import working_precision
 import numpy as np
 from flint import acb, arb, ctx, fmpq, fmpz_poly
 
@@ -121,7 +123,7 @@ def lawrence_rozansky_direct(pq: Sequence[tuple[int, int]], level: int, dps: int
     pq, P, H, phi = lr_data(pq)
     n = len(pq)
     s = _sign(H) * _sign(P)
-    with mpmath.workdps(dps + 15):
+    with working_precision(dps + 15):
         pi = mpmath.pi
         total = mpmath.mpc(0)
         for beta in range(2 * abs(P) * K):
@@ -136,7 +138,7 @@ def lawrence_rozansky_direct(pq: Sequence[tuple[int, int]], level: int, dps: int
         B = (-_sign(P) / (4 * mpmath.sqrt(abs(P))) * mpmath.expj(3 * pi * s / 4)
              * mpmath.expj(-2 * pi * mpmath.mpf(phi.numerator) / phi.denominator / (4 * K)))
         res = B / K * total
-    with mpmath.workdps(dps):
+    with working_precision(dps):
         return +res
 
 
@@ -262,9 +264,7 @@ class _LRReduced:
         return Fraction(s, 4) - Fraction(self.phi, 4 * self.K) + Fraction(1, 2)
 
     def to_acb(self, prec: int) -> acb:
-        old = ctx.prec
-        ctx.prec = prec
-        try:
+        with working_precision(int((prec) / 3.3219280948873626) + 2):  # bits -> digits
             K, P, H = self.K, self.P, self.H
             zs = acb(arb(2) / self.mod_small).exp_pi_i()
             main = acb(0)
@@ -287,8 +287,6 @@ class _LRReduced:
                           * (-_sign(P) * -1) / (4 * arb(abs(P)).sqrt()) / K / Km)
                 val -= pref_c * csum
             return val
-        finally:
-            ctx.prec = old
 
     def exact(self) -> CyclotomicSurd:
         K, P, H = self.K, self.P, self.H

@@ -16,6 +16,8 @@ from typing import Optional
 
 import mpmath
 
+from knotobs.numerics import working_precision
+
 from knotobs.errors import InexactDivisionError, InvalidKnotError, KnotobsError, SizeLimitError
 from knotobs.evaluation.families import RouteMismatchError
 from knotobs.evaluation.finite_value import FiniteLevelValue
@@ -46,6 +48,9 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
     >>> z.numeric
     mpc(real='1.0', imag='0.0')
     """
+    from knotobs.precision import check_digits
+
+    digits = check_digits(digits)
     report = space_report(space, surgery=surgery, slope=slope)
     if report.manifold is None:
         raise KnotobsError(
@@ -120,6 +125,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     ----------
     CONVENTIONS §3, §5, §7; Rosso–Jones (1993); Reshetikhin–Turaev (1991).
     """
+    from knotobs.precision import check_digits
+
+    digits = check_digits(digits)
     if _is_so3(group):
         from knotobs.evaluation.so3_level import so3_level_loop
 
@@ -188,7 +196,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         f = int(framing)
         K = level + g.N
         phase = sum(f * casimir(g, lam) for lam in cols) / K
-        with mpmath.workdps(digits + 10):
+        with working_precision(digits + 10):
             numeric = numeric * mpmath.expjpi(2 * mpmath.mpf(phase.numerator) / phase.denominator)
         if exact is not None:
             exact = exact * root_of_unity(phase)
@@ -198,7 +206,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     if in_s3 and normalized:
         poly = rosso_jones(k, g, cols, extra if mode == "zero" else "fiber")
         check = poly.at_root_of_unity(level + g.N, dps=digits + 5)
-        with mpmath.workdps(digits + 5):
+        with working_precision(digits + 5):
             diff = abs(check - numeric)
         details["polynomial_check"] = float(diff)
         if diff > mpmath.mpf(10) ** (-digits + 3) * max(1, abs(numeric)):

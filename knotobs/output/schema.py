@@ -336,9 +336,7 @@ def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
     f = str(fmt).lower()
     if f not in EXPORT_FORMATS:
         raise KnotobsError(f"unknown export format {fmt!r}: choose one of {', '.join(EXPORT_FORMATS)}")
-    if not os.path.exists(store):
-        raise KnotobsError(f"results store {store!r} does not exist; run a grid first")
-    with GridStore(store) as st:
+    with GridStore(store, readonly=True) as st:
         rows = sorted(st.rows(), key=_sort_key)
     if f == "json":
         text = json.dumps([json.loads(r["document"]) for r in rows], indent=1) + "\n"
@@ -361,12 +359,35 @@ def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
     else:
         text = terminal_table(GRID_HEADERS, grid_table_rows(rows), title=f"{store} ({len(rows)} rows)") + "\n"
     if out:
-        try:
-            with open(out, "w", encoding="utf-8") as fh:
-                fh.write(text)
-        except OSError as exc:
-            raise KnotobsError(f"cannot write {out!r}: {exc.strerror}") from None
+        _write_whole(out, text)
     return text
+
+
+def _write_whole(out: str, text: str) -> None:
+    """Write ``text`` to ``out`` through a temporary file and a rename: a failure (disk full, no
+    permission) leaves no partial or empty file behind, and an existing file untouched."""
+    import tempfile
+
+    folder = os.path.dirname(os.path.abspath(out))
+    if os.path.isdir(out):
+        raise KnotobsError(f"cannot write {out!r}: it is a directory; give a file name")
+    tmp = None
+    try:
+        fd, tmp = tempfile.mkstemp(prefix=".knotobs-export-", dir=folder)
+        with os.fdopen(fd, "w", encoding="utf-8") as fh:
+            fh.write(text)
+            fh.flush()
+            os.fsync(fh.fileno())
+        os.replace(tmp, out)
+        tmp = None
+    except OSError as exc:
+        raise KnotobsError(f"cannot write {out!r}: {exc.strerror or exc}; nothing was written") from None
+    finally:
+        if tmp is not None:
+            try:
+                os.unlink(tmp)
+            except OSError:
+                pass
 
 
 def _register_qseries() -> None:

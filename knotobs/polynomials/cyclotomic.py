@@ -31,6 +31,8 @@ from functools import lru_cache
 from typing import Iterable, Sequence
 
 import mpmath
+
+from knotobs.numerics import working_precision
 import numpy as np
 from flint import acb, arb, ctx, fmpq, fmpq_poly, fmpz, fmpz_poly
 
@@ -350,14 +352,10 @@ class Cyclotomic:
     # -- numerics -----------------------------------------------------
     def to_acb(self, prec: int) -> acb:
         """Ball enclosure of the value at ``zeta_n = exp(2 pi i/n)`` with ``prec`` bits."""
-        old = ctx.prec
-        try:
-            ctx.prec = prec
+        with working_precision(int((prec) / 3.3219280948873626) + 2):  # bits -> digits
             z = acb(arb(2) / self.field.n).exp_pi_i()
             num = self.poly.numer()
             return num(z) / arb(self.poly.denom())
-        finally:
-            ctx.prec = old
 
     def to_mpc(self, digits: int = 30) -> mpmath.mpc:
         """Numeric value with ``digits`` correct significant digits (checked twice)."""
@@ -405,7 +403,7 @@ def _poly_str(poly: fmpq_poly, var: str) -> str:
 
 def acb_to_mpc(z: acb, digits: int) -> mpmath.mpc:
     """Convert a ball's midpoint to an ``mpmath.mpc`` carrying ``digits`` digits."""
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         # a component whose ball contains 0 and is below the accuracy is reported as 0
         re = mpmath.mpf(0) if z.real.contains(0) else mpmath.mpf(z.real.mid().str(digits + 10, radius=False))
         im = mpmath.mpf(0) if z.imag.contains(0) else mpmath.mpf(z.imag.mid().str(digits + 10, radius=False))
@@ -635,13 +633,9 @@ class CyclotomicSurd:
         return self.coefficient.conductor
 
     def to_acb(self, prec: int) -> acb:
-        old = ctx.prec
-        try:
-            ctx.prec = prec
+        with working_precision(int((prec) / 3.3219280948873626) + 2):  # bits -> digits
             rad = arb(fmpq(self.radicand.numerator, self.radicand.denominator)).sqrt()
             return self.coefficient.to_acb(prec) * rad
-        finally:
-            ctx.prec = old
 
     def to_mpc(self, digits: int = 30) -> mpmath.mpc:
         return acb_to_mpc_checked(lambda prec: self.to_acb(prec), digits)

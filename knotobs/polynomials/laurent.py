@@ -18,6 +18,8 @@ from math import gcd
 from typing import Iterable, Mapping, Union
 
 import mpmath
+
+from knotobs.numerics import working_precision
 from flint import fmpz_poly
 
 from knotobs.errors import InexactDivisionError, RingMismatchError
@@ -346,7 +348,7 @@ class Laurent:
         >>> (q + q**-1).evaluate(2)
         mpf('2.5')
         """
-        with mpmath.workdps(dps + 10):
+        with working_precision(dps + 10):
             c = self.canonical()
             if c._p.is_zero():
                 return mpmath.mpf(0)
@@ -373,7 +375,7 @@ class Laurent:
         >>> abs(quantum_integer(5).at_root_of_unity(5)) < 1e-25
         True
         """
-        with mpmath.workdps(dps + 10):
+        with working_precision(dps + 10):
             if isinstance(K, Fraction):
                 Kv = mpmath.mpf(K.numerator) / K.denominator
             elif isinstance(K, str):

@@ -74,20 +74,42 @@ def as_partition(parts: Iterable[int] | str) -> Partition:
     return lam
 
 
-_PART_RE = re.compile(r"^\s*[\[(]?\s*(-?\d+(\s*,\s*-?\d+)*)?\s*,?\s*[\])]?\s*$")
+_BODY_RE = re.compile(r"^\s*-?\d+(\s*,\s*-?\d+)*\s*,?\s*$")
+_CLOSE = {"[": "]", "(": ")"}
 
 
 def parse_partition(text: str) -> Partition:
-    """Parse ``"[2,1]"``, ``"(2,1)"``, ``"2,1"`` or ``"[]"``.
+    """Parse ``"[2,1]"``, ``"(2,1)"``, ``"2,1"`` or ``"[]"`` (the trivial representation).
+
+    Brackets must match and nothing else may appear: ``"["``, ``""`` and ``"[2,1"`` are errors.
 
     >>> parse_partition("[3, 1, 1]")
     (3, 1, 1)
+    >>> parse_partition("[]")
+    ()
+    >>> parse_partition("[")
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.ParseError: cannot read partition '[': the brackets do not match; write it as [l1,l2,...], e.g. [2,1], or [] for the trivial representation
     """
-    m = _PART_RE.match(text)
-    if not m:
-        raise ParseError(f"cannot read partition {text!r}: write it as [l1,l2,...], e.g. [2,1]")
-    body = m.group(1)
-    parts = [int(x) for x in body.split(",")] if body else []
+    hint = "write it as [l1,l2,...], e.g. [2,1], or [] for the trivial representation"
+    if not isinstance(text, str):
+        raise ParseError(f"cannot read partition {text!r}: {hint}")
+    s = text.strip()
+    if not s:
+        raise ParseError(f"empty partition {text!r}: {hint}")
+    first, last = s[0], s[-1]
+    if first in _CLOSE or last in ")]":
+        if first not in _CLOSE or len(s) < 2 or _CLOSE[first] != last:
+            raise ParseError(f"cannot read partition {text!r}: the brackets do not match; {hint}")
+        body = s[1:-1]
+        if not body.strip():
+            return ()
+    else:
+        body = s
+    if not _BODY_RE.match(body):
+        raise ParseError(f"cannot read partition {text!r}: {hint}")
+    parts = [int(x) for x in body.strip().rstrip(",").split(",")]
     return as_partition(parts)
 
 

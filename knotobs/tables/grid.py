@@ -26,6 +26,10 @@ from __future__ import annotations
 
 import concurrent.futures as cf
 import json
+import math
+import os
+import re
+import sqlite3
 import sys
 import threading
 import time
@@ -36,6 +40,8 @@ from typing import Any, Callable, Iterable, Sequence
 
 import mpmath
 
+from knotobs.numerics import working_precision
+
 from knotobs.errors import (
     NotIntegrableError,
     InvalidRepresentationError,
@@ -45,21 +51,83 @@ from knotobs.errors import (
     PrecisionError,
     SchedulerError,
     SizeLimitError,
+    StoreError,
 )
 from knotobs.evaluation.families import colored_jones, homfly, wilson_loop
 from knotobs.evaluation.modular import check_integrable
 from knotobs.fibrations.torus import TorusLink, parse_knot
 from knotobs.representations.groups import parse_group
 from knotobs.representations.partitions import as_partition
-from knotobs.tables.store import GridStore, canonical_json, description_key
+from knotobs.tables.store import GridStore, canonical_json, description_key, point_key, store_write_error
 
 __all__ = ["GridSpec", "GridReport", "run_grid", "resume_grid", "grid_status", "compute_row", "torus_knots",
-           "QUANTITIES", "MAX_GRID_POINTS", "observable_document"]
+           "QUANTITIES", "MAX_GRID_POINTS", "MAX_GRID_LEVEL", "max_workers", "torus_knot_count",
+           "check_scheduler", "observable_document"]
 
 #: Quantities a grid can hold.
 QUANTITIES = ("wilson-loop", "colored-jones", "homfly")
 #: Largest number of points in one grid.
 MAX_GRID_POINTS = 200_000
+#: Largest level of a grid row (the finite-level routes stop at roots of unity of order 2 * 10^6).
+MAX_GRID_LEVEL = 1_000_000
+
+
+def max_workers() -> int:
+    """Most local worker processes a grid starts: 4 per core (at least 4), at most 64.
+
+    >>> 4 <= max_workers() <= 64
+    True
+    """
+    return max(4, min(64, 4 * (os.cpu_count() or 1)))
+
+
+def torus_knot_count(max_pq: int, links: bool = False) -> float:
+    """Estimated number of torus knots ``T(P,Q)``, ``2 <= P < Q``, ``P*Q <= max_pq`` (without listing them).
+
+    ``sum_P (max_pq/P - P)`` pairs, of which a fraction ``6/pi^2`` is coprime (common practice).
+
+    >>> abs(torus_knot_count(1000) - len(torus_knots(1000))) < 0.2 * len(torus_knots(1000))
+    True
+    """
+    M = float(max_pq)
+    top = int(math.isqrt(int(max_pq)))
+    pairs = sum(max(0.0, M / P - P) for P in range(2, top + 1)) if top < 10**6 else (
+        M * (math.log(top) + 0.5772 - 1) - top * top / 2)
+    return pairs if links else pairs * 6 / math.pi ** 2
+
+
+def _max_pq_allowed(limit: int) -> int:
+    lo, hi = 6, 10**12
+    while lo < hi:
+        mid = (lo + hi + 1) // 2
+        if torus_knot_count(mid) <= limit:
+            lo = mid
+        else:
+            hi = mid - 1
+    return lo
+
+
+_SCHEDULER = re.compile(r"^(tcp|tls|ws|wss|ucx)://(\[[0-9a-fA-F:]+\]|[A-Za-z0-9_.-]+)(:\d{1,5})?/?$"
+                        r"|^inproc://[^\s/]+/\S+$")
+
+
+def check_scheduler(address) -> str:
+    """A Dask scheduler address of the form ``tcp://host:port`` (checked before connecting).
+
+    >>> check_scheduler("tcp://127.0.0.1:8786")
+    'tcp://127.0.0.1:8786'
+    >>> check_scheduler("tcp://")
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.SchedulerError: scheduler address 'tcp://' is not an address: write PROTOCOL://HOST:PORT, e.g. tcp://127.0.0.1:8786
+    """
+    if not isinstance(address, str) or not address.strip():
+        raise SchedulerError(f"scheduler address {address!r} is empty; give e.g. tcp://127.0.0.1:8786")
+    a = address.strip()
+    if not _SCHEDULER.match(a):
+        raise SchedulerError(f"scheduler address {address!r} is not an address: write PROTOCOL://HOST:PORT,"
+                             " e.g. tcp://127.0.0.1:8786")
+    return a
 
 _LEVEL_METHOD = ("exact generic-q polynomial evaluated at q = exp(2 pi i/(k+N)) (root-of-unity value;"
                  " equals the normalised Chern-Simons expectation value for an integrable colour)")
@@ -91,6 +159,11 @@ def torus_knots(max_pq: int, links: bool = False, min_p: int = 2) -> list[str]:
     """
     if not isinstance(max_pq, int) or max_pq < 1:
         raise KnotobsError(f"max_pq={max_pq!r} must be a positive integer")
+    n = torus_knot_count(max_pq, links)
+    if n > MAX_GRID_POINTS:
+        raise SizeLimitError(
+            f"max_pq = {max_pq} gives about {n:.2g} torus {'knots and links' if links else 'knots'}; a grid holds at"
+            f" most {MAX_GRID_POINTS} points: use max_pq <= {_max_pq_allowed(MAX_GRID_POINTS // (3 if links else 1))}")
     out = []
     P = min_p
     while P * P <= max_pq:
@@ -173,6 +246,9 @@ class GridSpec:
         for lv in self.levels:
             if lv is not None and (isinstance(lv, bool) or not isinstance(lv, int) or lv < 1):
                 raise KnotobsError(f"level {lv!r} must be a positive integer or None (generic q)")
+            if lv is not None and lv > MAX_GRID_LEVEL:
+                raise SizeLimitError(f"level {lv} is above the largest level {MAX_GRID_LEVEL} knotobs evaluates"
+                                     " (finite-level values need roots of unity of order about 2 * 10^6 at most)")
             if lv is not None and (q == "homfly" or (g is not None and g.kind != "SU")):
                 raise KnotobsError(f"level {lv} needs SU(N) (q = exp(2 pi i/(k+N))); use generic q (None) for {q} / {self.group}")
             if lv not in levels:
@@ -199,6 +275,16 @@ class GridSpec:
         return {"knots": list(self.knots), "group": self.group, "reps": [list(r) for r in self.reps],
                 "levels": list(self.levels), "quantity": self.quantity, "normalized": self.normalized,
                 "framing": self.framing, "dps": self.dps, "skip_nonintegrable": self.skip_nonintegrable}
+
+    @classmethod
+    def from_stored(cls, d, where: str) -> "GridSpec":
+        """:meth:`from_dict` for a specification read back from a store: damage is a :class:`StoreError`."""
+        try:
+            return cls.from_dict(d)
+        except (KeyError, TypeError, ValueError, AttributeError, KnotobsError) as exc:
+            what = f"missing {exc}" if isinstance(exc, KeyError) else f"{type(exc).__name__}: {exc}"
+            raise StoreError(f"a grid specification in {where!r} is damaged ({what}); delete that row of"
+                             " table specs, or use another store") from None
 
     @classmethod
     def from_dict(cls, d: dict) -> "GridSpec":
@@ -262,11 +348,11 @@ def _numeric(value, K: int, dps: int) -> tuple[str, str]:
     """Value at q = exp(2 pi i/K) to ``dps`` digits, checked against ``dps + 15`` digits."""
     a = value.at_root_of_unity(K, dps)
     b = value.at_root_of_unity(K, dps + 15)
-    with mpmath.workdps(dps + 15):
+    with working_precision(dps + 15):
         scale = max(abs(b), mpmath.mpf(1))
         if abs(a - b) > scale * mpmath.mpf(10) ** (-(dps - 2)):
             raise PrecisionError(f"value at K = {K} not stable at {dps} digits; raise dps")
-    with mpmath.workdps(dps):
+    with working_precision(dps):
         b = mpmath.mpc(b)
         tol = scale * mpmath.mpf(10) ** (-(dps - 3))
         re = b.real if abs(b.real) > tol else mpmath.mpf(0)
@@ -441,7 +527,8 @@ def _connect_dask(scheduler: str, timeout: float):
 
 def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True,
              scheduler: str | None = None, batch_size: int | None = None,
-             connect_timeout: float = 10.0, on_row: Callable[[dict], None] | None = None) -> GridReport:
+             connect_timeout: float = 10.0, on_row: Callable[[dict], None] | None = None,
+             lock_timeout: float = 60.0) -> GridReport:
     """Compute every missing point of ``spec`` and store it in the SQLite file ``store``.
 
     Parameters
@@ -457,6 +544,8 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
         Address of a Dask distributed scheduler (``tcp://host:8786``): run there instead.
     batch_size : int, optional
         Grid points per task (default: about 4 tasks per worker, at most 16 points).
+    lock_timeout : float
+        Seconds to wait while another process holds the store's write lock.
 
     Returns
     -------
@@ -480,6 +569,11 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
         raise KnotobsError(f"run_grid needs a GridSpec, not {type(spec).__name__}")
     if not isinstance(workers, int) or isinstance(workers, bool) or workers < 0:
         raise KnotobsError(f"workers={workers!r} must be a non-negative integer")
+    if workers > max_workers():
+        raise KnotobsError(f"workers = {workers} is more than the {max_workers()} worker processes a grid may start"
+                           f" here (4 per core, {os.cpu_count()} cores, at most 64); use workers <= {max_workers()}")
+    if scheduler is not None:
+        scheduler = check_scheduler(scheduler)
     t0 = time.perf_counter()
     run_id = uuid.uuid4().hex
     all_points = spec.points()
@@ -487,10 +581,11 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
     if spec.skip_nonintegrable:
         full = len(spec.knots) * len(spec.reps) * len(spec.levels)
         n_skip = full - len(all_points)
-    keyed = [(description_key(d), d) for d in all_points]
-    st = GridStore(store)
+    keyed = [(point_key(d), d) for d in all_points]
+    st = GridStore(store, timeout=lock_timeout)
     try:
-        present = st.keys()
+        # points stored by any package version count as done (no recomputation, no duplicates)
+        present = st.point_keys()
         todo = [d for k, d in keyed if k not in present]
         report = GridReport(st.path, len(keyed), len(keyed) - len(todo), 0, 0, [], n_skip, 0.0, run_id,
                             "dask" if scheduler else ("local" if workers else "in-process"))
@@ -514,14 +609,22 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
                     report.failed.append({"knot": d["knot"], "rep": d["rep"][0], "level": d["level"], "error": r["error"]})
             report.computed += len(rows)
             if good:
-                st.conn.execute("BEGIN IMMEDIATE")
+                added = 0
                 try:
+                    st.conn.execute("BEGIN IMMEDIATE")
                     for r in good:
-                        report.inserted += st.insert(r)
+                        added += st.insert(r)
                     st.conn.execute("COMMIT")
-                except BaseException:
-                    st.conn.execute("ROLLBACK")
+                except BaseException as exc:
+                    if st.conn.in_transaction:        # SQLite may have rolled back already (disk full)
+                        try:
+                            st.conn.execute("ROLLBACK")
+                        except sqlite3.Error:
+                            pass
+                    if isinstance(exc, (sqlite3.Error, OSError)):
+                        raise store_write_error(st.path, exc, report.already_stored + report.inserted) from None
                     raise
+                report.inserted += added
             for r in good:
                 if on_row is not None:
                     on_row(r)
@@ -534,7 +637,11 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
                 for b in batches:
                     consume(compute_batch(b, run_id))
             else:
-                with cf.ProcessPoolExecutor(max_workers=workers) as ex:
+                from knotobs.guard import current_limits
+
+                lim = current_limits()
+                with cf.ProcessPoolExecutor(max_workers=workers, initializer=_worker_init,
+                                            initargs=(os.getpid(), lim.seconds, lim.memory_mb)) as ex:
                     futs = [ex.submit(compute_batch, b, run_id) for b in batches]
                     try:
                         for fut in cf.as_completed(futs):
@@ -549,6 +656,34 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
         return report
     finally:
         st.close()
+
+
+def _apply_limits(seconds: float, memory_mb: float) -> None:
+    """Make the parent's size/time limits (``--max-seconds``, ``--max-memory``) those of this process."""
+    os.environ["KNOTOBS_MAX_SECONDS"] = repr(float(seconds))
+    os.environ["KNOTOBS_MAX_MEMORY_MB"] = repr(float(memory_mb))
+
+
+def _worker_init(parent: int, seconds: float | None = None, memory_mb: float | None = None) -> None:
+    """In each worker process: the parent's limits, and exit as soon as the parent process is gone
+    (e.g. killed with -9)."""
+    if seconds is not None and memory_mb is not None:
+        _apply_limits(seconds, memory_mb)
+    try:  # Linux: the kernel sends SIGTERM when the parent dies
+        import ctypes
+        import signal
+
+        ctypes.CDLL("libc.so.6", use_errno=True).prctl(1, int(signal.SIGTERM))   # PR_SET_PDEATHSIG
+    except (OSError, AttributeError):
+        pass
+
+    def watch() -> None:
+        while True:
+            if os.getppid() != parent:
+                os._exit(1)
+            time.sleep(0.5)
+
+    threading.Thread(target=watch, name="knotobs-parent-watch", daemon=True).start()
 
 
 def _run_dask(client, batches, run_id, consume) -> None:
@@ -576,10 +711,10 @@ def resume_grid(store: str, workers: int = 2, progress: bool = True, scheduler: 
     [0]
     """
     with GridStore(store) as st:
-        specs = st.specs()
+        specs = [GridSpec.from_stored(s, st.path) for s in st.specs()]
     if not specs:
         raise KnotobsError(f"the store {store!r} records no grid to resume; start one with run_grid / 'knotobs grid run'")
-    return [run_grid(GridSpec.from_dict(s), store, workers, progress, scheduler) for s in specs]
+    return [run_grid(s, store, workers, progress, scheduler) for s in specs]
 
 
 def grid_status(store: str) -> dict:
@@ -591,16 +726,12 @@ def grid_status(store: str) -> dict:
     >>> grid_status(path)["grids"][0]["missing"]
     0
     """
-    import os
-
-    if not os.path.exists(store):
-        raise KnotobsError(f"results store {store!r} does not exist; run a grid first")
-    with GridStore(store) as st:
-        keys = st.keys()
+    with GridStore(store, readonly=True) as st:
+        keys = st.point_keys()
         grids = []
         for d in st.specs():
-            spec = GridSpec.from_dict(d)
-            pts = [description_key(p) for p in spec.points()]
+            spec = GridSpec.from_stored(d, st.path)
+            pts = [point_key(p) for p in spec.points()]
             grids.append({"quantity": spec.quantity, "group": spec.group, "points": len(pts),
                           "missing": sum(1 for k in pts if k not in keys), "spec": spec.to_dict()})
         return {"kind": "grid-status", "store": st.path, "rows": len(keys), "grids": grids}

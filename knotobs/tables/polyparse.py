@@ -71,6 +71,40 @@ def _tokenize(text: str) -> list[tuple[str, str, int]]:
     return out
 
 
+#: Deepest nesting of parentheses accepted.
+MAX_NESTING = 200
+
+
+def _terms_bound(base: MPoly, n: int) -> int:
+    """Upper bound on the number of terms of ``base^n``: at most ``C(n + m - 1, m - 1)`` for ``m``
+    terms, and at most ``prod_v (n * span_v + 1)`` from the exponent range of each variable."""
+    from math import comb, lcm
+
+    keys = list(base.terms)
+    m = len(keys)
+    by_count = comb(n + m - 1, m - 1)
+    by_span = 1
+    for j in range(len(keys[0]) if keys else 0):
+        es = [Fraction(k[j]) for k in keys]
+        den = lcm(*[e.denominator for e in es]) if es else 1
+        by_span *= int((max(es) - min(es)) * den) * n + 1
+        if by_span > by_count:
+            break
+    return min(by_count, by_span)
+
+
+def _require_power(base: MPoly, n: int) -> None:
+    """Refuse (CONVENTIONS §16) a power whose expansion is estimated above the limits."""
+    from knotobs.guard import require, seconds_for
+
+    half = _terms_bound(base, (n + 1) // 2)
+    full = _terms_bound(base, n)
+    # repeated squaring: the last products multiply two polynomials of about ``half`` terms
+    # measured: one term product of the sparse polynomial class costs about 40 elementary steps
+    require(f"expanding ({base})^{n} (up to {full:.3g} terms)", seconds=seconds_for(80.0 * half * half, "python"),
+            memory_mb=full * 200 / 1e6, accepted="give the polynomial expanded, or a smaller power")
+
+
 class _Parser:
     def __init__(self, text: str, allowed: tuple[str, ...]):
         self.text = text
@@ -89,7 +123,8 @@ class _Parser:
 
     def fail(self, msg: str, pos: int | None = None):
         where = f" at position {pos}" if pos is not None else ""
-        raise ParseError(f"cannot read polynomial {self.text!r}: {msg}{where}")
+        shown = self.text if len(self.text) <= 80 else self.text[:60] + "..." + self.text[-10:]
+        raise ParseError(f"cannot read polynomial {shown!r}: {msg}{where}")
 
     def expect(self, value: str):
         kind, val, pos = self.take()
@@ -100,6 +135,15 @@ class _Parser:
     def parse(self) -> MPoly:
         if self.peek()[0] == "end":
             self.fail("the text is empty; write a polynomial such as 't + t^3 - t^4'")
+        depth = deepest = 0
+        for kind, val, _ in self.toks:
+            if kind == "op" and val == "(":
+                depth += 1
+                deepest = max(deepest, depth)
+            elif kind == "op" and val == ")":
+                depth -= 1
+        if deepest > MAX_NESTING:
+            self.fail(f"parentheses are nested {deepest} deep; at most {MAX_NESTING} levels are read")
         p = self.expr()
         kind, val, pos = self.peek()
         if kind != "end":
@@ -187,6 +231,8 @@ class _Parser:
                 self.fail(f"the negative power ({base})^{n} is not a Laurent polynomial", pos)
             if n > MAX_SUM_POWER and not base.is_monomial():
                 raise SizeLimitError(f"the power ({base})^{n} is too large to expand; at most {MAX_SUM_POWER}")
+            if n > 1 and not base.is_monomial():
+                _require_power(base, n)
             try:
                 return base ** n
             except InexactDivisionError as exc:  # pragma: no cover - guarded above

@@ -1,0 +1,103 @@
+"""Requested precision: the accepted range of ``digits`` and printing only certified digits.
+
+A numeric value in knotobs comes with a certified error bound (CONVENTIONS §16): the
+value was computed twice, independently and at different precisions, and the two
+agree to within ``10^-digits * max(|z|, 1)``.  :func:`certified_str` prints exactly
+the decimal places that bound covers: each component of a complex number is rounded
+to the bound's decimal position, so a component (or a whole value) below the bound
+prints as ``0``.
+
+Examples
+--------
+>>> import mpmath
+>>> check_digits(30)
+30
+>>> certified_str(mpmath.mpc("1.27e-49", "-2.92e-49"), 15)
+'0.0'
+>>> certified_str(mpmath.mpc("-1.070033218316912345", "0.3581273346247381"), 10)
+'(-1.070033218 + 0.358127335j)'
+"""
+
+from __future__ import annotations
+
+import math
+import numbers
+
+import mpmath
+
+from knotobs.errors import ParseError
+
+__all__ = ["MAX_DIGITS", "check_digits", "certified_str", "certified_parts"]
+
+#: Largest number of decimal digits accepted for a numeric value.
+MAX_DIGITS = 2000
+
+
+def check_digits(digits, name: str = "digits", low: int = 1, high: int = MAX_DIGITS) -> int:
+    """``digits`` as an int in ``[low, high]``, or a :class:`ParseError` naming the valid range.
+
+    >>> check_digits(0, "--digits")
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.ParseError: --digits 0 is out of range: give an integer from 1 to 2000 (correct significant digits of the numeric value)
+    """
+    if isinstance(digits, bool) or not isinstance(digits, numbers.Integral):
+        raise ParseError(f"{name} {digits!r} is not an integer: give an integer from {low} to {high}")
+    d = int(digits)
+    if not low <= d <= high:
+        raise ParseError(f"{name} {d} is out of range: give an integer from {low} to {high}"
+                         " (correct significant digits of the numeric value)")
+    return d
+
+
+def _decimal_places(z, digits: int) -> int:
+    """Decimal places covered by the bound ``10^-digits * max(|z|, 1)``."""
+    mag = abs(z)
+    if mag < 1:
+        return digits                      # absolute bound 10^-digits
+    return digits - 1 - int(math.floor(float(mpmath.log10(mag))))   # ``digits`` significant digits
+
+
+def _fixed(x, places: int) -> str:
+    """``x`` rounded to ``places`` decimal places (negative: to tens, hundreds, ...)."""
+    from knotobs.numerics import local_mp
+
+    x = mpmath.mpf(x)
+    top = 0 if x == 0 else int(mpmath.floor(mpmath.log10(abs(x))))
+    ctx = local_mp(max(top, 0) + abs(places) + 20)
+    if places < 0:
+        q = int(ctx.nint(ctx.mpf(x) / ctx.mpf(10) ** (-places)))
+        return str(q * 10 ** (-places))
+    n = int(ctx.nint(ctx.mpf(x) * ctx.mpf(10) ** places))
+    if n == 0:
+        return "0.0"
+    sign = "-" if n < 0 else ""
+    s = str(abs(n)).rjust(places + 1, "0")
+    head, tail = s[: len(s) - places], s[len(s) - places:]
+    tail = tail.rstrip("0")
+    return f"{sign}{head}.{tail}" if tail else f"{sign}{head}.0"
+
+
+def certified_parts(z, digits: int) -> tuple[str, str]:
+    """Real and imaginary parts of ``z`` as decimal strings, certified digits only."""
+    z = mpmath.mpc(z)
+    places = _decimal_places(z, digits)
+    return _fixed(z.real, places), _fixed(z.imag, places)
+
+
+def certified_str(z, digits: int) -> str:
+    """``z`` with only the decimal places its bound ``10^-digits * max(|z|, 1)`` certifies.
+
+    >>> certified_str(mpmath.mpf(2) / 3, 5)
+    '0.66667'
+    >>> certified_str(mpmath.mpc(0, 1) / 3, 5)
+    '0.33333j'
+    """
+    z = mpmath.mpc(z)
+    re_, im_ = certified_parts(z, digits)
+    if im_ in ("0.0", "-0.0", "0"):
+        return re_
+    if re_ in ("0.0", "-0.0", "0"):
+        return f"{im_}j"
+    sign = "-" if im_.startswith("-") else "+"
+    return f"({re_} {sign} {im_.lstrip('-')}j)"

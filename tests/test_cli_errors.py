@@ -1,0 +1,212 @@
+"""The CLI's error layer and the malformed-input matrix: one ``error:`` line and exit 2, never a
+traceback, never a silently accepted invalid value.
+
+The expected behaviour is the project's rule for bad input (an error naming the value and what
+would be valid, before any work); each case below was seen to produce a traceback or a value.
+"""
+
+import os
+import stat
+
+import pytest
+from typer.testing import CliRunner
+
+from knotobs.cli import app
+
+runner = CliRunner()
+
+
+def run(*args):
+    return runner.invoke(app, list(args))
+
+
+def one_error(result, *words):
+    assert result.exit_code == 2, (result.exit_code, result.output)
+    assert result.exception is None or isinstance(result.exception, SystemExit), repr(result.exception)
+    err = result.stderr.strip().splitlines()
+    assert len(err) == 1 and err[0].startswith("error: "), result.stderr
+    assert "Traceback" not in result.output
+    for w in words:
+        assert w in err[0], (w, err[0])
+    return err[0]
+
+
+# ------------------------------------------------------------------ the error layer itself
+
+def test_usage_errors_are_one_line_naming_the_option():
+    one_error(run("loop", "T(2,3)", "--digts", "3"), "--digts", "--digits", "loop --help")
+    one_error(run("loop", "T(2,3)", "--level", "x"), "--level")
+    one_error(run("flat"), "Missing argument")
+    one_error(run("grid", "run", "--bogus"), "--bogus")
+
+
+def test_unexpected_exception_is_a_one_line_bug_report(monkeypatch):
+    import knotobs.cli.fibers_cmd as f
+
+    def boom(*a, **k):
+        raise ZeroDivisionError("division by zero")
+
+    monkeypatch.setattr(f, "space_report", boom)
+    line = one_error(run("space", "S^3"), "internal error", "ZeroDivisionError", "please report", "--debug")
+    assert "division by zero" in line
+    res = run("--debug", "space", "S^3")
+    assert res.exit_code == 2 and "Traceback" in res.stderr and "ZeroDivisionError" in res.stderr
+
+
+def test_global_limits_take_effect_and_are_validated():
+    one_error(run("--max-seconds", "0", "loop", "T(2,3)"), "--max-seconds")
+    one_error(run("--max-memory", "-3", "loop", "T(2,3)"), "--max-memory")
+    # a plot that fits 60 s is refused under a limit of 1 s, with the estimate
+    one_error(run("--max-seconds", "1", "plot", "asymptotics", "Sigma(2,3,5)", "-o", "x.png", "--kmax", "20000"),
+              "estimated", "limit of 1 s")
+    assert run("--max-seconds", "5", "loop", "T(2,3)").exit_code == 0
+
+
+def test_env_limit_is_read(monkeypatch):
+    monkeypatch.setenv("KNOTOBS_MAX_SECONDS", "1")
+    one_error(run("plot", "asymptotics", "Sigma(2,3,5)", "-o", "x.png", "--kmax", "20000"), "limit of 1 s")
+    monkeypatch.setenv("KNOTOBS_MAX_SECONDS", "abc")
+    one_error(run("loop", "T(2,3)", "--level", "3"), "KNOTOBS_MAX_SECONDS")
+
+
+# ------------------------------------------------------------------ tracebacks seen before
+
+def test_deeply_nested_polynomial():
+    deep = "(" * 5000 + "t" + ")" * 5000
+    one_error(run("match", "T(2,3)", "--poly", deep), "nested")
+
+
+@pytest.mark.parametrize("cmd", [["loop", "T(2,3)", "--level", "3"], ["space", "Sigma(2,3,5)", "--level", "3"],
+                                 ["continue", "Sigma(2,3,5)", "--K", "5.5"]])
+@pytest.mark.parametrize("d", ["10000", "-5", "0"])
+def test_digits_out_of_range(cmd, d):
+    one_error(run(*cmd, "--digits", d), f"--digits {d}", "from 1 to 2000")
+
+
+@pytest.mark.parametrize("opt,val,word", [("--re", "nan,nan", "finite"), ("--im", "inf,1", "finite"),
+                                          ("--re", "5,5", "empty range"), ("--im", "1,-1", "empty range"),
+                                          ("--re", "3", "two numbers")])
+def test_level_plane_ranges(tmp_path, opt, val, word):
+    one_error(run("plot", "level-plane", "Sigma(2,3,5)", "-o", str(tmp_path / "x.png"), opt, val, "--n", "2"),
+              opt, word)
+
+
+@pytest.mark.parametrize("kmax", ["0", "-5", "5"])
+def test_asymptotics_kmax_too_small(tmp_path, kmax):
+    one_error(run("plot", "asymptotics", "Sigma(2,3,5)", "-o", str(tmp_path / "a.png"), "--kmax", kmax),
+              f"--kmax {kmax}", ">= 15")
+
+
+def test_asymptotics_runaway_refused_quickly(tmp_path):
+    import time
+
+    t = time.time()
+    one_error(run("plot", "asymptotics", "Sigma(2,3,5)", "-o", str(tmp_path / "a.png"), "--kmax", "100000"),
+              "estimated", "kmax")
+    assert time.time() - t < 2
+    assert not (tmp_path / "a.png").exists()
+
+
+def test_unwritable_output(tmp_path):
+    one_error(run("plot", "zeros", "T(2,3)", "-o", "/nonexistent/dir/x.png"), "does not exist")
+    ro = tmp_path / "ro"
+    ro.mkdir()
+    ro.chmod(stat.S_IRUSR | stat.S_IXUSR)
+    try:
+        if os.access(ro, os.W_OK):
+            pytest.skip("running as a user who can write anywhere")
+        one_error(run("plot", "zeros", "T(2,3)", "-o", str(ro / "x.png")), "permission")
+    finally:
+        ro.chmod(stat.S_IRWXU)
+    one_error(run("plot", "zeros", "T(2,3)", "-o", str(tmp_path)), "directory")
+
+
+def test_unwritable_output_in_the_library(tmp_path, monkeypatch):
+    """A save that fails late (e.g. a full disk) is a PlotError and leaves no file."""
+    from knotobs.continuation import plots
+    from knotobs.errors import KnotobsError
+    import matplotlib.figure
+
+    def full(self, p, *a, **k):
+        open(p, "wb").close()
+        raise OSError(28, "No space left on device")
+
+    monkeypatch.setattr(matplotlib.figure.Figure, "savefig", full)
+    with pytest.raises(KnotobsError, match="No space left"):
+        plots.plot_zeros("T(2,3)", tmp_path / "z.png")
+    assert not (tmp_path / "z.png").exists()
+
+
+# ------------------------------------------------------------------ malformed input read as something else
+
+@pytest.mark.parametrize("rep", ["[", "", "[2,1", "(2,1]", "[1;;2]", ";"])
+def test_bad_rep_refused_everywhere(rep):
+    one_error(run("loop", "T(2,3)", "--rep", rep), "--rep")
+    one_error(run("poly", "T(2,3)", "--family", "homfly", "--rep", rep), "--rep")
+    one_error(run("match", "T(2,3)", "--poly", "t+t^3-t^4", "--rep", rep), "--rep")
+
+
+def test_plot_zeros_color_zero(tmp_path):
+    one_error(run("plot", "zeros", "T(2,3)", "-o", str(tmp_path / "z.png"), "--color", "0"), "--color 0")
+    assert not (tmp_path / "z.png").exists()
+
+
+# ------------------------------------------------------------------ messages name what was typed
+
+def test_huge_level_message_names_the_level():
+    line = one_error(run("loop", "T(2,3)", "--level", "1000000000000"), "--level 1000000000000", "smaller level")
+    assert "conductor" not in line
+
+
+def test_big_knot_message_names_the_knot_and_colour():
+    line = one_error(run("loop", "T(9999,10000)"), "T(9999,10000)", "--rep [1]")
+    assert "partition [9999]" not in line
+    line = one_error(run("poly", "T(2,3)", "--family", "colored-jones", "--color", "2001"), "--color 2001")
+    assert "partition [4000]" not in line
+
+
+def test_polynomial_power_runaway_refused_quickly():
+    import time
+
+    t = time.time()
+    one_error(run("match", "--poly", "(1+t+a+z+q)^200"), "estimated", "terms")
+    assert time.time() - t < 2
+    # a power that fits is expanded: (1+t)^3 = 1 + 3t + 3t^2 + t^3 (binomial theorem)
+    from knotobs.tables.polyparse import read_polynomial
+
+    assert read_polynomial("(1+t)^3") == read_polynomial("1 + 3*t + 3*t^2 + t^3")
+
+
+def test_deep_nesting_is_a_parse_error_in_the_library():
+    from knotobs.errors import ParseError
+    from knotobs.tables.polyparse import read_polynomial
+
+    with pytest.raises(ParseError, match="nested 5000 deep"):
+        read_polynomial("(" * 5000 + "t" + ")" * 5000)
+    assert read_polynomial("(" * 100 + "t" + ")" * 100) == read_polynomial("t")
+
+
+def test_level_plane_runaway_refused_with_estimate(tmp_path):
+    import time
+
+    t = time.time()
+    one_error(run("plot", "level-plane", "Sigma(2,3,5)", "-o", str(tmp_path / "p.png"), "--n", "400"),
+              "400 x 400", "estimated")
+    assert time.time() - t < 2 and not (tmp_path / "p.png").exists()
+
+
+def test_digits_refused_by_the_library_too():
+    from knotobs.errors import KnotobsError
+    from knotobs.evaluation.level_loops import level_loop, level_partition_function
+
+    with pytest.raises(KnotobsError, match="from 1 to 2000"):
+        level_loop("T(2,3)", 3, digits=-5)
+    with pytest.raises(KnotobsError, match="from 1 to 2000"):
+        level_partition_function("Sigma(2,3,5)", "SU(2)", 3, digits=10000)
+
+
+def test_max_memory_takes_effect():
+    # (1+t)^150 expands to 151 terms (binomial theorem): fine under the default limit,
+    # refused with its memory estimate under a limit of 1 kB
+    assert run("match", "--poly", "(1+t)^150").exit_code == 0
+    one_error(run("--max-memory", "0.001", "match", "--poly", "(1+t)^150"), "MB of memory", "--max-memory")
