@@ -91,6 +91,10 @@ def seifert_data(space) -> tuple[int, tuple[tuple[int, int], ...]]:
     knotobs.errors.InvalidSeifertDataError: fiber (2, 4) is invalid: need a >= 1 and gcd(a, b) = 1
     """
     if hasattr(space, "b") and hasattr(space, "fibers"):
+        if getattr(space, "genus", 0):
+            raise InvalidSeifertDataError(
+                f"{space} has base genus {space.genus}: this route handles base genus 0 only"
+            )
         b, fibers = space.b, space.fibers
     else:
         try:

@@ -159,7 +159,7 @@ def _build(
                 f" {[c.order for c in cores]}, none of order {core_order}"
             )
         core_idx = hits[0]
-    qhs = M.euler != 0
+    qhs = M.is_rational_homology_sphere
     if core_idx is None:
         labels = tuple(f"K{j + 1}" if components > 1 else "K" for j in range(components))
         role, comps = "regular", components

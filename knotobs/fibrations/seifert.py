@@ -1,4 +1,4 @@
-"""Seifert fibred 3-manifolds over the 2-sphere.
+"""Seifert fibred 3-manifolds over closed orientable surfaces.
 
 Notation and orientation convention
 -----------------------------------
@@ -38,6 +38,27 @@ This is the convention of Neumann and Raymond (links of singularities have
 negative Euler number).  Orientation reversal is
 ``M(0; b; (a_i, b_i)) -> M(0; -b; (a_i, -b_i))``.
 
+Base genus ``g >= 1``
+---------------------
+``M(g; b; (a_1, b_1), ..., (a_n, b_n))`` has as base the closed orientable
+surface ``Sigma_g``; it is obtained from ``Sigma_g'' x S^1`` (``Sigma_g`` minus
+``n + 1`` discs) by the same fibre-preserving fillings as for ``g = 0`` (the
+``(1, b)`` filling carries ``b``).  The fundamental group is
+``< alpha_j, beta_j, q_i, h | h central, q_i^(a_i) h^(b_i) = 1,
+prod_j [alpha_j, beta_j] q_1 ... q_n = h^b >`` (Seifert 1933; Orlik, LNM 291
+(1972) §5.2), so
+
+* ``e = -(b + sum b_i/a_i)`` as for ``g = 0``; ``chi = 2 - 2g - sum (1 - 1/a_i)``;
+* ``H_1 = Z^(2g) + H_1(M(0; b; (a_i, b_i)))``: the commutators die and the
+  genus-0 relations remain.  ``H_1`` is infinite, with first Betti number
+  ``b_1 = 2g`` when ``e != 0`` and ``b_1 = 2g + 1`` when ``e = 0``;
+* ``M(g; 0)`` is ``S^1 x Sigma_g``;
+* normal form and orientation reversal act on ``b`` and the ``(a_i, b_i)``
+  exactly as for ``g = 0``.
+
+A non-orientable base (Seifert's classes ``n_1, n_2``, in some notations a
+negative genus) is not handled: such input is refused with an error.
+
 References
 ----------
 H. Seifert, Acta Math. 60 (1933) 147-238.
@@ -67,12 +88,15 @@ __all__ = [
     "lens_canonical_q",
     "MAX_FIBERS",
     "MAX_FIBER_ORDER",
+    "MAX_GENUS",
 ]
 
 #: Largest number of fibres accepted.
 MAX_FIBERS = 64
 #: Largest |a_i|, |b_i|, |b| accepted (keeps the exact linear algebra small).
 MAX_FIBER_ORDER = 10**9
+#: Largest base genus accepted.
+MAX_GENUS = 10**6
 
 
 # ---------------------------------------------------------------------------
@@ -399,9 +423,23 @@ def _check_int(name: str, v: object) -> int:
     return v
 
 
-@dataclass(frozen=True)
+def _check_genus(g: object) -> int:
+    if isinstance(g, bool) or not isinstance(g, int):
+        raise InvalidSeifertDataError(f"base genus g={g!r} must be an integer >= 0")
+    if g < 0:
+        raise InvalidSeifertDataError(
+            f"base genus g = {g} is negative: the base must be a closed orientable surface of genus"
+            " g >= 0 (a negative genus stands for a non-orientable base in some notations;"
+            " non-orientable bases are not supported)"
+        )
+    if g > MAX_GENUS:
+        raise SizeLimitError(f"base genus g = {g} is too large (limit {MAX_GENUS})")
+    return g
+
+
+@dataclass(frozen=True, repr=False)
 class SeifertManifold:
-    """The oriented Seifert manifold ``M(0; b; (a_1, b_1), ..., (a_n, b_n))`` over ``S^2``.
+    """The oriented Seifert manifold ``M(g; b; (a_1, b_1), ..., (a_n, b_n))`` (base genus ``g``).
 
     See the module docstring for the orientation convention and the dictionary
     ``M(0; b; (a_i, b_i)) = X(a_1/b_1, ..., a_n/b_n, 1/b)`` with the surgery
@@ -415,6 +453,8 @@ class SeifertManifold:
         ``(a_i, b_i)`` with ``a_i >= 1`` and ``gcd(a_i, b_i) = 1``; lists are
         converted to tuples.  Fibres with ``a_i = 1`` are allowed (they are
         regular and can be absorbed into ``b``).
+    genus : int, default 0
+        Genus ``g >= 0`` of the (orientable) base surface (module docstring).
 
     Examples
     --------
@@ -425,6 +465,9 @@ class SeifertManifold:
     ((2, 1), (3, 1), (5, 1), (1, -1))
     >>> SeifertManifold(0, [(2, 5)]).normal_form()
     SeifertManifold(b=2, fibers=((2, 1),))
+    >>> T = SeifertManifold(0, (), genus=2)          # S^1 x Sigma_2
+    >>> T, T.homology(), T.betti_number
+    (SeifertManifold(b=0, fibers=(), genus=2), (0, 0, 0, 0, 0), 5)
 
     References
     ----------
@@ -434,9 +477,11 @@ class SeifertManifold:
 
     b: int
     fibers: tuple[tuple[int, int], ...] = field(default_factory=tuple)
+    genus: int = 0
 
     def __post_init__(self) -> None:
         _check_int("b", self.b)
+        _check_genus(self.genus)
         try:
             raw = list(self.fibers)
         except TypeError:
@@ -479,28 +524,48 @@ class SeifertManifold:
 
     @property
     def orbifold_euler_characteristic(self) -> Fraction:
-        """``chi = 2 - sum (1 - 1/a_i)`` of the base orbifold.
+        """``chi = 2 - 2g - sum (1 - 1/a_i)`` of the base orbifold.
 
         >>> SeifertManifold(-1, [(2, 1), (3, 1), (5, 1)]).orbifold_euler_characteristic
         Fraction(1, 30)
+        >>> SeifertManifold(-1, [(2, 1)], genus=1).orbifold_euler_characteristic
+        Fraction(-1, 2)
         """
-        return 2 - sum((1 - Fraction(1, a) for a, _ in self.fibers), Fraction(0))
+        return 2 - 2 * self.genus - sum((1 - Fraction(1, a) for a, _ in self.fibers), Fraction(0))
 
     @property
     def h1_order(self) -> int:
-        """``|H_1(M; Z)| = |a_1 ... a_n e|``, ``0`` when ``H_1`` is infinite.
+        """``|H_1(M; Z)| = |a_1 ... a_n e|``, ``0`` when ``H_1`` is infinite (``e = 0`` or ``g >= 1``).
 
         >>> SeifertManifold.from_lens(7, 2).h1_order
         7
+        >>> SeifertManifold(-1, [(2, 1), (3, 1)], genus=1).h1_order
+        0
         """
+        if self.genus:
+            return 0
         v = abs(prod(a for a, _ in self.fibers) * self.euler)
         assert v.denominator == 1
         return int(v)
 
     @property
     def is_rational_homology_sphere(self) -> bool:
-        """``e != 0`` (base of genus 0)."""
-        return self.euler != 0
+        """``e != 0`` and base of genus 0."""
+        return self.genus == 0 and self.euler != 0
+
+    @property
+    def betti_number(self) -> int:
+        """First Betti number ``b_1 = 2g`` (``e != 0``) or ``2g + 1`` (``e = 0``).
+
+        From ``H_1 = Z^(2g) + H_1(M(0; b; (a_i, b_i)))`` (module docstring; Orlik, LNM 291
+        (1972) §5.2).
+
+        >>> SeifertManifold(-1, [(2, 1), (3, 1)], genus=1).betti_number
+        2
+        >>> SeifertManifold(0, (), genus=2).betti_number     # S^1 x Sigma_2
+        5
+        """
+        return 2 * self.genus + (1 if self.euler == 0 else 0)
 
     @property
     def is_integral_homology_sphere(self) -> bool:
@@ -518,14 +583,16 @@ class SeifertManifold:
         (2, 2, 8)
         >>> SeifertManifold(-2, [(2, 1), (2, 1), (2, 1), (2, 1)]).homology()  # e = 0
         (2, 2, 0)
+        >>> SeifertManifold(0, [(2, 1), (2, 1)], genus=1).homology()  # Z^2 + H_1(M(0; 0; (2,1), (2,1)))
+        (4, 0, 0)
         """
         d, _ = _Diagram(self.b, self.fibers).homology()
-        free = [x for x in d if x == 0]
+        free = [x for x in d if x == 0] + [0] * (2 * self.genus)
         tors = sorted(x for x in d if x > 1)
         return tuple(tors + free)
 
     def linking_form(self) -> LinkingForm | None:
-        """Torsion linking form (``None`` when ``H_1`` is infinite).
+        """Torsion linking form (``None`` when ``H_1`` is infinite, in particular for ``g >= 1``).
 
         The form is ``-x^T Lambda^{-1} y mod 1`` with ``Lambda`` the rational
         linking matrix of the surgery diagram (module docstring).  For
@@ -542,7 +609,7 @@ class SeifertManifold:
         Seifert (1933); Kirby, LNM 1374 (1989), linking numbers in surgered
         manifolds.
         """
-        if self.euler == 0:
+        if self.euler == 0 or self.genus:
             return None
         diag = _Diagram(self.b, self.fibers)
         d, W = diag.homology()
@@ -577,7 +644,7 @@ class SeifertManifold:
             b += k
             if a > 1:
                 out.append((a, r))
-        return SeifertManifold(b, tuple(sorted(out)))
+        return SeifertManifold(b, tuple(sorted(out)), self.genus)
 
     def twist(self, i: int, k: int) -> "SeifertManifold":
         """The move ``(a_i, b_i) -> (a_i, b_i + k a_i)``, ``b -> b - k`` (same manifold).
@@ -589,17 +656,17 @@ class SeifertManifold:
         f = list(self.fibers)
         a, bi = f[i]
         f[i] = (a, bi + k * a)
-        return SeifertManifold(self.b - k, tuple(f))
+        return SeifertManifold(self.b - k, tuple(f), self.genus)
 
     def with_regular_fiber(self, k: int = 0) -> "SeifertManifold":
         """Add a fibre ``(1, k)`` and change ``b`` by ``-k`` (same manifold)."""
-        return SeifertManifold(self.b - k, self.fibers + ((1, k),))
+        return SeifertManifold(self.b - k, self.fibers + ((1, k),), self.genus)
 
     def permute(self, order: Sequence[int]) -> "SeifertManifold":
         """Reorder the fibres (same manifold)."""
         if sorted(order) != list(range(len(self.fibers))):
             raise InvalidSeifertDataError(f"{list(order)!r} is not a permutation of the fibre indices")
-        return SeifertManifold(self.b, tuple(self.fibers[j] for j in order))
+        return SeifertManifold(self.b, tuple(self.fibers[j] for j in order), self.genus)
 
     def is_equivalent(self, other: "SeifertManifold") -> bool:
         """Same normal form, i.e. orientation- and fibre-preservingly homeomorphic."""
@@ -611,7 +678,7 @@ class SeifertManifold:
         >>> SeifertManifold(-1, [(2, 1), (3, 1), (5, 1)]).reverse().recognise()
         '-Sigma(2,3,5)'
         """
-        return SeifertManifold(-self.b, tuple((a, -bi) for a, bi in self.fibers))
+        return SeifertManifold(-self.b, tuple((a, -bi) for a, bi in self.fibers), self.genus)
 
     # --------------------------------------------------- surgery and gluing
     def surgery_presentation(self) -> tuple[tuple[int, int], ...]:
@@ -623,10 +690,17 @@ class SeifertManifold:
         >>> SeifertManifold.from_lens(7, 2).surgery_presentation()
         ((2, 7),)
 
+        Base genus ``g >= 1`` has no such presentation (``b_1 >= 2``) and is refused.
+
         References
         ----------
         R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287-314.
         """
+        if self.genus:
+            raise InvalidSeifertDataError(
+                f"{self} has base genus {self.genus}: it is not surgery on an unknot and its meridians"
+                " (that presentation exists for base genus 0 only)"
+            )
         out = tuple(self.fibers)
         if self.b != 0:
             out = out + ((1, self.b),)
@@ -725,7 +799,7 @@ class SeifertManifold:
                 v = sum((Winv[k][i] * x[i] for i in range(m)), Fraction(0))
                 assert v.denominator == 1
                 out.append(int(v) % d[k] if d[k] else int(v))
-            return tuple(out)
+            return tuple(out) + (0,) * (2 * self.genus)   # fibres lie in the genus-0 part
 
         h = [0] * m
         h[0] = 1
@@ -743,7 +817,7 @@ class SeifertManifold:
         """Orders of the cyclic factors used by :meth:`fiber_homology_classes` (0 = Z)."""
         d, _ = _Diagram(self.b, self.fibers).homology()
         keep = sorted((x for x in d if x != 1), key=lambda x: (x == 0, x))
-        return tuple(keep)
+        return tuple(keep) + (0,) * (2 * self.genus)
 
     # ------------------------------------------------------------ recognise
     def lens_parameters(self) -> tuple[int, int] | None:
@@ -758,7 +832,7 @@ class SeifertManifold:
         (5, 4)
         """
         N = self.normal_form()
-        if len(N.fibers) > 2:
+        if len(N.fibers) > 2 or N.genus:
             return None
         b = N.b
         if not N.fibers:
@@ -800,6 +874,12 @@ class SeifertManifold:
             geom = "E^3" if e == 0 else "Nil"
         else:
             geom = "H^2xR" if e == 0 else "SL2"
+        if N.genus:
+            if not N.fibers and e == 0:
+                return Recognition(f"S^1xSigma_{N.genus}", f"product S^1 x Sigma_{N.genus}", geom)
+            if not N.fibers:
+                return Recognition(None, f"circle bundle over Sigma_{N.genus}", geom)
+            return Recognition(None, f"Seifert manifold over Sigma_{N.genus}", geom)
         lp = N.lens_parameters()
         if lp is not None:
             p, q = lp
@@ -912,6 +992,11 @@ class SeifertManifold:
             )
 
     def _require_qhs(self, what: str) -> Fraction:
+        if self.genus:
+            raise InvalidSeifertDataError(
+                f"{what} of {self} is not defined here: base genus {self.genus} >= 1, so H_1 is"
+                " infinite (needs a rational homology sphere: base genus 0 and e != 0)"
+            )
         e = self.euler
         if e == 0:
             raise InvalidSeifertDataError(
@@ -923,7 +1008,11 @@ class SeifertManifold:
     def __str__(self) -> str:
         fib = "".join(f"; ({a},{bi})" if k == 0 else f", ({a},{bi})"
                       for k, (a, bi) in enumerate(self.fibers))
-        return f"M(0; {self.b}{fib})"
+        return f"M({self.genus}; {self.b}{fib})"
+
+    def __repr__(self) -> str:
+        g = f", genus={self.genus}" if self.genus else ""
+        return f"SeifertManifold(b={self.b!r}, fibers={self.fibers!r}{g})"
 
 
 # ---------------------------------------------------------------------------
@@ -962,20 +1051,24 @@ _RE_M = re.compile(r"^M\((.*)\)$", re.I)
 _RE_PAIR = re.compile(rf"^\(({_INT}),({_INT})\)$")
 
 _SPACE_HELP = (
-    "write S^3, S^2xS^1, L(p,q), Sigma(a1,a2,a3) or M(0; b; (a1,b1), ..., (an,bn)),"
+    "write S^3, S^2xS^1, L(p,q), Sigma(a1,a2,a3) or M(g; b; (a1,b1), ..., (an,bn)) (base genus g >= 0),"
     " optionally with a leading '-' for the reversed orientation"
 )
+_RE_NONORIENTABLE = re.compile(r"^[nN]\d+$")
 
 
 def parse_space(text: "str | SeifertManifold") -> SeifertManifold:
-    """Parse the usual notation for a Seifert manifold over ``S^2``.
+    """Parse the usual notation for a Seifert manifold with orientable base.
 
     Parameters
     ----------
     text : str
         ``S^3``, ``S^2xS^1``, ``L(p,q)``, ``Sigma(a1,...,an)``,
-        ``M(0; b; (a1,b1), ..., (an,bn))`` (also ``M(b; (a1,b1), ...)``), each
+        ``M(g; b; (a1,b1), ..., (an,bn))`` with base genus ``g >= 0`` (also
+        ``M(b; (a1,b1), ...)`` for ``g = 0``; ``M(2; 0)`` is ``S^1 x Sigma_2``), each
         optionally preceded by ``-`` (orientation reversal).  Spaces are ignored.
+        A genus written ``n1``, ``n2``, ... (non-orientable base) or a negative
+        genus is refused.
 
     Returns
     -------
@@ -986,7 +1079,8 @@ def parse_space(text: "str | SeifertManifold") -> SeifertManifold:
     ParseError
         The text is not in one of these forms.
     InvalidSeifertDataError
-        The numbers do not describe a Seifert manifold (e.g. ``gcd(a_i, b_i) != 1``).
+        The numbers do not describe a Seifert manifold (e.g. ``gcd(a_i, b_i) != 1``,
+        a negative genus, a non-orientable base).
 
     Examples
     --------
@@ -994,6 +1088,11 @@ def parse_space(text: "str | SeifertManifold") -> SeifertManifold:
     Fraction(-1, 42)
     >>> parse_space("-L(5,2)").recognise()
     'L(5,2)'
+    >>> M = parse_space("M(2; 0)")
+    >>> M.recognise(), M.homology()
+    ('S^1xSigma_2', (0, 0, 0, 0, 0))
+    >>> parse_space("M(1; -1; (2,1), (3,1))").betti_number
+    2
     >>> parse_space("M(0; 0; (2,1), (4,2))")
     Traceback (most recent call last):
     ...
@@ -1033,25 +1132,27 @@ def _parse_unsigned(s: str, original: str) -> SeifertManifold:
         parts = _split_top(m.group(1), original)
         nums: list[int] = []
         pairs: list[tuple[int, int]] = []
-        for part in parts:
+        for k, part in enumerate(parts):
             pm = _RE_PAIR.match(part)
             if pm:
                 pairs.append((int(pm.group(1)), int(pm.group(2))))
             elif re.fullmatch(_INT, part) and not pairs:
                 nums.append(int(part))
+            elif k == 0 and _RE_NONORIENTABLE.match(part):
+                raise InvalidSeifertDataError(
+                    f"space {original!r} has a non-orientable base ({part!r}); knotobs handles"
+                    " orientable bases only: write M(g; b; (a1,b1), ...) with genus g >= 0"
+                )
             else:
                 raise ParseError(f"cannot read {part!r} in space {original!r}: {_SPACE_HELP}")
         if len(nums) == 2:
-            if nums[0] != 0:
-                raise ParseError(
-                    f"space {original!r} has base genus {nums[0]}; only base S^2 (genus 0) is supported"
-                )
-            b = nums[1]
+            genus, b = nums
+            _check_genus(genus)
         elif len(nums) == 1:
-            b = nums[0]
+            genus, b = 0, nums[0]
         else:
-            raise ParseError(f"cannot read space {original!r}: expected M(0; b; ...). {_SPACE_HELP}")
-        return SeifertManifold(b, tuple(pairs))
+            raise ParseError(f"cannot read space {original!r}: expected M(g; b; ...). {_SPACE_HELP}")
+        return SeifertManifold(b, tuple(pairs), genus)
     raise ParseError(f"cannot read space {original!r}: {_SPACE_HELP}")
 
 

@@ -181,7 +181,7 @@ def surgery_on_fiber(
     if framing not in ("fiber", "seifert"):
         raise InvalidSeifertDataError(f"framing={framing!r}: use 'fiber' or 'seifert'")
     if fiber is None:
-        amb = SeifertManifold(M.b, M.fibers + ((1, 0),))
+        amb = SeifertManifold(M.b, M.fibers + ((1, 0),), M.genus)
         idx = len(amb.fibers) - 1
         label = "regular fibre"
     else:
@@ -202,6 +202,11 @@ def surgery_on_fiber(
         target = Fraction(0)
     new = _new_fiber(amb, idx, s.numerator, s.denominator, target)
     others = amb.fibers[:idx] + amb.fibers[idx + 1:]
+    if new[0] == 0 and amb.genus:
+        raise InvalidSeifertDataError(
+            f"surgery along the fibre slope on {M} (base genus {amb.genus}) is not a Seifert"
+            " manifold with a circle fibration of this kind; knotobs does not follow it"
+        )
     if new[0] == 0:
         summands = []
         for a, bi in others:
@@ -213,7 +218,8 @@ def surgery_on_fiber(
         return SurgeryResult(amb, idx, s, framing, new, None, tuple(summands), label)
     fibers = list(amb.fibers)
     fibers[idx] = new
-    return SurgeryResult(amb, idx, s, framing, new, SeifertManifold(amb.b, tuple(fibers)), (), label)
+    return SurgeryResult(amb, idx, s, framing, new, SeifertManifold(amb.b, tuple(fibers), amb.genus),
+                         (), label)
 
 
 def torus_knot_surgery(knot: "TorusLink | str", slope: "Fraction | int | str") -> SurgeryResult:

@@ -31,7 +31,10 @@ def seifert_json(M: SeifertManifold) -> dict[str, Any]:
     >>> seifert_json(SeifertManifold(-1, [(2, 1), (3, 1), (5, 1)]))
     {'b': -1, 'fibers': [[2, 1], [3, 1], [5, 1]]}
     """
-    return {"b": M.b, "fibers": [list(f) for f in M.fibers]}
+    out: dict[str, Any] = {"b": M.b, "fibers": [list(f) for f in M.fibers]}
+    if M.genus:
+        out["genus"] = M.genus
+    return out
 
 
 def _manifold_fields(M: SeifertManifold) -> dict[str, Any]:
@@ -47,7 +50,8 @@ def _manifold_fields(M: SeifertManifold) -> dict[str, Any]:
         "kind": rec.kind,
         "geometry": rec.geometry,
         "orbifold_euler_characteristic": str(N.orbifold_euler_characteristic),
-        "surgery_presentation": [list(x) for x in N.surgery_presentation()],
+        "surgery_presentation": ([list(x) for x in N.surgery_presentation()] if not N.genus
+                                 else None),
         "linking_form": None if lf is None else {
             "orders": list(lf.orders),
             "matrix": [[str(x) for x in row] for row in lf.matrix],
@@ -180,8 +184,12 @@ def space_text(R: SpaceReport) -> str:
             ("recognised", rec.name or "-"),
             ("kind", rec.kind),
             ("geometry", rec.geometry),
-            ("surgery X(p/q,...)", ", ".join(f"{p}/{q}" for p, q in N.surgery_presentation()) or "-"),
+            ("surgery X(p/q,...)", (", ".join(f"{p}/{q}" for p, q in N.surgery_presentation()) or "-")
+             if not N.genus else "- (base genus >= 1)"),
         ]
+        if N.genus:
+            rows[1:1] = [("base genus g", str(N.genus)),
+                         ("b_1", f"{N.betti_number} (2g{' + 1, since e = 0' if N.euler == 0 else ', e != 0'})")]
         if lf is not None and lf.orders:
             rows.append(("linking form", "; ".join(
                 f"lk(g{i+1},g{j+1}) = {lf.matrix[i][j]}" for i in range(len(lf.orders))

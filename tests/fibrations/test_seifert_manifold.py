@@ -55,7 +55,7 @@ def test_bad_seifert_data_is_named(b, fibs, needle):
     [
         ("L(7", "'L(7'"),
         ("M(0; 1; (2,1) (3,1))", "(2,1)(3,1)"),
-        ("M(1; 0; (2,1))", "genus 1"),
+        ("M(1; 0; 2)", "'M(1; 0; 2)'"),
         ("Sigma(2,x,5)", "'Sigma(2,x,5)'"),
         ("M(0; 1; ((2,1))", "unbalanced"),
         ("foo", "'foo'"),
