@@ -506,9 +506,13 @@ def seifert_genus(space) -> int:
 
 
 def _plain(space):
-    """Strip a leading genus from plain ``(g, b, fibers)`` data."""
+    """``(b, fibers)`` of any base genus: plain ``(g, b, fibers)`` data loses its leading genus,
+    a SeifertManifold-like object gives its ``.b`` and ``.fibers`` (its genus is read by
+    :func:`seifert_genus`; :func:`seifert_data` itself refuses genus >= 1 for the genus-0 routes)."""
     if isinstance(space, (tuple, list)) and len(space) == 3 and not hasattr(space, "fibers"):
         return space[1], space[2]
+    if hasattr(space, "b") and hasattr(space, "fibers"):
+        return space.b, tuple(space.fibers)
     return space
 
 

@@ -244,3 +244,19 @@ def test_large_alcove_is_no_longer_a_fixed_refusal():
     gs = partition_function((0, [(1, 5)]), "SU(2)", 9998, digits=20, route="gauss-sum")
     assert abs(z.numeric - gs.numeric) < mpmath.mpf(10) ** -18
     assert math.comb(9999, 1) > 5000
+
+
+@pytest.mark.parametrize("name", ["M(1; -1; (2,1), (3,1))", "M(2; 1; (3,1))", "M(1; 0; (2,1), (4,1), (6,-1))",
+                                  "M(2; 0)", "M(1; 2)"])
+@pytest.mark.parametrize("N,k", [(2, 3), (2, 5), (3, 2)])
+def test_genus_surgery_equals_localisation_exactly(name, N, k):
+    # two independent routes for base genus >= 1: the plumbing/gluing phase (canonical
+    # 2-framing from the signature) and the localisation route's phase from Rademacher's
+    # function (Lawrence-Rozansky 1999; Hansen 2001)
+    from knotobs.fibrations.seifert import parse_space
+    from knotobs.localisation import localisation_partition_function
+
+    M = parse_space(name)
+    a = partition_function(M, f"SU({N})", k, exact=True)
+    b = localisation_partition_function(M, f"SU({N})", k, exact=True)
+    assert a.exact == b.exact
