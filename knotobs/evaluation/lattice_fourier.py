@@ -51,7 +51,7 @@ from flint import acb, acb_mat, arb, ctx
 __all__ = ["WeightLatticeFourier", "smith_normal_form", "DENSE_AXIS_MAX"]
 
 #: Axes up to this length are transformed by a dense ``acb_mat`` product (C, block
-#: multiplication); longer axes by one ``acb.dft`` call per line (FFT).
+#: multiplication) unless their length is smooth; longer axes by one ``acb.dft`` call per line (FFT).
 DENSE_AXIS_MAX = 400
 
 
@@ -141,6 +141,21 @@ def _twiddle(d: int, prec: int) -> acb_mat:
         ctx.prec = old
 
 
+def _largest_prime_factor(d: int) -> int:
+    p, out = 2, 1
+    while p * p <= d:
+        while d % p == 0:
+            out, d = p, d // p
+        p += 1
+    return max(out, d) if d > 1 else out
+
+
+def _fft_friendly(d: int) -> bool:
+    """Axes of smooth length (prime factors <= 7, length >= 16) are faster by ``acb.dft``
+    (FFT in C) than by a dense product; lengths with a large prime factor are not (measured)."""
+    return d >= 16 and _largest_prime_factor(d) <= 7
+
+
 class WeightLatticeFourier:
     """``v -> Stilde v`` for SU(N)_k by the DFT on ``P/KQ`` (see the module docstring).
 
@@ -210,13 +225,17 @@ class WeightLatticeFourier:
                     data[pos] = val
         prec = ctx.prec
         cur = data
-        for d in self.shape:
+        r = len(self.shape)
+        restricted = r >= 2
+        for d in (self.shape[:-1] if restricted else self.shape):
             R = len(cur) // d
-            if d <= DENSE_AXIS_MAX:
+            if d <= DENSE_AXIS_MAX and not _fft_friendly(d):
                 Y = _twiddle(d, prec) * acb_mat(d, R, cur)
                 cur = Y.transpose().entries()
             else:
                 cur = [t for j in range(R) for t in acb.dft(cur[j::R])]
+        if restricted:
+            return self._last_axis_at_outputs(cur, B, prec)
         # now ordered (B, d_0, ..., d_{r-1})
         out = []
         idx = self.out_index.tolist()
@@ -224,3 +243,46 @@ class WeightLatticeFourier:
             off = b * self.size
             out.append([cur[off + i] for i in idx])
         return out
+
+    def _last_axis_at_outputs(self, cur: list, B: int, prec: int) -> list[list[acb]]:
+        """The last axis, evaluated only at the alcove points.
+
+        ``cur`` is ordered ``(d_last, B, d_0, ..., d_{r-2})``; for each line (a value of the
+        first ``r - 1`` coordinates) only the frequencies of the output points on that line are
+        computed, by one product with the matching rows of the DFT matrix (cached per precision).
+        """
+        d = self.shape[-1]
+        L = self.size // d
+        BL = B * L
+        lines = self._lines(prec)
+        out = [[None] * self.n for _ in range(B)]
+        for line, (rows, T) in lines.items():
+            X = acb_mat(d, B, [cur[x * BL + b * L + line] for x in range(d) for b in range(B)])
+            Y = (T * X).entries()
+            for i, lam in enumerate(rows):
+                for b in range(B):
+                    out[b][lam] = Y[i * B + b]
+        return out
+
+    def _lines(self, prec: int) -> dict:
+        cache = self.__dict__.setdefault("_line_cache", {})
+        if prec in cache:
+            return cache[prec]
+        d = self.shape[-1]
+        old = ctx.prec
+        ctx.prec = prec
+        try:
+            roots = [acb(arb(-2 * e) / d).exp_pi_i() for e in range(d)]
+            groups: dict[int, list[tuple[int, int]]] = {}
+            for lam, flat in enumerate(self.out_index.tolist()):
+                groups.setdefault(flat // d, []).append((lam, flat % d))
+            lines = {}
+            for line, pts in groups.items():
+                rows = [lam for lam, _ in pts]
+                T = acb_mat(len(pts), d, [roots[(kk * x) % d] for _, kk in pts for x in range(d)])
+                lines[line] = (rows, T)
+        finally:
+            ctx.prec = old
+        cache.clear()
+        cache[prec] = lines
+        return lines

@@ -99,8 +99,10 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     CONVENTIONS §3, §5, §7; Rosso–Jones (1993); Reshetikhin–Turaev (1991).
     """
     g = parse_group(group)
+    if g.kind == "U":
+        return _unitary(knot, level, g.N, rep, space, fiber, framing, normalized, digits)
     if g.kind != "SU":
-        raise KnotobsError(f"finite-level values are computed for SU(N); got {g}")
+        raise KnotobsError(f"finite-level values are computed for SU(N) and U(N); got {g}")
     if knot is None:
         if fiber is None:
             raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")
@@ -176,6 +178,29 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
             )
     return FiniteLevelValue(exact=exact, numeric=numeric, digits=v.digits, framing=framing_text,
                             orientation=v.orientation, normalisation=v.normalisation, details=details)
+
+
+def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits) -> FiniteLevelValue:
+    """U(N)_k = (SU(N)_k x U(1)_{N(k+N)})/Z_N (:mod:`knotobs.evaluation.unitary_level`)."""
+    from knotobs.evaluation.unitary_level import unitary_fiber_loop, unitary_level_loop
+
+    if not normalized:
+        raise KnotobsError("U(N) at finite level is computed normalised by Z(M): drop --raw")
+    one = (rep if not rep or isinstance(rep[0], int) or isinstance(rep, str) else rep[0])
+    if knot is not None and str(knot).strip().lower() not in ("fiber", "fibre"):
+        if space.replace(" ", "").upper() not in ("S^3", "S3"):
+            raise KnotobsError("U(N) torus knots at finite level are computed in S^3; in other spaces"
+                               " colour a fiber (knot 'fiber' or --fiber i)")
+        return unitary_level_loop(knot, level, N, rep, framing=framing, digits=digits)
+    fr = "fiber" if framing in (None, "fiber") else framing
+    if fr not in ("fiber", "zero"):
+        raise KnotobsError("a U(N) fiber loop takes framing 'fiber' or 'zero'")
+    if knot is None:
+        if fiber is None:
+            raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")
+        return unitary_fiber_loop(space, level, N, exceptional={fiber: as_partition(one)}, framing=fr,
+                                  digits=digits)
+    return unitary_fiber_loop(space, level, N, regular=[as_partition(one)], framing=fr, digits=digits)
 
 
 def _is_integer_framing(framing) -> bool:

@@ -37,7 +37,6 @@ from knotobs.errors import (
     InvalidRepresentationError,
     NotIntegrableError,
     ParseError,
-    SizeLimitError,
 )
 from knotobs.guard import require, seconds_for
 from knotobs.polynomials.cyclotomic import (

@@ -45,7 +45,6 @@ from knotobs.errors import (
     InexactDivisionError,
     InvalidSeifertDataError,
     KnotobsError,
-    SizeLimitError,
 )
 from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.evaluation.modular import ModularData, check_integrable, modular_data, parse_group
@@ -53,7 +52,6 @@ from knotobs.polynomials.cyclotomic import (
     Cyclotomic,
     CyclotomicField,
     CyclotomicSurd,
-    acb_to_mpc_checked,
 )
 from knotobs.representations.partitions import Partition
 

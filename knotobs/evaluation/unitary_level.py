@@ -37,8 +37,6 @@ Examples
 from __future__ import annotations
 
 from fractions import Fraction
-from typing import Optional
-
 import mpmath
 
 from knotobs.errors import KnotobsError
@@ -97,7 +95,9 @@ def _profile(v: FiniteLevelValue, N: int, level: int, turns: Fraction, extra: di
                     "abelian phase (turns)": turns, **extra})
     return FiniteLevelValue(exact=exact, numeric=numeric, digits=v.digits, framing=v.framing,
                             orientation=v.orientation,
-                            normalisation=v.normalisation + "; " + UNITARY_CONVENTION, details=details)
+                            normalisation=(f"{v.normalisation}; U({N}) at level {level} = (SU({N})_{level} x"
+                                           f" U(1)_{N * (level + N)})/Z_{N} (Marino 2005;"
+                                           " Naculich-Schnitzer 2007)"), details=details)
 
 
 def unitary_level_loop(knot: str, level: int, N: int, rep=(1,), framing=None,

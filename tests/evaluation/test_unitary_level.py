@@ -24,7 +24,7 @@ def test_unitary_torus_links_equal_the_unitary_polynomial(knot, N, k, rep, frami
     v = unitary_level_loop(knot, k, N, rep, framing=framing, digits=25)
     assert v.details["polynomial_check"] < 1e-22
     assert v.details["U(1) level"] == N * (k + N)
-    assert "Z_N" in v.normalisation and v.details["quotient"] == "Z_N"
+    assert f"U(1)_{N * (k + N)})/Z_{N}" in v.normalisation and v.details["quotient"] == "Z_N"
 
 
 def test_links_differ_from_su_n_by_the_linking_phase():
@@ -62,3 +62,15 @@ def test_poincare_sphere_fiber_and_refusal_on_torsion():
         unitary_fiber_loop("L(5,1)", 3, 2, regular=[(1,)])
     with pytest.raises(KnotobsError, match="more than 2 rows"):
         unitary_level_loop("T(2,3)", 3, 2, (1, 1, 1))
+
+
+def test_cli_loop_with_unitary_group():
+    from typer.testing import CliRunner
+
+    from knotobs.cli import app
+
+    r = CliRunner().invoke(app, ["loop", "T(2,4)", "--group", "U(3)", "--level", "3"])
+    assert r.exit_code == 0, r.output
+    assert "U(1)_18)/Z_3" in r.output and "exact     -2" in r.output
+    r = CliRunner().invoke(app, ["loop", "T(2,4)", "--group", "U(3)", "--level", "3", "--in", "L(5,1)"])
+    assert r.exit_code == 2 and "error:" in r.output
