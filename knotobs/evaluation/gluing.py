@@ -158,10 +158,19 @@ def _cost(N: int, k: int, n: int, plan: GluingPlan, colours: int, exact) -> tupl
         deg = _phi(math.lcm(2 * N * K, 8 * K))
         ops = n * n * (1 + apps) * deg
         return seconds_for(ops, "flint") + seconds_for(n * n * 20, "python"), n * n * deg * 40 / 1e6 + 50
-    from knotobs.evaluation.lattice_fourier import _fft_friendly
+    from knotobs.evaluation.lattice_fourier import DENSE_AXIS_MAX, _fft_friendly
 
     G = N * K ** (N - 1)
-    axis_sum = sum(d * (0.4 if _fft_friendly(d) else 1.0) for d in [K] * (N - 2) + [N * K])
+    def per_element(d: int) -> float:         # multiply-adds per element of one axis
+        if d <= DENSE_AXIS_MAX and not _fft_friendly(d):
+            return d
+        return (4 if _fft_friendly(d) else 12) * math.log2(d) + 8
+
+    axes = [K] * (N - 2) + [N * K]
+    # the last axis is evaluated at the n alcove points only (when there are two axes or more)
+    axis_sum = sum(per_element(d) for d in (axes[:-1] if len(axes) > 1 else axes))
+    if len(axes) > 1:
+        axis_sum += n * axes[-1] / G
     # measured on a two-core machine at 30 digits: one ball multiply-add of an acb_mat product
     # ~0.12 us, one element of a reshape or scatter ~0.6 us, one Python ball operation ~0.3 us
     transform = apps * G * (0.12e-6 * axis_sum + 0.6e-6 * (N - 1))
@@ -253,7 +262,13 @@ class _Balls:
         self._x = x
 
     def column(self, j):
-        """``Stilde e_j`` by the Weyl sum (``n N!`` ball additions)."""
+        """``Stilde e_j`` by the Weyl sum (``n N!`` ball additions; memoised per evaluation)."""
+        memo = self.__dict__.setdefault("_columns", {})
+        if j not in memo:
+            memo[j] = self._column(j)
+        return memo[j]
+
+    def _column(self, j):
         import itertools
 
         md = self.md
@@ -415,7 +430,12 @@ def evaluate_gluing(md, pres, genus: int = 0, exceptional: Mapping[int, int] | N
         phase = be.F.zeta(int(turns * be.M)) if (turns * be.M).denominator == 1 else root_of_unity(turns)
         value = (s0 ** p) * (total * phase)
         return value, value.to_mpc(digits)
-    dps = digits + 6 + int(math.log10(md.size + 1)) // 2
+    # guard digits: the transforms lose about log10(n)/2 digits, and the central power
+    # S_{0 lam}^(2-2g-d) amplifies the error by up to |S_{0 lam}|^-(d+2g-2) at the corners
+    # of the alcove, where Stilde_{0 lam} ~ (pi/K)^(N(N-1)/2)
+    d = len(plan.words) + len(regular)
+    amplify = max(0, d + 2 * genus - 2) * (md.N * (md.N - 1) / 2) * math.log10(max(md.K / math.pi, 1.0))
+    dps = digits + 6 + int(math.log10(md.size + 1)) // 2 + int(amplify / 2)
     for _attempt in range(4):
         with working_precision(dps):
             be = _Balls(md)
@@ -426,7 +446,11 @@ def evaluate_gluing(md, pres, genus: int = 0, exceptional: Mapping[int, int] | N
                 * s0.to_acb(prec) ** p
         if _certified(z, digits):
             return None, acb_to_mpc(z, digits)
-        dps *= 2
+        # raise the precision by the digits that were missing (from the radius), plus guard
+        rad = max(float(z.real.rad()), float(z.imag.rad()), 1e-300)
+        mag = max(abs(float(z.real.mid())), abs(float(z.imag.mid())), 1.0)
+        missing = math.log10(rad / mag) + digits + 2 if rad > 0 else 0
+        dps += max(int(missing) + 8, 10)
     raise PrecisionError(f"could not certify {digits} digits of the surgery value (ball radius too large)")
 
 
