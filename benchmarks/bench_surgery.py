@@ -99,6 +99,7 @@ def main(quick: bool = False) -> None:
     print()
     head = (f"{'case':46s} {'weights':>7s} {'|P/KQ|':>7s} {'S new/old':>9s} {'estimate s':>10s}"
             f" {'in-process s':>12s} {'CLI s':>8s}  value")
+    print(f"CLI start-up alone (knotobs space S^3, no level): {_cli(['space', 'S^3'])} s")
     print(head)
     print("-" * len(head))
     for label, space, N, k, colour, cli in CASES:

@@ -191,16 +191,16 @@ def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits) -> 
         if space.replace(" ", "").upper() not in ("S^3", "S3"):
             raise KnotobsError("U(N) torus knots at finite level are computed in S^3; in other spaces"
                                " colour a fiber (knot 'fiber' or --fiber i)")
-        return unitary_level_loop(knot, level, N, rep, framing=framing, digits=digits)
+        return unitary_level_loop(knot, N, level, rep, framing=framing, digits=digits)
     fr = "fiber" if framing in (None, "fiber") else framing
     if fr not in ("fiber", "zero"):
         raise KnotobsError("a U(N) fiber loop takes framing 'fiber' or 'zero'")
     if knot is None:
         if fiber is None:
             raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")
-        return unitary_fiber_loop(space, level, N, exceptional={fiber: as_partition(one)}, framing=fr,
+        return unitary_fiber_loop(space, N, level, exceptional={fiber: as_partition(one)}, framing=fr,
                                   digits=digits)
-    return unitary_fiber_loop(space, level, N, regular=[as_partition(one)], framing=fr, digits=digits)
+    return unitary_fiber_loop(space, N, level, regular=[as_partition(one)], framing=fr, digits=digits)
 
 
 def _is_integer_framing(framing) -> bool:

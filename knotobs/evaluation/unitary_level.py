@@ -29,7 +29,7 @@ there the abelian factor is a Gauss sum over torsion and the quotient matters.
 
 Examples
 --------
->>> v = unitary_level_loop("T(2,4)", 3, 3, (1,))
+>>> v = unitary_level_loop("T(2,4)", "U(3)", 3, (1,))
 >>> v.details["U(1) level"], v.details["polynomial_check"] < 1e-25
 (18, True)
 """
@@ -100,7 +100,17 @@ def _profile(v: FiniteLevelValue, N: int, level: int, turns: Fraction, extra: di
                                            " Naculich-Schnitzer 2007)"), details=details)
 
 
-def unitary_level_loop(knot: str, level: int, N: int, rep=(1,), framing=None,
+def _rank(group) -> int:
+    """``N`` from ``"U(N)"``, ``U(N)`` as a Group, or the integer ``N``."""
+    if isinstance(group, int) and not isinstance(group, bool):
+        return group
+    g = parse_group(group)
+    if g.kind != "U":
+        raise KnotobsError(f"group {group!r} is not U(N): this function computes U(N) at finite level")
+    return g.N
+
+
+def unitary_level_loop(knot: str, group="U(2)", level: int = 1, rep=(1,), framing=None,
                        digits: int = 30) -> FiniteLevelValue:
     """U(N)_k Wilson loop of a torus knot or link ``T(p,q)`` in S^3, normalised by ``Z(S^3)``.
 
@@ -108,10 +118,10 @@ def unitary_level_loop(knot: str, level: int, N: int, rep=(1,), framing=None,
     ----------
     knot : str
         ``T(p,q)``.
+    group : str or int
+        ``"U(N)"`` (or ``N``).
     level : int
         ``k >= 1``; ``K = k + N``, ``q = exp(2 pi i/K)``.
-    N : int
-        ``U(N)``.
     rep : partition or one partition per component
         At most ``N`` rows; the SU(N) part must be integrable (``lam_1 - lam_N <= k``).
     framing : None, ``"zero"``, ``"fiber"`` or int
@@ -128,6 +138,7 @@ def unitary_level_loop(knot: str, level: int, N: int, rep=(1,), framing=None,
     ----------
     Mariño, Commun. Math. Phys. 253 (2005); Rosso & Jones (1993); CONVENTIONS §2, §3, §11.
     """
+    N = _rank(group)
     k = parse_knot(knot)
     cols = colours_for(k, rep)
     for lam in cols:
@@ -162,7 +173,7 @@ def unitary_level_loop(knot: str, level: int, N: int, rep=(1,), framing=None,
     return out
 
 
-def unitary_fiber_loop(space, level: int, N: int, regular=(), exceptional=None,
+def unitary_fiber_loop(space, group="U(2)", level: int = 1, regular=(), exceptional=None,
                        framing: str = "fiber", digits: int = 30) -> FiniteLevelValue:
     """U(N)_k Wilson loops along fibers of a Seifert integral homology sphere (or S^3), normalised.
 
@@ -177,10 +188,11 @@ def unitary_fiber_loop(space, level: int, N: int, regular=(), exceptional=None,
 
     Examples
     --------
-    >>> w = unitary_fiber_loop("Sigma(2,3,5)", 2, 2, regular=[(1,)])
+    >>> w = unitary_fiber_loop("Sigma(2,3,5)", "U(2)", 2, regular=[(1,)])
     >>> w.details["U(1) level"], w.details["linking"]
     (8, [[Fraction(30, 1)]])
     """
+    N = _rank(group)
     M = parse_space(space) if isinstance(space, str) else space
     b, fibers = seifert_data(M)
     e0, pq = seifert_to_surgery(b, fibers)
