@@ -49,7 +49,8 @@ from knotobs.guard import require, seconds_for
 from knotobs.numerics import working_precision
 from knotobs.polynomials.cyclotomic import CyclotomicField, acb_to_mpc, root_of_unity
 
-__all__ = ["GluingPlan", "plan_gluing", "evaluate_gluing", "surgery_cost", "EXACT_COST_LIMIT"]
+__all__ = ["GluingPlan", "plan_gluing", "evaluate_gluing", "surgery_cost", "surgery_route_cost",
+           "EXACT_COST_LIMIT"]
 
 #: Exact cyclotomic arithmetic is chosen automatically below this cost
 #: (weights^2 x S applications x field degree).
@@ -135,6 +136,42 @@ def surgery_cost(N: int, k: int, fibers: Sequence[tuple[int, int]] = (), genus: 
     n = math.comb(k + N - 1, N - 1)
     seconds, mb = _cost(N, k, n, plan, colours, exact)
     return seconds + seconds_for(n * 8, "python"), mb
+
+
+def surgery_route_cost(space, group="SU(2)", level: int = 1, colours: int = 0,
+                       exact: bool | None = None) -> tuple[float, float]:
+    """:func:`surgery_cost` for a space given as the rest of knotobs gives it.
+
+    Parameters
+    ----------
+    space : SeifertManifold-like (``.b``, ``.fibers``, optional ``.genus``), ``(b, fibers)``,
+        ``(g, b, fibers)`` or a string such as ``"Sigma(2,3,5)"`` / ``"M(1; -1; (2,1), (3,1))"``.
+    group : str or int
+        ``"SU(N)"``.
+    level : int
+    colours, exact
+        As in :func:`surgery_cost`.
+
+    Returns
+    -------
+    (seconds, memory_mb) : tuple of float
+
+    Examples
+    --------
+    >>> s, mb = surgery_route_cost("L(7,1)", "SU(3)", 50)
+    >>> s < 1.0
+    True
+    """
+    from knotobs.evaluation.modular import parse_group
+    from knotobs.evaluation.surgery import _plain, seifert_data, seifert_genus
+
+    if isinstance(space, str):
+        from knotobs.fibrations.seifert import parse_space
+
+        space = parse_space(space)
+    genus = seifert_genus(space)
+    b, fibers = seifert_data(_plain(space))
+    return surgery_cost(parse_group(group), level, fibers, genus, b, colours, exact)
 
 
 def _phi(m: int) -> int:

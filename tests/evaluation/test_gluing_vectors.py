@@ -260,3 +260,12 @@ def test_genus_surgery_equals_localisation_exactly(name, N, k):
     a = partition_function(M, f"SU({N})", k, exact=True)
     b = localisation_partition_function(M, f"SU({N})", k, exact=True)
     assert a.exact == b.exact
+
+
+def test_route_cost_takes_spaces_as_everywhere():
+    from knotobs.evaluation.gluing import surgery_route_cost
+
+    a = surgery_route_cost("Sigma(2,3,5)", "SU(3)", 40)
+    b = surgery_cost(3, 40, [(2, 1), (3, 1), (5, 1)], 0, -1)
+    assert a == b
+    assert surgery_route_cost("M(2; 0)", "SU(2)", 5) == surgery_cost(2, 5, [], 2, 0)
