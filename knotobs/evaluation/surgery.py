@@ -653,7 +653,9 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
     regular : list of partitions
         Colours of parallel regular fibers.
     exceptional : dict ``{fiber_index: partition}``
-        ``fiber_index`` counts the fibers ``(a_i, b_i)`` from 0.
+        ``fiber_index`` counts the fibers ``(a_i, b_i)`` from 0.  The core is oriented so that
+        a nearby regular fiber is homologous to ``a_i`` times it (CONVENTIONS §7), whatever the
+        sign of ``b_i``.
     normalized : bool
         ``True``: ``Z(M; L)/Z(M)`` (in S^3 the unknot gives ``dim_q``);
         ``False``: ``Z(M; L)`` (in S^3 the unknot gives ``S_{0 lam}``).
@@ -683,7 +685,13 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
                 if fibers else f"fiber index {j!r} does not exist: the space has no exceptional fibers"
             )
     reg_idx = [md.weight_index(check_integrable(lam, md.N, md.k)) for lam in regular]
+    # The core of fiber j is oriented so that a nearby regular fiber is homologous to a_j times
+    # it (CONVENTIONS §7).  The meridian of the last vertex of the chain of a_j/b_j carries that
+    # orientation when b_j > 0 and the opposite one when b_j < 0 (found by comparing
+    # presentations of the same fibration, e.g. M(0; 0; (2,1), (3,-1)) = M(0; -1; (2,1), (3,2))):
+    # there the colour is replaced by its dual.
     exc_idx = {j: md.weight_index(check_integrable(lam, md.N, md.k)) for j, lam in exceptional.items()}
+    exc_idx = {j: (md.index[md.dual(md.weights[i])] if fibers[j][1] < 0 else i) for j, i in exc_idx.items()}
     e0, pq = seifert_to_surgery(b, fibers)
     pres = SurgeryPresentation.from_coefficients(e0, pq)
 

@@ -64,6 +64,31 @@ def test_shortest_continued_fraction_is_a_continued_fraction_and_shortest(p, q):
                 pass
 
 
+def test_nearest_integer_expansion_is_as_short_as_any_floor_or_ceiling_choice():
+    # exhaustive search over floor/ceiling quotients (every expansion whose remainders stay
+    # below the denominator) for all p/q with |p| <= 60, 1 <= q <= 60
+    from functools import lru_cache
+
+    @lru_cache(maxsize=None)
+    def best(p, q):
+        if p % q == 0:
+            return 1
+        out = None
+        for n in (p // q, p // q + 1):
+            r = n * q - p
+            nq, nr = (q, r) if r > 0 else (-q, -r)
+            cand = 1 + best(nq, nr)
+            out = cand if out is None else min(out, cand)
+        return out
+
+    for p in range(-60, 61):
+        for q in range(1, 61):
+            if math.gcd(p, q) == 1:
+                cf = shortest_continued_fraction(p, q)
+                assert _cf_value(cf) == Fraction(p, q)
+                assert len(cf) == best(p, q), (p, q, cf)
+
+
 def test_shortest_word_reproduces_every_small_matrix():
     for a, b, c, d in itertools.product(range(-6, 7), repeat=4):
         if a * d - b * c != 1:
@@ -269,3 +294,21 @@ def test_route_cost_takes_spaces_as_everywhere():
     b = surgery_cost(3, 40, [(2, 1), (3, 1), (5, 1)], 0, -1)
     assert a == b
     assert surgery_route_cost("M(2; 0)", "SU(2)", 5) == surgery_cost(2, 5, [], 2, 0)
+
+
+@pytest.mark.parametrize("N,k,lam", [(3, 3, (1,)), (3, 3, (2,)), (4, 2, (1,)), (4, 2, (2, 1))])
+def test_exceptional_core_orientation_does_not_depend_on_the_presentation(N, k, lam):
+    # (b, b_i) -> (b - 1, b_i + a_i) and the sign of b_i do not change the fibration or the
+    # orientation of the cores (H. Seifert, Acta Math. 60 (1933); convention "regular fiber ~
+    # a_i c_i", CONVENTIONS §7): zero-framed values of the same link must agree, also for
+    # colours that are not self-dual
+    from knotobs.evaluation.surgery import fiber_wilson_loop
+
+    args = dict(normalized=False, digits=20, framing="zero")
+    for presentations in ([(0, [(2, 1), (3, -1)]), (-1, [(2, 1), (3, 2)]), (1, [(2, -1), (3, -1)])],
+                          [(-1, [(2, 1), (3, 1), (5, 1)]), (0, [(2, -1), (3, 1), (5, 1)]),
+                           (2, [(2, -1), (3, -2), (5, -4)])]):
+        for j in range(len(presentations[0][1])):
+            vals = [fiber_wilson_loop(sp, k, f"SU({N})", regular=[(1,)], exceptional={j: lam}, **args).numeric
+                    for sp in presentations]
+            assert all(abs(v - vals[0]) < 1e-15 for v in vals[1:]), (presentations[0], j, vals)
