@@ -44,14 +44,14 @@ def fibers(
 @handle_errors
 def space(
     space_: Optional[str] = typer.Argument(
-        None, metavar="SPACE", help="S^3, L(p,q), Sigma(a1,a2,a3) or M(0; b; (a1,b1), ...)."
+        None, metavar="SPACE", help="S^3, L(p,q), Sigma(a1,a2,a3) or M(g; b; (a1,b1), ...) (base genus g >= 0)."
     ),
     surgery: Optional[str] = typer.Option(None, "--surgery", help="A knot T(p,q) in S^3 to do surgery on."),
     slope: Optional[str] = typer.Option(None, "--slope", help="Surgery slope: integer or fraction like 5/2."),
     group: str = typer.Option("SU(2)", "--group", "-g", help="With --level: SU(N)."),
     level: Optional[int] = typer.Option(None, "--level", "-k", help="Print the partition function Z_k."),
     digits: int = typer.Option(30, "--digits", help="With --level: correct digits of the numeric value."),
-    route: str = typer.Option("auto", "--route", help="With --level: auto, surgery, gauss-sum (SU(2)) or both."),
+    route: str = typer.Option("auto", "--route", help="With --level: auto, surgery, gauss-sum (SU(2)), localisation or both (two routes, agreement printed)."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Seifert data of a manifold (normal form, e, |H_1|, name), or of r-surgery on a torus knot;

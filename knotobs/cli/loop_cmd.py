@@ -42,7 +42,7 @@ def loop(
     rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1]; links: [1];[2] per component."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
     normalized: bool = typer.Option(False, "--normalized", help="Divide by the unknot (default: unknot = dim_q)."),
-    route: str = typer.Option("rosso-jones", "--route", help="rosso-jones, weight-sum or both (checks agreement)."),
+    route: Optional[str] = typer.Option(None, "--route", help="Polynomial: rosso-jones (default), weight-sum or both. With --level: auto (default), surgery, localisation or both."),
     level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N) only): exact cyclotomic + numeric."),
     in_: str = typer.Option("S^3", "--in", help="With --level: S^3, L(p,q), Sigma(a,b,c) or M(0; b; ...)."),
     fiber: Optional[int] = typer.Option(None, "--fiber", help="With --level and no KNOT: colour the core fiber with this index (from 0)."),
@@ -56,11 +56,14 @@ def loop(
             raise ParseError("give a knot, e.g. knotobs loop 'T(2,3)' (or --level k --in SPACE --fiber i)")
         if in_ != "S^3" or fiber is not None:
             raise ParseError("--in and --fiber need --level k (polynomials in q are computed in S^3)")
-        res = wilson_loop(knot, group, _reps(rep), _framing(framing), normalized, route)
+        res = wilson_loop(knot, group, _reps(rep), _framing(framing), normalized, route or "rosso-jones")
         emit(res.to_json(), render_polynomial(res), as_json)
         return
     fr = _framing(framing) if framing is not None else None
-    val = level_loop(knot, level, group, _reps(rep), in_, fiber, fr, not raw, digits)
+    if route in ("rosso-jones", "weight-sum"):
+        raise ParseError(f"--route {route} names a polynomial route; with --level use auto, surgery,"
+                         " localisation or both")
+    val = level_loop(knot, level, group, _reps(rep), in_, fiber, fr, not raw, digits, route or "auto")
     what = knot if knot is not None else f"core fiber {fiber} of {in_}"
     inputs = {"knot": knot, "space": in_, "fiber": fiber, "group": group, "rep": rep, "level": level,
               "framing": framing, "digits": digits, "raw": raw}

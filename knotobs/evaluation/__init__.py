@@ -17,7 +17,7 @@ from knotobs.evaluation.rosso_jones import rosso_jones, rosso_jones_homfly
 from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.evaluation.level_loops import level_loop, level_partition_function
 from knotobs.evaluation.modular import ModularData
-from knotobs.evaluation.surgery import fiber_wilson_loop, partition_function
+from knotobs.evaluation.seifert_routes import fiber_wilson_loop, partition_function
 from knotobs.evaluation.weight_sum import weight_sum
 
 __all__ = [

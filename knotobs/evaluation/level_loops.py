@@ -21,7 +21,7 @@ from knotobs.evaluation.families import RouteMismatchError
 from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.evaluation.framing import resolve_framing
 from knotobs.evaluation.rosso_jones import colours_for, rosso_jones
-from knotobs.evaluation.surgery import fiber_wilson_loop, partition_function
+from knotobs.evaluation.seifert_routes import fiber_wilson_loop, partition_function
 from knotobs.fibrations.refibration import fibration_of
 from knotobs.fibrations.seifert import parse_space
 from knotobs.fibrations.surgery import space_report
@@ -57,7 +57,7 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
 
 def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1,), space: str = "S^3",
                fiber: Optional[int] = None, framing=None, normalized: bool = True,
-               digits: int = 30) -> FiniteLevelValue:
+               digits: int = 30, route: str = "auto") -> FiniteLevelValue:
     """Wilson loop at level ``k`` of a torus knot/link in S^3 or a lens space, or of a fiber.
 
     Parameters
@@ -81,6 +81,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         An integer is the framing relative to the zero framing (S^3 only).
     normalized : bool
         Divide by ``Z(M)`` (default; in S^3 the unknot gives ``dim_q``).
+    route : str
+        ``auto``, ``surgery``, ``localisation`` or ``both`` (see
+        :func:`knotobs.evaluation.seifert_routes.fiber_wilson_loop`).
 
     Returns
     -------
@@ -100,6 +103,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     """
     g = parse_group(group)
     if g.kind == "U":
+        if route != "auto":
+            raise KnotobsError(f"route {route!r} does not apply to U(N) at finite level: it is the SU(N)"
+                               " value of the automatic route times the U(1) factor (use --route auto)")
         return _unitary(knot, level, g.N, rep, space, fiber, framing, normalized, digits)
     if g.kind != "SU":
         raise KnotobsError(f"finite-level values are computed for SU(N) and U(N); got {g}")
@@ -113,12 +119,12 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         if framing in (None, "zero"):
             try:
                 return fiber_wilson_loop(M, level, str(g), exceptional={fiber: lam}, normalized=normalized,
-                                         digits=digits, framing="zero")
+                                         digits=digits, framing="zero", route=route)
             except InexactDivisionError:
                 if framing == "zero":
                     raise
         return fiber_wilson_loop(M, level, str(g), exceptional={fiber: lam}, normalized=normalized,
-                                 digits=digits, framing="fiber")
+                                 digits=digits, framing="fiber", route=route)
     if str(knot).strip().lower() in ("fiber", "fibre"):
         # a regular fiber of any Seifert manifold (a single component)
         F = fibration_of("fiber", space)
@@ -143,9 +149,12 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
             " framing: use the fiber framing"
         )
     in_s3 = k is not None and space.replace(" ", "").upper() in ("S^3", "S3")
+    if framing is None and mode == "zero" and F.homology_class is None \
+            and not F.manifold.is_rational_homology_sphere:
+        mode = "fiber"          # H_1 infinite (e = 0 or base genus >= 1): no zero framing to default to
     try:
         v = fiber_wilson_loop(F.manifold, level, str(g), regular=list(cols), normalized=normalized,
-                              digits=digits, framing=mode)
+                              digits=digits, framing=mode, route=route)
     except SizeLimitError:
         if not (in_s3 and normalized):
             raise

@@ -10,9 +10,9 @@ has the closed form
 
 ``lam^ = lam + rho``, ``r = N - 1``, ``|Delta+| = N(N-1)/2``, ``dim G = N^2 - 1``, ``Q`` the root
 lattice, ``Phi`` Rademacher's function.  For SU(2) this is L. Jeffrey's formula (Commun.
-Math. Phys. 147 (1992) 563-604, eq. (2.14) ff.); for general simple groups it is the
-theta-function (Weil representation) form of S. K. Hansen & T. Takata (arXiv math/0209403,
-Thm. 4.2 there) and L. Rozansky (Commun. Math. Phys. 178 (1996) 27-60).  knotobs checks the
+Math. Phys. 147 (1992) 563-604); for general simple groups it is the
+theta-function (Weil representation) form of S. K. Hansen & T. Takata (arXiv math/0209403)
+and L. Rozansky (Commun. Math. Phys. 178 (1996) 27-60).  knotobs checks the
 phase and normalisation against ``S``/``T`` words in the tests (N = 2..4).
 
 Here ``V = S U`` for the fiber ``(a, b)`` (:func:`knotobs.localisation.phase.fiber_matrix`):
@@ -109,7 +109,14 @@ class FiberFactor:
         self.phi = rademacher_phi(self.V)
         self.modulus = 2 * N * a * K
         self.mu_hat = shifted(self.mu, N)
-        self.table = gauss_table(a, self.y, K, N)
+        self._table = None
+
+    @property
+    def table(self) -> np.ndarray:
+        """The Gauss table of :func:`gauss_table` (built on first use, after the size guard)."""
+        if self._table is None:
+            self._table = gauss_table(self.a, self.y, self.K, self.N)
+        return self._table
 
     def exponents(self, lam_hat: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
         """``(E, zidx, eps)``: ``E[l, w]`` mod ``M``, the table row ``zidx[l, w]`` and the signs."""

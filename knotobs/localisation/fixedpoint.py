@@ -46,20 +46,24 @@ def _table(M: int, S: int) -> tuple[list[np.ndarray], list[np.ndarray]]:
     with working_precision(int((S + 40) / 3.32) + 5):
         if M <= SMALL:
             vals = [fixed(j, M) for j in range(M)]
+            re = np.array([c for c, _ in vals], dtype=object)
+            im = np.array([s for _, s in vals], dtype=object)
         else:
             B = math.isqrt(M) + 1
             baby = [fixed(j, M) for j in range(B)]
             giant = [fixed(q * B % M, M) for q in range(M // B + 1)]
-            vals = []
-            for q in range(M // B + 1):
-                gc, gs = giant[q]
-                for (bc, bs) in baby[: min(B, M - q * B)]:
-                    vals.append(((gc * bc - gs * bs) >> S, (gc * bs + gs * bc) >> S))
+            bc = np.array([c for c, _ in baby], dtype=object)
+            bs = np.array([s for _, s in baby], dtype=object)
+            gc = np.array([c for c, _ in giant], dtype=object)
+            gs = np.array([s for _, s in giant], dtype=object)
+            # zeta^(qB + r) = zeta^(qB) zeta^r in fixed point (object arrays: exact Python integers)
+            re = ((np.multiply.outer(gc, bc) - np.multiply.outer(gs, bs)) >> S).ravel()[:M]
+            im = ((np.multiply.outer(gc, bs) + np.multiply.outer(gs, bc)) >> S).ravel()[:M]
     # offset 2^(S+1) keeps every entry non-negative (products may overshoot +-1 by a few units)
-    re = [c + 2 * one for c, _ in vals]
-    im = [s + 2 * one for _, s in vals]
-    re_l = [np.array([(c >> (LIMB * t)) & _MASK for c in re], dtype=np.int64) for t in range(L)]
-    im_l = [np.array([(c >> (LIMB * t)) & _MASK for c in im], dtype=np.int64) for t in range(L)]
+    re = re + 2 * one
+    im = im + 2 * one
+    re_l = [((re >> (LIMB * t)) & _MASK).astype(np.int64) for t in range(L)]
+    im_l = [((im >> (LIMB * t)) & _MASK).astype(np.int64) for t in range(L)]
     return re_l, im_l
 
 

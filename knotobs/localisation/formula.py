@@ -20,8 +20,8 @@ them), with ``F_i`` the Gauss sum of :class:`knotobs.localisation.fiber.FiberFac
 
 It is the gluing formula ``Z = phase sum_lam S_{0 lam}^(2-2g-n) prod_i rho(S U_i)_{lam, mu_i}``
 (CONVENTIONS §7) with each ``rho(S U_i)`` replaced by its closed Gauss sum, and the phase of
-the canonical 2-framing ``exp(2 pi i c (Sum Phi - 3 sign e)/24)`` (Jeffrey 1992, §3-4 for
-SU(2); Rozansky 1996; Hansen, Algebr. Geom. Topol. 1 (2001) Thm. 8.4); the factors
+the canonical 2-framing ``exp(2 pi i c (Sum Phi - 3 sign e)/24)`` (Jeffrey 1992 for
+SU(2); Rozansky 1996; Hansen, Algebr. Geom. Topol. 1 (2001)); the factors
 ``exp(-2 pi i dim G Phi/24)`` of the Gauss sums combine with it into the two exponentials
 above (``c - dim G = -2 |rho|^2 / K``).  Nothing here uses the S and T matrices.
 """
@@ -232,9 +232,12 @@ class LocalisationSum:
 
 
 def exact_cost(s: LocalisationSum) -> float:
-    """Rough count of coefficient operations of :meth:`LocalisationSum.exact`."""
+    """Coefficient operations of :meth:`LocalisationSum.exact`: per weight, one group-ring
+    vector of length ``L`` per fiber and ``n' + |Delta+| + 1`` products in ``Q(zeta_L)``
+    (degree ``phi(L) <= L``).  About ``2.5e-7`` s each on the reference machine.
+
+    >>> exact_cost(LocalisationSum(0, -1, ((2, 1), (3, 1), (5, 1)), 2, 3)) > 0
+    True
+    """
     L = s.field_conductor()
-    deg = L  # the group-ring vectors have length L; the field degree is phi(L) <= L
-    per = s.npos + s.n_general + 1
-    W = math.factorial(s.N)
-    return float(s.size) * (per * deg + s.n_general * W * 2 * max((f.a for f in s.general), default=1))
+    return float(s.size) * L * (2 * s.n_general + s.npos + 1)

@@ -39,8 +39,12 @@ __all__ = [
     "EXACT_COST_LIMIT",
 ]
 
-#: Above this estimated operation count the exact cyclotomic value is skipped by default.
-EXACT_COST_LIMIT = 2.0e7
+#: Above this estimated operation count (:func:`~knotobs.localisation.formula.exact_cost`,
+#: about 0.25 s) the exact cyclotomic value is skipped by default (``exact=True`` forces it).
+EXACT_COST_LIMIT = 1.0e6
+
+#: Seconds per operation of :func:`~knotobs.localisation.formula.exact_cost`.
+EXACT_SECONDS_PER_OP = 2.5e-7
 
 
 def as_manifold(space) -> SeifertManifold:
@@ -96,7 +100,7 @@ def localisation_seconds(s: LocalisationSum, exact: bool = False) -> tuple[float
     sec = (seconds_for(terms * 12 + tables * 3, "numpy") + seconds_for(per_weight, "ball")
            + seconds_for(roots * 4, "ball") / 8)
     if exact:
-        sec += seconds_for(exact_cost(s), "flint") * 4
+        sec += exact_cost(s) * EXACT_SECONDS_PER_OP
     mb = (terms * 8 * 6 + tables * 8 * 3 + s.size * s.N * 8 * 4) / 1e6
     return sec, mb
 
@@ -260,7 +264,7 @@ def localisation_fiber_wilson_loop(space, level: int, group="SU(2)", regular: Se
         with working_precision(digits):
             numeric = +numeric
     fr_text = ("fibration framing (regular fibers: a nearby fiber; cores: the gluing-matrix curve"
-               f" -y mu + x h); self-linking in M: {[str(f) for f in framings]}") if framing == "fiber" \
+               f" -y mu + x h); self-linking in M: {[_fr(f) for f in framings]}") if framing == "fiber" \
         else "zero (Seifert) framing"
     return FiniteLevelValue(
         exact=value, numeric=numeric, digits=digits, framing=fr_text,
@@ -277,3 +281,8 @@ def _casimir(lam, N: int) -> Fraction:
     n = sum(lam)
     kap = sum(x * (x - 2 * i - 1) for i, x in enumerate(lam))
     return Fraction(kap + N * n, 2) - Fraction(n * n, 2 * N)
+
+
+def _fr(f) -> str:
+    """A self-linking number as text (``undefined`` when ``H_1`` is infinite)."""
+    return "undefined (H_1 infinite)" if f is None else str(f)

@@ -16,7 +16,8 @@ def finite_json(value: FiniteLevelValue, inputs: dict[str, Any], quantity: str) 
     out: dict[str, Any] = {"quantity": quantity}
     out.update(value.to_json())
     out["inputs"] = inputs
-    checks = {k: v for k, v in value.details.items() if k in ("polynomial_check", "route", "framings")}
+    checks = {k: v for k, v in value.details.items() if k in ("polynomial_check", "route", "framings", "routes",
+                                                                    "agreement", "route_choice")}
     if checks:
         def plain(v):
             if isinstance(v, (int, float, str)):
@@ -44,6 +45,8 @@ def finite_text(value: FiniteLevelValue, title: str) -> str:
     lines.append(f"normalisation: {value.normalisation}")
     if "route" in value.details:
         lines.append(f"route:         {value.details['route']}")
+    if "agreement" in value.details:
+        lines.append(f"agreement:     {' and '.join(value.details.get('routes', []))} agree {value.details['agreement']}")
     if "polynomial_check" in value.details:
         lines.append(f"check:         exact polynomial at q = exp(2 pi i/K) agrees to {value.details['polynomial_check']:.1e}")
     return "\n".join(lines)

@@ -302,3 +302,50 @@ def test_oversized_is_refused_before_work():
             localisation_partition_function("Sigma(2,3,5)", "SU(6)", 60)
     msg = str(exc.value)
     assert "localisation route" in msg and "weights" in msg and "limit of 1 s" in msg
+
+
+# ---------------------------------------------------------------------------
+# property test: random Seifert manifolds, the two routes agree exactly
+
+
+def _random_cases(seed, count):
+    import random
+    rnd = random.Random(seed)
+    out = []
+    while len(out) < count:
+        N = rnd.choice([2, 3, 4])
+        k = rnd.randint(1, {2: 10, 3: 5, 4: 3}[N])
+        n = rnd.randint(3, 5)
+        fib = []
+        for _ in range(n):
+            a = rnd.randint(2, 6)
+            b = rnd.choice([x for x in range(-a, 2 * a) if math.gcd(a, x) == 1])
+            fib.append((a, b))
+        b = rnd.randint(-2, 1)
+        colour = rnd.choice([(), (1,), (2,), (1, 1)][: 2 + (N > 2) + (k > 1)])
+        if colour and (len(colour) >= N or colour[0] > k):
+            colour = ()
+        out.append((N, k, b, fib, colour))
+    return out
+
+
+def _check_random(N, k, b, fib, colour):
+    z = localisation_partition_function((b, fib), f"SU({N})", k, exact=True)
+    s = partition_function((b, fib), f"SU({N})", k, route="surgery", exact=True)
+    assert z.exact == s.exact, (N, k, b, fib)
+    if colour:
+        from knotobs.evaluation.seifert_routes import fiber_wilson_loop as dispatch
+        w = dispatch((b, fib), k, f"SU({N})", exceptional={len(fib) - 1: colour}, normalized=False,
+                     route="both", digits=20)
+        assert w.details["agreement"].startswith(("exact", "to 20")), (N, k, b, fib, colour)
+
+
+@pytest.mark.parametrize("case", _random_cases(7, 4))
+def test_random_manifolds_agree(case):
+    _check_random(*case)
+
+
+@pytest.mark.slow
+@pytest.mark.parametrize("case", _random_cases(11, 60))
+def test_random_manifolds_agree_sweep(case):
+    _check_random(*case)
