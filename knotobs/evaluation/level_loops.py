@@ -135,8 +135,13 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
             raise KnotobsError(f"SO(3) at level k has one route (the plumbing sum); --route {route} does not apply")
         return so3_level_loop(knot, level, rep, space, fiber, framing, normalized, digits)
     g = parse_group(group)
+    if g.kind == "U":
+        if route != "auto":
+            raise KnotobsError(f"route {route!r} does not apply to U(N) at finite level: it is the SU(N)"
+                               " value of the automatic route times the U(1) factor (use --route auto)")
+        return _unitary(knot, level, g.N, rep, space, fiber, framing, normalized, digits)
     if g.kind != "SU":
-        raise KnotobsError(f"finite-level values are computed for SU(N) and for SO(3) at odd level; got {g}")
+        raise KnotobsError(f"finite-level values are computed for SU(N), U(N) and for SO(3) at odd level; got {g}")
     if knot is None:
         if fiber is None:
             raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")
@@ -215,6 +220,29 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
             )
     return FiniteLevelValue(exact=exact, numeric=numeric, digits=v.digits, framing=framing_text,
                             orientation=v.orientation, normalisation=v.normalisation, details=details)
+
+
+def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits) -> FiniteLevelValue:
+    """U(N)_k = (SU(N)_k x U(1)_{N(k+N)})/Z_N (:mod:`knotobs.evaluation.unitary_level`)."""
+    from knotobs.evaluation.unitary_level import unitary_fiber_loop, unitary_level_loop
+
+    if not normalized:
+        raise KnotobsError("U(N) at finite level is computed normalised by Z(M): drop --raw")
+    one = (rep if not rep or isinstance(rep[0], int) or isinstance(rep, str) else rep[0])
+    if knot is not None and str(knot).strip().lower() not in ("fiber", "fibre"):
+        if space.replace(" ", "").upper() not in ("S^3", "S3"):
+            raise KnotobsError("U(N) torus knots at finite level are computed in S^3; in other spaces"
+                               " colour a fiber (knot 'fiber' or --fiber i)")
+        return unitary_level_loop(knot, N, level, rep, framing=framing, digits=digits)
+    fr = "fiber" if framing in (None, "fiber") else framing
+    if fr not in ("fiber", "zero"):
+        raise KnotobsError("a U(N) fiber loop takes framing 'fiber' or 'zero'")
+    if knot is None:
+        if fiber is None:
+            raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")
+        return unitary_fiber_loop(space, N, level, exceptional={fiber: as_partition(one)}, framing=fr,
+                                  digits=digits)
+    return unitary_fiber_loop(space, N, level, regular=[as_partition(one)], framing=fr, digits=digits)
 
 
 def _is_integer_framing(framing) -> bool:

@@ -37,8 +37,8 @@ from knotobs.errors import (
     InvalidRepresentationError,
     NotIntegrableError,
     ParseError,
-    SizeLimitError,
 )
+from knotobs.guard import require, seconds_for
 from knotobs.polynomials.cyclotomic import (
     Cyclotomic,
     CyclotomicField,
@@ -56,11 +56,8 @@ __all__ = [
     "central_charge",
     "kac_walton_reduce",
     "weights_of_irrep",
-    "MAX_ALCOVE_SIZE",
+    "alcove_size",
 ]
-
-#: Largest number of integrable weights handled (dense S matrices are n x n).
-MAX_ALCOVE_SIZE = 5000
 
 _GROUP_RE = re.compile(r"^\s*su\s*\(?\s*(\d+)\s*\)?\s*$", re.IGNORECASE)
 
@@ -120,6 +117,15 @@ def integrable_weights(N: int, k: int) -> tuple[Partition, ...]:
 
     rec([], k, N - 1)
     return tuple(sorted(out, key=lambda p: (sum(p), [-x for x in p])))
+
+
+def alcove_size(N: int, k: int) -> int:
+    """Number of integrable weights of SU(N) at level k, ``binom(k + N - 1, N - 1)`` (common practice).
+
+    >>> alcove_size(3, 40)
+    861
+    """
+    return math.comb(k + N - 1, N - 1)
 
 
 def check_integrable(lam, N: int, k: int) -> Partition:
@@ -273,12 +279,11 @@ class ModularData:
         self.N = parse_group(N)
         self.k = _check_level(k)
         self.K = self.k + self.N
-        size = math.comb(self.k + self.N - 1, self.N - 1)
-        if size > MAX_ALCOVE_SIZE:
-            raise SizeLimitError(
-                f"SU({self.N}) at level {self.k} has {size} integrable weights; at most "
-                f"{MAX_ALCOVE_SIZE} are supported"
-            )
+        size = alcove_size(self.N, self.k)
+        require(f"modular data of SU({self.N}) at level {self.k} ({size} integrable weights)",
+                seconds=seconds_for(size * 12 * self.N, "python"),
+                memory_mb=size * (200 + 16 * self.N) / 1e6,
+                accepted="use a lower level")
         self.weights: tuple[Partition, ...] = integrable_weights(self.N, self.k)
         self.index = {w: i for i, w in enumerate(self.weights)}
         self.central_charge = central_charge(self.N, self.k)
@@ -344,6 +349,11 @@ class ModularData:
         """Exponents ``E[w, i, j]`` (mod NK) and signs ``eps[w]`` with
         ``Stilde_ij = sum_w eps_w zeta_{NK}^{E[w,i,j]}``."""
         N, K = self.N, self.K
+        nperm = math.factorial(N)
+        require(f"dense S matrix of SU({N}) at level {self.k} ({self.size}^2 entries x {nperm} Weyl terms)",
+                seconds=seconds_for(nperm * self.size ** 2 * 3, "numpy"),
+                memory_mb=nperm * self.size ** 2 * 16 / 1e6,
+                accepted="use the surgery route, which applies S as a Fourier transform without forming it")
         x = self._x
         X = x.sum(axis=1)
         perms = list(itertools.permutations(range(N)))

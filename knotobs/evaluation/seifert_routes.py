@@ -69,9 +69,6 @@ LOOP_ROUTES = ("auto", "surgery", "localisation", "both")
 CHEAP_SURGERY = 0.25
 
 #: Largest alcove the surgery route builds (its dense S matrix).
-SURGERY_MAX_WEIGHTS = 5000
-
-
 @dataclasses.dataclass(frozen=True)
 class RouteEstimate:
     """Estimated cost of one route, or why it does not apply."""
@@ -105,24 +102,16 @@ def _group_level(group, level) -> tuple[int, int]:
 
 
 def _surgery_estimate(M, N: int, k: int, lines: int = 0) -> RouteEstimate:
-    from knotobs.evaluation.surgery import seifert_data
+    """The surgery route's own calibrated estimate (:func:`knotobs.evaluation.gluing.surgery_route_cost`)."""
+    from knotobs.evaluation.gluing import surgery_route_cost
 
     try:
-        seifert_data(M)
+        sec, mb = surgery_route_cost(M, f"SU({N})", k, colours=lines)
     except InvalidSeifertDataError as exc:
         return RouteEstimate("surgery", None, None, str(exc))
     n = alcove_size(N, k)
-    size = f"SU({N}) at level {k} has {n} integrable weights (S matrix {n} x {n})"
-    if n > SURGERY_MAX_WEIGHTS:
-        return RouteEstimate("surgery", None, None, f"{size}; the surgery route handles at most"
-                             f" {SURGERY_MAX_WEIGHTS} weights")
-    chain = sum(len(_ncf(a, b)) for a, b in M.fibers) + 2 + lines
-    # dense S built entry by entry (n^2 N! ball terms) and one S-vector product per chain vertex;
-    # calibrated on SU(3) k = 40, Sigma(2,3,5): 16 s (issue #9)
-    ops = n * n * (0.75 * math.factorial(N) + 0.5 * chain)
-    sec = seconds_for(ops, "ball")
-    mb = n * n * 200 / 1e6
-    return RouteEstimate("surgery", sec, mb, size)
+    return RouteEstimate("surgery", sec, mb, f"SU({N}) at level {k}: {n} integrable weights, S applied as a"
+                         " Fourier transform over the weight lattice")
 
 
 def _ncf(p: int, q: int) -> list[int]:
@@ -176,7 +165,7 @@ def route_estimates(space, group="SU(2)", level: int = 1, loop: bool = False,
     """Cost estimates of every route for ``Z_k(M)`` (``loop=True``: the routes of fiber loops).
 
     >>> [e.route for e in route_estimates("Sigma(2,3,5)", "SU(2)", 9998) if e.applicable]
-    ['gauss-sum', 'localisation']
+    ['surgery', 'gauss-sum', 'localisation']
     """
     M = as_manifold(space)
     N, k = _group_level(group, level)

@@ -40,13 +40,11 @@ from fractions import Fraction
 from typing import Iterable, Mapping, Sequence
 
 import mpmath
-from flint import acb, acb_mat, arb, ctx, fmpq
 
 from knotobs.errors import (
     InexactDivisionError,
     InvalidSeifertDataError,
     KnotobsError,
-    SizeLimitError,
 )
 from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.evaluation.modular import ModularData, check_integrable, modular_data, parse_group
@@ -54,7 +52,6 @@ from knotobs.polynomials.cyclotomic import (
     Cyclotomic,
     CyclotomicField,
     CyclotomicSurd,
-    acb_to_mpc_checked,
 )
 from knotobs.representations.partitions import Partition
 
@@ -427,75 +424,8 @@ class _ExactBackend:
         return self.F.zero
 
 
-class _AcbBackend:
-    exact = False
-
-    def __init__(self, md: ModularData, prec: int):
-        self.md = md
-        self.prec = prec
-        N, K = md.N, md.K
-        self.M = math.lcm(2 * N * K, 8 * K)
-        old = ctx.prec
-        ctx.prec = prec
-        try:
-            n = md.size
-            MS = N * K
-            table = [acb(arb(2 * e) / MS).exp_pi_i() for e in range(MS)]
-            E, eps = md._exponent_tensor()
-            entries = [acb(0)] * (n * n)
-            flatE = [E[a].ravel().tolist() for a in range(len(eps))]
-            epsl = eps.tolist()
-            entries = [sum((table[fe[t]] if s > 0 else -table[fe[t]]) for fe, s in zip(flatE, epsl))
-                       for t in range(n * n)]
-            self.St = acb_mat(n, n, entries)
-            self.theta = [acb(arb(2) * fmpq(h.numerator, h.denominator)).exp_pi_i()
-                          for h in md.twist_exponents()]
-        finally:
-            ctx.prec = old
-
-    def _ctx(self):
-        old = ctx.prec
-        ctx.prec = self.prec
-        return old
-
-    def column(self, j):
-        n = self.md.size
-        return [self.St[i, j] for i in range(n)]
-
-    def theta_pow(self, v, c):
-        if c == 0:
-            return v
-        old = self._ctx()
-        try:
-            return [x * t ** c for x, t in zip(v, self.theta)]
-        finally:
-            ctx.prec = old
-
-    def apply_S(self, v):
-        old = self._ctx()
-        try:
-            n = self.md.size
-            w = self.St * acb_mat(n, 1, v)
-            return [w[i, 0] for i in range(n)]
-        finally:
-            ctx.prec = old
-
-    def scalar_power(self, x, e):
-        old = self._ctx()
-        try:
-            return x ** e
-        finally:
-            ctx.prec = old
-
-    def one(self):
-        return acb(1)
-
-    def zero(self):
-        return acb(0)
-
-
 def _core_sum(backend, pres: SurgeryPresentation, exceptional: Mapping[int, int],
-              regular: Sequence[int]):
+              regular: Sequence[int], genus: int = 0):
     """``sum_lam Stilde_{0 lam}^{2-d} theta^{e0} prod_j V_j[lam] prod_r Stilde_{lam, nu_r}``
     and the power of ``s0`` that multiplies it."""
     md = backend.md
@@ -514,65 +444,74 @@ def _core_sum(backend, pres: SurgeryPresentation, exceptional: Mapping[int, int]
         vecs.append(backend.column(nu))
         s0_power += 1
     d = len(vecs)
-    s0_power += 2 - d
+    s0_power += 2 - 2 * genus - d
     row0 = backend.column(0)
     central = backend.theta_pow(row0, pres.e0) if pres.e0 else row0
     total = backend.zero()
-    old = ctx.prec
-    if not backend.exact:
-        ctx.prec = backend.prec
-    try:
-        for lam in range(n):
-            term = backend.scalar_power(row0[lam], 1 - d)     # S_{0lam}^{2-d} = row0 * row0^{1-d}
-            term = term * central[lam]
-            for v in vecs:
-                term = term * v[lam]
-            total = total + term
-    finally:
-        ctx.prec = old
+    for lam in range(n):
+        term = backend.scalar_power(row0[lam], 1 - 2 * genus - d)   # S_{0lam}^{2-2g-d}
+        term = term * central[lam]
+        for v in vecs:
+            term = term * v[lam]
+        total = total + term
     return total, s0_power
 
 
-def _choose_exact(md: ModularData, pres: SurgeryPresentation, exact: bool | None) -> bool:
-    n_s = sum(len(c) for c in pres.chains) + 1
-    cost = md.size ** 2 * n_s * CyclotomicField(math.lcm(2 * md.N * md.K, 8 * md.K)).degree
-    if exact is None:
-        return cost <= 4_000_000
-    if exact and cost > 400_000_000:
-        raise SizeLimitError(
-            f"exact SU({md.N}) level {md.k} computation is too large (cost {cost:.2e}); use exact=False"
-        )
-    return exact
+def _plumbing_exact(md: ModularData, pres: SurgeryPresentation, exceptional: Mapping[int, int],
+                    regular: Sequence[int], genus: int = 0) -> CyclotomicSurd:
+    """The surgery formula in its plumbing form, exactly: one ``S`` per vertex of each chain,
+    ``Theta`` without the ``c/24`` shift and the anomaly ``exp(-i pi c sigma/4)``.
+
+    This is the reference form of CONVENTIONS §9 (Reshetikhin–Turaev; Kirby–Melvin 1991); the
+    route itself evaluates the same number from short SL(2,Z) words
+    (:mod:`knotobs.evaluation.gluing`).  Used by the tests to check the two forms agree exactly.
+    """
+    sigma = signature(pres.linking_matrix())
+    anomaly_exp = -md.central_charge * sigma / 8
+    be = _ExactBackend(md)
+    total, p = _core_sum(be, pres, exceptional, regular, genus)
+    anomaly = be.F.zeta(int(anomaly_exp * be.M)) if (anomaly_exp * be.M).denominator == 1 \
+        else CyclotomicField(anomaly_exp.denominator).zeta(anomaly_exp.numerator)
+    return (md.s0() ** p) * (total * anomaly)
 
 
 def _evaluate(md: ModularData, pres: SurgeryPresentation, exceptional: Mapping[int, int],
-              regular: Sequence[int], digits: int, exact: bool | None):
+              regular: Sequence[int], digits: int, exact: bool | None, genus: int = 0):
     """Exact (CyclotomicSurd or None) and numeric value of the surgery formula."""
-    sigma = signature(pres.linking_matrix())
-    c = md.central_charge
-    anomaly_exp = -c * sigma / 8                    # exp(2 pi i anomaly_exp)
-    s0 = md.s0()
-    if _choose_exact(md, pres, exact):
-        be = _ExactBackend(md)
-        total, p = _core_sum(be, pres, exceptional, regular)
-        anomaly = be.F.zeta(int(anomaly_exp * be.M)) if (anomaly_exp * be.M).denominator == 1 \
-            else CyclotomicField((anomaly_exp).denominator).zeta(anomaly_exp.numerator)
-        value = (s0 ** p) * (total * anomaly)
-        numeric = value.to_mpc(digits)
-        return value, numeric
+    from knotobs.evaluation.gluing import evaluate_gluing
 
-    def compute(prec):
-        be = _AcbBackend(md, prec)
-        total, p = _core_sum(be, pres, exceptional, regular)
-        old = ctx.prec
-        ctx.prec = prec
-        try:
-            an = acb(arb(2) * fmpq(anomaly_exp.numerator, anomaly_exp.denominator)).exp_pi_i()
-            return total * an * s0.to_acb(prec) ** p
-        finally:
-            ctx.prec = old
+    return evaluate_gluing(md, pres, genus, exceptional, regular, digits, exact)
 
-    return None, acb_to_mpc_checked(compute, digits)
+
+def seifert_genus(space) -> int:
+    """Base genus of a SeifertManifold-like object (``.genus`` or ``.g``) or of plain data.
+
+    Plain data: ``(b, fibers)`` has genus 0; ``(g, b, fibers)`` names it.
+
+    >>> seifert_genus((0, [(2, 1)])), seifert_genus((2, 0, []))
+    (0, 2)
+    """
+    g = getattr(space, "genus", None)
+    if g is None:
+        g = getattr(space, "g", None)
+    if g is None and isinstance(space, (tuple, list)) and len(space) == 3:
+        g = space[0]
+    if g is None:
+        return 0
+    if not isinstance(g, int) or isinstance(g, bool) or g < 0:
+        raise InvalidSeifertDataError(f"base genus g = {g!r} is not allowed: use an integer g >= 0")
+    return g
+
+
+def _plain(space):
+    """``(b, fibers)`` of any base genus: plain ``(g, b, fibers)`` data loses its leading genus,
+    a SeifertManifold-like object gives its ``.b`` and ``.fibers`` (its genus is read by
+    :func:`seifert_genus`; :func:`seifert_data` itself refuses genus >= 1 for the genus-0 routes)."""
+    if isinstance(space, (tuple, list)) and len(space) == 3 and not hasattr(space, "fibers"):
+        return space[1], space[2]
+    if hasattr(space, "b") and hasattr(space, "fibers"):
+        return space.b, tuple(space.fibers)
+    return space
 
 
 # ---------------------------------------------------------------------------
@@ -651,9 +590,15 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
     """
     if route not in PARTITION_ROUTES:
         raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(PARTITION_ROUTES)}")
-    b, fibers = seifert_data(space)
+    genus = seifert_genus(space)
+    b, fibers = seifert_data(_plain(space))
     md = _group_level(group, level)
-    if route in ("gauss-sum", "both") or (route == "auto" and md.N == 2 and md.K > AUTO_GAUSS_SUM_K):
+    if genus and route in ("gauss-sum", "both"):
+        raise KnotobsError(
+            f"the Gauss-sum route is implemented for base genus 0; M has genus {genus}: use route='surgery'"
+        )
+    if route in ("gauss-sum", "both") or (route == "auto" and md.N == 2 and md.K > AUTO_GAUSS_SUM_K
+                                          and genus == 0):
         from knotobs.evaluation.gauss_sum import gauss_sum_partition_function
 
         try:
@@ -668,7 +613,7 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
             return gs
     e0, pq = seifert_to_surgery(b, fibers)
     pres = SurgeryPresentation.from_coefficients(e0, pq)
-    value, numeric = _evaluate(md, pres, {}, [], digits, exact)
+    value, numeric = _evaluate(md, pres, {}, [], digits, exact, genus)
     if route == "both":
         with mpmath.workdps(digits + 5):
             if abs(gs.numeric - numeric) > mpmath.mpf(10) ** (3 - digits) * max(1, abs(numeric)):
@@ -678,17 +623,19 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
     return FiniteLevelValue(
         exact=value, numeric=numeric, digits=digits,
         framing="canonical 2-framing (Atiyah)",
-        orientation=_orientation_text(b, fibers),
-        normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1",
+        orientation=_orientation_text(b, fibers, genus),
+        normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1" + (
+            "; base genus g: Z(S^1 x Sigma_g) = Verlinde dimension, phase as for genus 0"
+            " (canonical 2-framing of the plumbing)" if genus else ""),
         details={"route": "surgery" if route != "both" else "surgery = Gauss sum (both checked)",
-                 "group": f"SU({md.N})", "level": md.k, "seifert": (b, fibers)},
+                 "group": f"SU({md.N})", "level": md.k, "seifert": (b, fibers), "genus": genus},
     )
 
 
-def _orientation_text(b, fibers) -> str:
+def _orientation_text(b, fibers, genus: int = 0) -> str:
     e = -(Fraction(b) + sum(Fraction(bb, a) for a, bb in fibers))
     fs = ", ".join(f"({a},{bb})" for a, bb in fibers)
-    return f"M(0; {b}; {fs}) with e = -(b + sum b_i/a_i) = {e} (Neumann-Raymond)"
+    return f"M({genus}; {b}; {fs}) with e = -(b + sum b_i/a_i) = {e} (Neumann-Raymond)"
 
 
 def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
@@ -706,7 +653,9 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
     regular : list of partitions
         Colours of parallel regular fibers.
     exceptional : dict ``{fiber_index: partition}``
-        ``fiber_index`` counts the fibers ``(a_i, b_i)`` from 0.
+        ``fiber_index`` counts the fibers ``(a_i, b_i)`` from 0.  The core is oriented so that
+        a nearby regular fiber is homologous to ``a_i`` times it (CONVENTIONS §7), whatever the
+        sign of ``b_i``.
     normalized : bool
         ``True``: ``Z(M; L)/Z(M)`` (in S^3 the unknot gives ``dim_q``);
         ``False``: ``Z(M; L)`` (in S^3 the unknot gives ``S_{0 lam}``).
@@ -725,7 +674,8 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
     >>> w.details["framings"]
     [Fraction(6, 1)]
     """
-    b, fibers = seifert_data(space)
+    genus = seifert_genus(space)
+    b, fibers = seifert_data(_plain(space))
     md = _group_level(group, level)
     exceptional = dict(exceptional or {})
     for j in exceptional:
@@ -735,7 +685,13 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
                 if fibers else f"fiber index {j!r} does not exist: the space has no exceptional fibers"
             )
     reg_idx = [md.weight_index(check_integrable(lam, md.N, md.k)) for lam in regular]
+    # The core of fiber j is oriented so that a nearby regular fiber is homologous to a_j times
+    # it (CONVENTIONS §7).  The meridian of the last vertex of the chain of a_j/b_j carries that
+    # orientation when b_j > 0 and the opposite one when b_j < 0 (found by comparing
+    # presentations of the same fibration, e.g. M(0; 0; (2,1), (3,-1)) = M(0; -1; (2,1), (3,2))):
+    # there the colour is replaced by its dual.
     exc_idx = {j: md.weight_index(check_integrable(lam, md.N, md.k)) for j, lam in exceptional.items()}
+    exc_idx = {j: (md.index[md.dual(md.weights[i])] if fibers[j][1] < 0 else i) for j, i in exc_idx.items()}
     e0, pq = seifert_to_surgery(b, fibers)
     pres = SurgeryPresentation.from_coefficients(e0, pq)
 
@@ -753,7 +709,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
             framings.append(-Ainv[v][v])
             null_hom.append(all(Ainv[r][v].denominator == 1 for r in range(len(A))))
 
-    val_L, num_L = _evaluate(md, pres, exc_idx, reg_idx, digits + 5, exact)
+    val_L, num_L = _evaluate(md, pres, exc_idx, reg_idx, digits + 5, exact, genus)
     if framing not in ("fiber", "zero"):
         raise KnotobsError(f"framing {framing!r} is not known: use 'fiber' or 'zero'")
     shift = Fraction(0)
@@ -766,7 +722,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
                 )
             shift -= f * md.h(md.weights[lam])
     if normalized:
-        val_0, num_0 = _evaluate(md, pres, {}, [], digits + 5, exact)
+        val_0, num_0 = _evaluate(md, pres, {}, [], digits + 5, exact, genus)
         if abs(num_0) < mpmath.mpf(10) ** (-(digits + 3)):
             raise InexactDivisionError(
                 f"Z(M) vanishes at level {md.k}; the normalised Wilson loop is undefined: ask for Z(M; L)"
@@ -792,7 +748,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
     return FiniteLevelValue(
         exact=value, numeric=numeric, digits=digits,
         framing=fr_text,
-        orientation=_orientation_text(b, fibers),
+        orientation=_orientation_text(b, fibers, genus),
         normalisation=("Z(M; L)/Z(M) (unknot in S^3 = dim_q)" if normalized
                        else "Z(M; L) with Z(S^3) = S_00 (unknot in S^3 = S_0lam)"),
         details={"route": "surgery", "group": f"SU({md.N})", "level": md.k,
