@@ -15,13 +15,26 @@ from knotobs.errors import ParseError
 @handle_errors
 def flat(
     space: str = typer.Argument(..., help="Seifert rational homology sphere, e.g. Sigma(2,3,7), L(5,1), M(0; -1; (2,1), (3,1), (5,1))."),
-    order: int = typer.Option(6, "--order", help="Highest power of (q - 1) in the Ohtsuki series."),
-    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(2), or SU(N) on lens spaces."),
+    order: Optional[int] = typer.Option(None, "--order", help="Highest power of (q - 1) in the Ohtsuki series (SU(2); default 6)."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(2); SL(2,C) (every flat SL(2,C) connection); or SU(N) on lens spaces."),
+    digits: Optional[int] = typer.Option(None, "--digits", "-d", help="SL(2,C): digits of the torsions (default 15)."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Flat connections: CS invariants mod 1, one-loop data, Casson invariant, Ohtsuki series."""
     from knotobs.representations.groups import parse_group
 
+    if group.replace(" ", "").upper() == "SL(2,C)":
+        if order is not None:
+            raise ParseError("--order: the Ohtsuki series belongs to the SU(2) table; drop --order with --group 'SL(2,C)'")
+        from knotobs.flat.table import flat_sl2c_connections
+        from knotobs.output.flat_text import flat_sl2c_text
+
+        t = flat_sl2c_connections(space, digits=15 if digits is None else digits)
+        emit(t.to_json(), "" if as_json else flat_sl2c_text(t), as_json)
+        return
+    if digits is not None:
+        raise ParseError("--digits applies to --group 'SL(2,C)' (torsions); the SU(2) table prints fixed digits")
+    order = 6 if order is None else order
     g = parse_group(group)
     if g.kind != "SU":
         raise ParseError(f"flat connections are computed for SU(N); got {g}")

@@ -55,7 +55,7 @@ __all__ = ["Character", "irreducible_characters", "abelian_characters", "enumera
 #: Rough cost of examining one candidate ``(eps, l)`` (measured, two-core machine).
 SECONDS_PER_CANDIDATE = 6e-6
 #: Rough cost of producing one listed connection (CS, torsion at 20 digits, JSON).
-SECONDS_PER_CONNECTION = 6e-5
+SECONDS_PER_CONNECTION = 2e-4
 
 
 @dataclass(frozen=True)
@@ -113,22 +113,30 @@ def guard_enumeration(M, what: str) -> None:
     from knotobs.guard import require, seconds_for
 
     n = enumeration_size(M)
-    # listed connections: at most the candidates; for three fibres about a quarter of them
-    listed = n if len(M.fibers) > 3 else n // 4
+    k = len(M.fibers)
+    # listed connections: at most the candidates; for three fibres about a quarter of them;
+    # with four or more fibres each candidate may need the polygon test over 2^(k-1) subsets
+    listed = n if k > 3 else n // 4
+    per = SECONDS_PER_CANDIDATE * (1 if k <= 3 else 2 ** (k - 1) * k / 4)
     require(f"{what} on {M}: {n:.3g} candidate rotation-number tuples",
-            seconds=n * SECONDS_PER_CANDIDATE + listed * SECONDS_PER_CONNECTION,
-            memory_mb=listed * 2e-3 + 50,
+            seconds=n * per + listed * SECONDS_PER_CONNECTION,
+            memory_mb=listed * 4e-3 + 50,
             accepted="fewer or smaller exceptional fibres")
 
 
 def _classify3(phis: list[Fraction]) -> str | None:
     """Real form for three non-central classes (angles as fractions of pi), ``None`` if reducible."""
-    p1, p2, p3 = phis
-    if p3 in (abs(p1 - p2), p1 + p2, 2 - p1 - p2):
+    D = phis[0].denominator * phis[1].denominator * phis[2].denominator
+    p1, p2, p3 = (int(x * D) for x in phis)
+    return _classify3_int(p1, p2, p3, D)
+
+
+def _classify3_int(p1: int, p2: int, p3: int, D: int) -> str | None:
+    """:func:`_classify3` with the angles ``p_j pi/D`` (integers)."""
+    lo, hi = abs(p1 - p2), min(p1 + p2, 2 * D - p1 - p2)
+    if p3 == lo or p3 == p1 + p2 or p3 == 2 * D - p1 - p2:
         return None
-    if abs(p1 - p2) < p3 < min(p1 + p2, 2 - p1 - p2):
-        return "SU(2)"
-    return "SL(2,R)"
+    return "SU(2)" if lo < p3 < hi else "SL(2,R)"
 
 
 def _su2_polygon(phis: list[Fraction]) -> bool:
@@ -174,15 +182,19 @@ def irreducible_characters(M) -> Iterator[Character]:
             for j, (l, (a, _)) in enumerate(zip(ls, fib)):
                 if l == a:          # rho(x_j) = -1
                     c = -c
-            phis = [Fraction(ls[j], fib[j][0]) for j in J]
-            if c == -1:
-                phis[-1] = 1 - phis[-1]
             if len(J) == 3:
-                rf = _classify3(phis)
+                D = fib[J[0]][0] * fib[J[1]][0] * fib[J[2]][0]
+                p = [ls[j] * (D // fib[j][0]) for j in J]
+                if c == -1:
+                    p[2] = D - p[2]
+                rf = _classify3_int(p[0], p[1], p[2], D)
                 if rf is None:
                     continue
                 dim = 0
             else:
+                phis = [Fraction(ls[j], fib[j][0]) for j in J]
+                if c == -1:
+                    phis[-1] = 1 - phis[-1]
                 rf = "SU(2) and SL(2,C)" if _su2_polygon(phis) else "SL(2,C)"
                 dim = 2 * (len(J) - 3)
             yield Character("irreducible", rf, eps, tuple(ls), s, irreducible_cs(M, eps, ls), dim)

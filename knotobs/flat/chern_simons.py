@@ -40,12 +40,14 @@ odd the last rotation number becomes ``a_3 - l_3``.
 from __future__ import annotations
 
 from fractions import Fraction
+from functools import lru_cache
 from math import gcd
 
 __all__ = ["complement_pair", "irreducible_cs", "abelian_cs", "core_angles", "fintushel_stern_cs",
            "rotation_numbers_without_b"]
 
 
+@lru_cache(maxsize=4096)
 def complement_pair(a: int, b: int) -> tuple[int, int]:
     """``(c, d)`` with ``a d - b c = 1`` (``0 <= c < a`` for ``a > 1``).
 

@@ -18,15 +18,16 @@ The same expression, evaluated at the rotation numbers of an SL(2,R) connection,
 
 from __future__ import annotations
 
-from knotobs.flat.chern_simons import core_angles
 from knotobs.numerics import local_mp
 
 __all__ = ["irreducible_torsion"]
 
 
-def irreducible_torsion(M, eps: int, l: tuple[int, ...], digits: int = 20):
+def irreducible_torsion(M, eps: int, l: tuple[int, ...], digits: int = 20, ctx=None, cache=None):
     """``tau`` of the isolated irreducible class ``(eps, l)`` on a three-fibre ``M``, to ``digits`` digits.
 
+    ``ctx`` (from :func:`knotobs.numerics.local_mp` with ``digits + 10``) may be shared between calls, and so may
+    a dict ``cache`` of the values ``sin^2(2 pi beta)`` already computed in that context.
     Returns ``None`` when ``M`` does not have exactly three exceptional fibres (the connection is
     then not isolated, or the formula is not set up).
 
@@ -44,10 +45,23 @@ def irreducible_torsion(M, eps: int, l: tuple[int, ...], digits: int = 20):
     """
     if len(M.fibers) != 3:
         return None
-    ctx = local_mp(digits + 10)
+    if ctx is None:
+        ctx = local_mp(digits + 10)     # pass one context when computing many torsions
+    from knotobs.flat.chern_simons import complement_pair
+
+    sig = 0 if eps == 1 else 1
     A = 1
     val = ctx.mpf(16)
-    for (a, _), beta in zip(M.fibers, core_angles(M, eps, l)):
+    for (a, bj), lj in zip(M.fibers, l):
         A *= a
-        val *= ctx.sinpi(2 * ctx.mpf(beta.numerator) / beta.denominator) ** 2
+        c, d = complement_pair(a, bj)
+        k = (c * lj + d * sig * a) % a          # 2 beta_j = k/a mod 1
+        key = (a, k)
+        if cache is not None and key in cache:
+            val *= cache[key]
+            continue
+        s2 = ctx.sinpi(ctx.mpf(k) / a) ** 2
+        if cache is not None:
+            cache[key] = s2
+        val *= s2
     return +(val / A)
