@@ -111,7 +111,7 @@ def continue_(
 @app.command()
 @handle_errors
 def plot(
-    kind: str = typer.Argument(..., help="level-plane, asymptotics or zeros."),
+    kind: str = typer.Argument(..., help="level-plane, asymptotics, zeros or borel."),
     target: str = typer.Argument(..., help="Seifert space (level-plane, asymptotics) or torus knot (zeros)."),
     out: str = typer.Option(..., "--out", "-o", help="Output file (.png, .svg or .pdf)."),
     re_range: str = typer.Option("3,12", "--re", help="level-plane: range of Re K, e.g. 3,12."),
@@ -136,8 +136,12 @@ def plot(
     elif k == "asymptotics":
         Ks = sorted(set(list(range(10, min(kmax, 100) + 1, 5)) + list(range(100, kmax + 1, 25))))
         p = plots.plot_asymptotics(target, out, Ks=Ks)
+    elif k == "borel":
+        from knotobs.output.borel_plot import plot_borel
+
+        p = plot_borel(target, out)
     elif k == "zeros":
         p = plots.plot_zeros(target, out, family="colored-jones" if color else "jones", color=color)
     else:
-        raise ParseError(f"unknown plot {kind!r}: use level-plane, asymptotics or zeros")
+        raise ParseError(f"unknown plot {kind!r}: use level-plane, asymptotics, zeros or borel")
     emit({"file": str(p), "kind": k}, f"wrote {p}", False)
