@@ -78,8 +78,11 @@ def continue_(
         js = res.to_json()
         text = (f"SL(2,C) partition function of {target} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
                 f"  value = {mpmath.nstr(res.numeric, digits)}\n  sum over flat-connection sectors: {js['variables']}")
+        text += "\n  pairing: diagonal, sum over every flat connection of Z_alpha(t/2) conj(Z_alpha(conj(tt)/2))"
         for cs, (h, _a) in sorted(res.sectors.items()):
             text += f"\n    cs = {str(cs):>10s}  holomorphic block = {mpmath.nstr(h, min(digits, 12))}"
+        for cs, (h, _a) in sorted(res.nonunitary.items()):
+            text += f"\n    cs = {str(cs):>10s}  holomorphic block = {mpmath.nstr(h, min(digits, 12))}  (SL(2,R) connection)"
         for n in res.notes:
             text += f"\n  note: {n}"
         emit(js, text, as_json)

@@ -118,3 +118,30 @@ def test_cli_sl2c():
     assert r.exit_code == 2 and "--order" in r.output
     r = CliRunner().invoke(app, ["flat", "Sigma(2,3,7)", "--digits", "20"])
     assert r.exit_code == 2
+
+
+def test_sl2c_sector_sum_includes_every_sector():
+    from knotobs.continuation.complex import sl2c_partition_function
+    from knotobs.continuation.level import sector_values
+    from knotobs.resurgence.blocks import isolated_block
+
+    # the Stokes-constant block reproduces the exact SU(2) sectors (two routes: Lawrence-Rozansky residues,
+    # Borel residues), at a complex level too ...
+    for K in (7, complex(9.5, 0.4)):
+        sv = sector_values("Sigma(2,3,7)", K, digits=20)
+        for cs in (Fraction(47, 168), Fraction(143, 168)):
+            assert abs(isolated_block("Sigma(2,3,7)", cs, K, digits=20) - sv[cs]) < 1e-17
+    # ... and the SL(2,C) sum over (t, tt) = (9+1.5i, 9-1.5i) contains the SL(2,R) block with |A|^2 = torsion
+    z = sl2c_partition_function("Sigma(2,3,7)", "9+1.5i,9-1.5i", digits=20)
+    h, a = z.nonunitary[Fraction(167, 168)]
+    tau = [r.torsion for r in flat_sl2c_connections("Sigma(2,3,7)", digits=20).rows if r.character.real_form == "SL(2,R)"][0]
+    # |Z_alpha(K)| = sqrt(tau) |exp(2 pi i K cs) q^(-phi/4)| at K = t/2
+    import mpmath
+    K = mpmath.mpc(4.5, 0.75)
+    from knotobs.continuation.level import LRData
+    phi = LRData.from_space("Sigma(2,3,7)").phi
+    expect = mpmath.sqrt(tau) * abs(mpmath.exp(2j * mpmath.pi * K * mpmath.mpf(-1) / 168)
+                                    * mpmath.exp(-2j * mpmath.pi * float(phi) / (4 * K)))
+    assert abs(abs(h) - expect) < 1e-12
+    js = z.to_json()
+    assert any(s["real_form"] == "SL(2,R)" for s in js["sectors"]) and js["pairing"].startswith("diagonal")
