@@ -21,8 +21,6 @@ def flat(
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Flat connections: CS invariants mod 1, one-loop data, Casson invariant, Ohtsuki series."""
-    from knotobs.representations.groups import parse_group
-
     if group.replace(" ", "").upper() == "SL(2,C)":
         if order is not None:
             raise ParseError("--order: the Ohtsuki series belongs to the SU(2) table; drop --order with --group 'SL(2,C)'")
@@ -35,6 +33,8 @@ def flat(
     if digits is not None:
         raise ParseError("--digits applies to --group 'SL(2,C)' (torsions); the SU(2) table prints fixed digits")
     order = 6 if order is None else order
+    from knotobs.representations.groups import parse_group
+
     g = parse_group(group)
     if g.kind != "SU":
         raise ParseError(f"flat connections are computed for SU(N); got {g}")

@@ -73,7 +73,7 @@ class Character:
         ``rho(h) = eps`` (irreducible); for abelian ones ``0``.
     rotation : tuple of int
         Irreducible: ``l_j`` with ``rho(x_j) ~ exp(i pi l_j/a_j)``, one per exceptional fibre of the
-        normal form.  Abelian: ``2 a_j theta_j`` (integers mod ``2 a_j``), ``rho(x_j) = e^{2 pi i theta_j}``.
+        normal form.  Abelian: the angles ``theta_j mod 1`` (Fractions), ``rho(x_j) = e^{2 pi i theta_j}``.
     h_angle : Fraction
         ``rho(h) = e^{2 pi i s}``: ``s``.
     cs : Fraction
@@ -85,7 +85,7 @@ class Character:
     kind: str
     real_form: str
     eps: int
-    rotation: tuple[int, ...]
+    rotation: tuple
     h_angle: Fraction
     cs: Fraction
     dimension: int
@@ -247,7 +247,7 @@ def abelian_characters(M) -> list[Character]:
             inv = ((-s) % 1, tuple((-t) % 1 for t in th))
             if key in seen or inv in seen:
                 continue
-            rot = tuple(int((t % 1) * 2 * a) for t, (a, _) in zip(th, fib))
+            rot = tuple(t % 1 for t in th)
             cs = abelian_cs(M, s, th)
             kind = "trivial" if r == 0 and all(t % 1 == 0 for t in th) else "abelian"
             seen[key] = Character(kind, "SU(2)", 0, rot, s, cs, 0)

@@ -20,12 +20,12 @@ def flat_sl2c_text(table) -> str:
              f"irreducible: {c['irreducible']} ({c['irreducible_SU(2)']} SU(2), {c['irreducible_SL(2,R)']} SL(2,R),"
              f" {c['irreducible'] - c['irreducible_SU(2)'] - c['irreducible_SL(2,R)']} components of positive dimension);"
              f" abelian (with trivial): {c['abelian_including_trivial']}",
-             f"{'kind':<12} {'real form':<18} {'rho(h)':>8} {'cs mod 1':>12} {'dim':>4} {'torsion':>20}  rotation numbers"]
+             f"{'kind':<12} {'real form':<18} {'rho(h)':>8} {'cs mod 1':>12} {'dim':>4} {'torsion':>20}  rotation numbers (abelian: angles theta_j)"]
     for r in table.rows:
         ch = r.character
         tau = "" if r.torsion is None else mpmath.nstr(r.torsion, min(table.digits, 15))
         rh = f"{ch.eps:+d}" if ch.kind == "irreducible" else f"s={ch.h_angle}" if ch.h_angle else "1"
         lines.append(f"{ch.kind:<12} {ch.real_form:<18} {rh:>8} {str(ch.cs):>12} {ch.dimension:>4} {tau:>20}  "
-                     f"{tuple(ch.rotation)}")
+                     f"{tuple(ch.rotation) if ch.kind == 'irreducible' else 'angles ' + ', '.join(str(t) for t in ch.rotation)}")
     lines.extend(f"note: {n}" for n in table.notes)
     return "\n".join(lines)

@@ -155,6 +155,7 @@ SCHEMAS: dict[str, dict] = {
                 "type": "object",
                 "properties": {"kind": _STR, "real_form": _STR, "cs": {"type": "string", "description": "exact fraction mod 1"},
                                "rotation_numbers": {"type": "array", "items": _INT}, "dimension": _INT,
+                               "angles": {"type": "array", "items": _STR},
                                "torsion": {"type": ["string", "null"]}},
                 "required": ["kind", "real_form", "cs", "rotation_numbers", "dimension", "torsion"],
             }},

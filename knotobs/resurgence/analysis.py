@@ -18,7 +18,7 @@ from knotobs.continuation.level import LRData
 from knotobs.errors import PrecisionError, SizeLimitError
 from knotobs.numerics import local_mp
 from knotobs.resurgence.borel import exact_residue, predicted_singularities
-from knotobs.resurgence.pade import _pade, pade_poles, ratio_test
+from knotobs.resurgence.pade import pade_approximant, pade_pole_near, ratio_test
 from knotobs.resurgence.resummation import stokes_constant, trivial_sector
 from knotobs.resurgence.series import borel_series
 
@@ -141,22 +141,20 @@ def borel_analysis(space, order: int = 40, count: int = 4, digits: int = 20, K=N
     def run(extra):
         ctx = local_mp(digits + extra)
         big = local_mp(2 * order + digits + extra + 20)
-        poles = pade_poles(list(ser.b), big) if pred else []
+        approx = pade_approximant(list(ser.b), big, (order - 1) // 2)
         ratio = ratio_test(list(ser.b), big)
         rows = []
         for s in pred:
             z = s.zeta(big)
-            near = min(poles, key=lambda P: abs(P.zeta - z)) if poles else None
-            err = abs(near.zeta - z) / abs(z) if near is not None else None
+            near = pade_pole_near(approx, z, big)
+            err = abs(near.zeta - z) / abs(z)
             res = exact_residue(d, s, local_mp(3 * (digits + extra)))
             stokes = stokes_constant(d, z, big.mpc(res), big) if res is not None else None
             t = tau.get(s.cs_mod1)
             rows.append((s, z, near, err, res, stokes, None if t is None else big.sqrt(t)))
         out = {}
         if K is not None:
-            L = (order - 1) // 2
-            scale = abs(ratio)
-            p, q = _pade(list(ser.b), L, big, scale)
+            p, q, scale = approx
             z0 = trivial_sector(d, K, ctx)
             zp = trivial_sector(d, K, ctx, pade=([ctx.mpf(x) for x in p], [ctx.mpf(x) for x in q], ctx.mpf(scale)))
             out["K"] = K

@@ -14,7 +14,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-__all__ = ["PadePole", "pade_poles", "ratio_test"]
+__all__ = ["PadePole", "pade_poles", "pade_pole_near", "pade_approximant", "ratio_test"]
 
 
 @dataclass(frozen=True)
@@ -69,6 +69,41 @@ def pade_poles(b, ctx, L: int | None = None) -> list[PadePole]:
         out.append(PadePole(r * scale, res * scale, stab))
     out.sort(key=lambda x: abs(x.zeta))
     return out
+
+
+def pade_approximant(b, ctx, L: int | None = None):
+    """``(p, q, scale)``: the ``[L/L]`` Padé approximant ``p(w)/q(w)`` of ``B(scale * w)``."""
+    if L is None:
+        L = (len(b) - 1) // 2
+    scale = abs(ratio_test(b[: 2 * L + 1], ctx)) if 2 * L + 1 > 8 else ctx.mpf(1)
+    p, q = _pade(b, L, ctx, scale)
+    return p, q, scale
+
+
+def pade_pole_near(approx, z0, ctx) -> PadePole:
+    """The zero of the Padé denominator reached by Newton's method from ``z0`` (a pole of ``p/q``).
+
+    Only the root is searched near ``z0``; its position is a property of the approximant alone.
+    The residue is ``p/q'`` there; ``stability`` is ``|q(zeta)|`` after the iteration.
+
+    >>> from knotobs.numerics import local_mp
+    >>> from fractions import Fraction
+    >>> ctx = local_mp(40)
+    >>> P = pade_pole_near(pade_approximant([Fraction(1, 2 ** k) for k in range(9)], ctx, L=1), 1.9, ctx)
+    >>> ctx.nstr(P.zeta.real, 10), ctx.nstr(P.residue.real, 10)
+    ('2.0', '-2.0')
+    """
+    p, q, scale = approx
+    rq = list(reversed(q))
+    dq = list(reversed([k * q[k] for k in range(1, len(q))]))
+    w = ctx.mpc(z0) / scale
+    for _ in range(200):
+        step = ctx.polyval(rq, w) / ctx.polyval(dq, w)
+        w -= step
+        if abs(step) < ctx.mpf(10) ** (-ctx.dps + 3) * max(1, abs(w)):
+            break
+    res = ctx.polyval(list(reversed(p)), w) / ctx.polyval(dq, w)
+    return PadePole(w * scale, res * scale, abs(ctx.polyval(rq, w)))
 
 
 def ratio_test(b, ctx, terms: int = 4):
