@@ -72,6 +72,19 @@ class FlatSL2CTable:
         return sum(1 for r in self.rows if (kind is None or r.character.kind == kind)
                    and (real_form is None or r.character.real_form == real_form))
 
+    def counts(self) -> dict[str, int]:
+        """Numbers of irreducible (all, SU(2), SL(2,R)) and abelian connections, in one pass."""
+        out = {"irreducible": 0, "irreducible_SU(2)": 0, "irreducible_SL(2,R)": 0, "abelian_including_trivial": 0}
+        for r in self.rows:
+            c = r.character
+            if c.kind == "irreducible":
+                out["irreducible"] += 1
+                if c.real_form in ("SU(2)", "SL(2,R)"):
+                    out[f"irreducible_{c.real_form}"] += 1
+            else:
+                out["abelian_including_trivial"] += 1
+        return out
+
     def to_json(self) -> dict[str, Any]:
         return {
             "quantity": "flat-sl2c-connections",
@@ -81,10 +94,7 @@ class FlatSL2CTable:
             "H1_order": self.h1_order,
             "convention": "Z_K ~ sum exp(2 pi i K cs); rho(x_j) ~ exp(i pi l_j/a_j), rho(h) = rho_h;"
                           " rotation numbers refer to the normal form; torsion |A|^2 (CONVENTIONS §12)",
-            "counts": {"irreducible": self.count("irreducible"),
-                       "irreducible_SU(2)": self.count("irreducible", "SU(2)"),
-                       "irreducible_SL(2,R)": self.count("irreducible", "SL(2,R)"),
-                       "abelian_including_trivial": self.count("abelian") + self.count("trivial")},
+            "counts": self.counts(),
             "connections": [r.to_json(self.digits) for r in self.rows],
             "notes": list(self.notes),
         }

@@ -14,8 +14,7 @@ def flat_sl2c_text(table) -> str:
     >>> print(flat_sl2c_text(flat_sl2c_connections("Sigma(2,3,5)")).splitlines()[0])
     flat SL(2,C) connections on Sigma(2,3,5) = M(0; -1; (2,1), (3,1), (5,1))   (|H_1| = 1)
     """
-    js = table.to_json()
-    c = js["counts"]
+    c = table.counts()
     lines = [f"flat SL(2,C) connections on {table.space} = {table.normal_form}   (|H_1| = {table.h1_order})",
              f"irreducible: {c['irreducible']} ({c['irreducible_SU(2)']} SU(2), {c['irreducible_SL(2,R)']} SL(2,R),"
              f" {c['irreducible'] - c['irreducible_SU(2)'] - c['irreducible_SL(2,R)']} components of positive dimension);"

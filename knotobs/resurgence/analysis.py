@@ -50,6 +50,7 @@ class BorelReport:
     rows: tuple
     resummation: dict = field(default_factory=dict)
     notes: tuple = ()
+    ohtsuki: tuple = ()
 
     def to_json(self) -> dict[str, Any]:
         from mpmath import nstr
@@ -66,6 +67,8 @@ class BorelReport:
             "borel_transform": "B(zeta) = sum a_k zeta^k/(3/2)_k; Phi = h^(-3/2)/Gamma(3/2) int_0^inf e^(-zeta/h) zeta^(1/2) B d zeta",
             "order": self.order,
             "coefficients": [str(a) for a in self.coefficients],
+            "ohtsuki_series": {"variable": "q - 1", "normalisation": "Z_0/Z(S^3) = |H|^(-3/2) sum_n c_n (q-1)^n",
+                               "coefficients": [str(c) for c in self.ohtsuki]},
             "ratio_test_nearest": c(self.ratio_estimate),
             "singularities": [{
                 "m": r.m, "cs": str(r.cs), "cs_mod1": str(r.cs_mod1),
@@ -193,4 +196,7 @@ def borel_analysis(space, order: int = 40, count: int = 4, digits: int = 20, K=N
              "Stokes constant S_m: jump of Z_0(K) across the ray through zeta_m is S_m exp(2 pi i K cs_m)(1 + O(1/K));"
              " |S_m| = sqrt(torsion) of the flat connection with that CS value"]
     res = {k: (v if k == "K" else ctx.mpc(v)) for k, v in res_hi.items()}
-    return BorelReport(str(d.space), order, digits, ser.a, ctx.mpc(ratio_hi), tuple(rows), res, tuple(notes))
+    from knotobs.continuation.ohtsuki import MAX_ORDER, ohtsuki_series
+
+    oh = ohtsuki_series(d, min(order, MAX_ORDER)).coefficients
+    return BorelReport(str(d.space), order, digits, ser.a, ctx.mpc(ratio_hi), tuple(rows), res, tuple(notes), oh)

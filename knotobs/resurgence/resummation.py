@@ -58,13 +58,40 @@ def laplace_pade(p, q, scale, K, ctx):
 
 
 def trivial_sector(d: LRData, K, ctx, pade=None):
-    """``Z_0(K)``: the resummed trivial sector (closed-form ``B``, or ``pade = (p, q, scale)``)."""
+    """``Z_0(K)``: the resummed trivial sector (closed-form ``B``, or ``pade = (p, q, scale)``).
+
+    >>> from knotobs.numerics import local_mp
+    >>> from knotobs.continuation.level import sector_values
+    >>> from fractions import Fraction
+    >>> ctx = local_mp(25)
+    >>> z = trivial_sector(LRData.from_space("Sigma(2,3,5)"), 8, ctx)
+    >>> abs(z - ctx.mpc(sector_values("Sigma(2,3,5)", 8, digits=20)[Fraction(0)])) < 1e-18
+    True
+
+    References
+    ----------
+    S. Gukov, M. Mariño and P. Putrov, arXiv:1605.07615; CONVENTIONS §12.
+    """
     S = laplace_closed_form(d, K, ctx) if pade is None else laplace_pade(*pade, K, ctx)
     return _prefactor(d, K, ctx) * S
 
 
 def stokes_constant(d: LRData, zeta_m, residue, ctx):
-    """Large-``K`` Stokes constant ``S_m`` of the pole ``zeta_m`` with residue ``residue``."""
+    """Large-``K`` Stokes constant ``S_m`` of the pole ``zeta_m`` with residue ``residue``.
+
+    >>> from knotobs.numerics import local_mp
+    >>> from knotobs.resurgence.borel import exact_residue, predicted_singularities
+    >>> ctx = local_mp(30)
+    >>> d = LRData.from_space("Sigma(2,3,5)")
+    >>> s = predicted_singularities(d, 1)[0]
+    >>> S = stokes_constant(d, s.zeta(ctx), exact_residue(d, s, local_mp(90)), ctx)
+    >>> abs(abs(S) - ctx.sqrt(ctx.mpf(2) / 5) * ctx.sin(ctx.pi / 5)) < 1e-25     # sqrt(torsion)
+    True
+
+    References
+    ----------
+    J. E. Andersen and W. E. Mistegård, arXiv:1811.05376; CONVENTIONS §12.
+    """
     root = ctx.sqrt(ctx.mpc(zeta_m))
     if ctx.im(root) < 0:
         root = -root

@@ -98,6 +98,8 @@ def test_cli_borel_and_plot():
     assert res.exit_code == 0, res.output
     d = json.loads(res.output)
     assert d["singularities"][0]["cs"] == "-1/168" and d["singularities"][0]["connections"][0]["real_form"] == "SL(2,R)"
+    # Ohtsuki series of Sigma(2,3,7): 1, -6, 69, ... (lambda_1 = 6 lambda = -6; CONVENTIONS §9)
+    assert d["ohtsuki_series"]["coefficients"][:3] == ["1", "-6", "69"]
     res = run.invoke(app, ["borel", "Sigma(2,3,5)", "--order", "20", "--count", "2", "--digits", "12", "--K", "6"])
     assert res.exit_code == 0 and "finite_level_value" in res.output
     res = run.invoke(app, ["borel", "Sigma(2,3,5)", "--order", "2000"])
