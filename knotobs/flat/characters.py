@@ -43,7 +43,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from fractions import Fraction
 from itertools import combinations, product
-from math import gcd, prod
+from math import gcd, lcm, prod
 from typing import Iterator
 
 from knotobs.errors import InvalidSeifertDataError
@@ -200,6 +200,41 @@ def irreducible_characters(M) -> Iterator[Character]:
             yield Character("irreducible", rf, eps, tuple(ls), s, irreducible_cs(M, eps, ls), dim)
 
 
+def _suffix_sums(fib, L: int) -> list[set]:
+    """``S[j]``: the residues ``sum_{i >= j} k_i L/a_i mod L`` reachable by the fibres ``j..n``."""
+    S = [set() for _ in range(len(fib) + 1)]
+    S[-1] = {0}
+    for j in range(len(fib) - 1, -1, -1):
+        step = L // fib[j][0]
+        S[j] = {(x + k * step) % L for x in S[j + 1] for k in range(fib[j][0])}
+    return S
+
+
+def _k_solutions(fib, target: int, L: int, S) -> Iterator[tuple[int, ...]]:
+    """All ``(k_1..k_n)``, ``0 <= k_j < a_j``, with ``sum k_j L/a_j = target mod L`` (pruned depth-first)."""
+    n = len(fib)
+    if target not in S[0]:
+        return
+    stack = [(0, target, ())]
+    while stack:
+        j, t, ks = stack.pop()
+        if j == n:
+            yield ks
+            continue
+        step = L // fib[j][0]
+        for k in range(fib[j][0]):
+            t2 = (t - k * step) % L
+            if t2 in S[j + 1]:
+                stack.append((j + 1, t2, ks + (k,)))
+
+
+def abelian_work(M) -> float:
+    """Elementary steps of :func:`abelian_characters` (for the guard): suffix sets and the solutions."""
+    fib = list(M.fibers)
+    L = lcm(*[a for a, _ in fib]) if fib else 1
+    return float(L * sum(a for a, _ in fib) + M.h1_order * (len(fib) + 1) * max([a for a, _ in fib] + [1]))
+
+
 def abelian_characters(M) -> list[Character]:
     """Abelian flat connections (trivial first), one per class of ``Hom(H_1, U(1))`` modulo inversion.
 
@@ -223,25 +258,22 @@ def abelian_characters(M) -> list[Character]:
     assert order.denominator == 1
     order = int(order)
     seen = {}
+    L = lcm(*[a for a, _ in fib]) if fib else 1
+    suffix = _suffix_sums(fib, L)
     # rho(h) = e^{2 pi i s}: s has order dividing |H_1|
     for r in range(order):
         s = Fraction(r, order)
         # theta_j = (k_j - b_j s)/a_j, sum_j theta_j - b s in Z (fibre (1,b): theta_0 = -b s)
         base = [-(bj * s) / a for a, bj in fib]
         need = (M.b * s - sum(base, Fraction(0)))            # sum k_j/a_j must be = need mod 1
-        choices = [range(a) for a, _ in fib[:-1]]
-        for ks0 in (product(*choices) if fib else [()]):
-            if not fib:
-                ks = ()
-                if need.denominator != 1:
-                    continue
-            else:
-                part = sum((Fraction(k, a) for k, (a, _) in zip(ks0, fib)), Fraction(0))
-                an = fib[-1][0]
-                last = (need - part) * an          # k_n must be this mod a_n
-                if last.denominator != 1:
-                    continue
-                ks = ks0 + (int(last) % an,)
+        if fib:
+            t = need * L
+            if t.denominator != 1:
+                continue
+            sols = _k_solutions(fib, int(t) % L, L, suffix)
+        else:
+            sols = [()] if need.denominator == 1 else []
+        for ks in sols:
             th = tuple(bs + Fraction(k, a) for bs, k, (a, _) in zip(base, ks, fib))
             key = (s % 1, tuple(t % 1 for t in th))
             inv = ((-s) % 1, tuple((-t) % 1 for t in th))

@@ -20,7 +20,7 @@ from typing import Any
 
 from knotobs.errors import InvalidSeifertDataError
 from knotobs.fibrations.seifert import parse_space
-from knotobs.flat.characters import Character, abelian_characters, guard_enumeration, irreducible_characters
+from knotobs.flat.characters import Character, abelian_characters, abelian_work, guard_enumeration, irreducible_characters
 from knotobs.flat.torsion import irreducible_torsion
 
 __all__ = ["FlatSL2CRow", "FlatSL2CTable", "flat_sl2c_connections"]
@@ -138,9 +138,10 @@ def flat_sl2c_connections(space, digits: int = 15) -> FlatSL2CTable:
 
     fib = list(M.fibers)
     h1 = M.h1_order
-    ab_cost = h1 * (prod(a for a, _ in fib[:-1]) if fib else 1)
-    require(f"abelian flat connections of {M}: |H_1| = {h1}, {ab_cost:.3g} angle tuples",
-            seconds=ab_cost * 5e-5, memory_mb=h1 * 2e-3 + 50, accepted="a smaller |H_1| or fewer fibres")
+    ab_cost = abelian_work(M)
+    require(f"abelian flat connections of {M}: |H_1| = {h1}, {ab_cost:.3g} steps",
+            seconds=ab_cost * 3e-6 + h1 * 1e-4, memory_mb=h1 * 4e-3 + ab_cost * 1e-4 + 50,
+            accepted="a smaller |H_1| or fewer fibres")
     from knotobs.numerics import local_mp
 
     ctx = local_mp(digits + 10)

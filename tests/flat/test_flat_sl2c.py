@@ -145,3 +145,30 @@ def test_sl2c_sector_sum_includes_every_sector():
     assert abs(abs(h) - expect) < 1e-12
     js = z.to_json()
     assert any(s["real_form"] == "SL(2,R)" for s in js["sectors"]) and js["pairing"].startswith("diagonal")
+
+
+@pytest.mark.parametrize("space", ["M(0; -1; (2,1),(2,1),(3,1),(3,1),(5,2),(5,2))", "M(0; -1; (2,1),(2,1),(2,1),(3,1))",
+                                   "M(0; 0; (2,1),(2,1),(2,1),(2,1),(3,1))", "L(7,2)", "M(0; 3; (2,1),(5,2),(7,3))",
+                                   "M(0; -1; (2,1),(3,1),(5,1),(7,1),(11,1),(13,1))"])
+def test_abelian_count_any_fibres(space):
+    # |Hom(H_1, U(1))/inversion| = (|H_1| + #{x : 2x = 0})/2, #{x : 2x = 0} = 2^(number of even invariant
+    # factors) (common practice); H_1 from the Seifert invariants (knotobs.fibrations, CONVENTIONS §5)
+    M = SeifertManifold.parse(space)
+    t = flat_sl2c_connections(space)
+    factors = [d for d in M.homology() if d != 1]
+    two = 2 ** sum(1 for d in factors if d % 2 == 0)
+    assert t.count("abelian") + t.count("trivial") == (M.h1_order + two) // 2
+    # second route for the abelian CS values: cs(rho_x) = lk(x, x) mod 1 over x in H_1 (Kirk-Klassen, Math. Ann.
+    # 287 (1990); common practice), with the linking form of knotobs.fibrations (from the surgery diagram)
+    from collections import Counter
+    from itertools import product
+
+    lf = M.linking_form()
+    lk = Counter(lf.value(x, x) for x in product(*[range(d) for d in lf.orders]))
+    mine = Counter()
+    for r in t.rows:
+        c = r.character
+        if c.kind != "irreducible":
+            self_inverse = (2 * c.h_angle) % 1 == 0 and all((2 * x) % 1 == 0 for x in c.rotation)
+            mine[c.cs] += 1 if self_inverse else 2
+    assert mine == lk
