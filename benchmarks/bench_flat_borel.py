@@ -53,7 +53,8 @@ def main():
         (["borel", "Sigma(2,3,7)", "--order", "40", "--K", "9"], "with resummation"),
         (["flat", "Sigma(97,98,99)"], "refused < 2 s"),
         (["flat", "Sigma(97,98,99)", "--group", "SL(2,C)"], "finishes < 60 s"),
-        (["flat", "M(0; -1; (2,1),(3,1),(5,1),(7,1),(11,1),(13,1))"], "6 fibres: refused < 2 s"),
+        (["flat", "M(0; -1; (2,1),(3,1),(5,1),(7,1),(11,1),(13,1))"], "6 fibres, residue route: refused < 2 s"),
+        (["flat", "M(0; -1; (2,1),(3,1),(5,1),(7,1),(11,1),(13,1))", "--group", "SL(2,C)"], "6 fibres: finishes < 60 s"),
         (["flat", "M(0; -1; (2,1),(3,1),(5,2),(7,3),(11,2),(13,5),(17,3),(19,2),(23,4),(29,3))", "--group", "SL(2,C)"],
          "10 fibres: refused < 2 s"),
     ]
