@@ -201,10 +201,13 @@ def irreducible_characters(M) -> Iterator[Character]:
 
 
 def _suffix_sums(fib, L: int) -> list[set]:
-    """``S[j]``: the residues ``sum_{i >= j} k_i L/a_i mod L`` reachable by the fibres ``j..n``."""
+    """``S[j]``: the residues ``sum_{i >= j} k_i L/a_i mod L`` reachable by the fibres ``j..n`` (``j >= 1``).
+
+    ``S[0]`` (everything reachable) is not needed by the search and left empty.
+    """
     S = [set() for _ in range(len(fib) + 1)]
     S[-1] = {0}
-    for j in range(len(fib) - 1, -1, -1):
+    for j in range(len(fib) - 1, 0, -1):
         step = L // fib[j][0]
         S[j] = {(x + k * step) % L for x in S[j + 1] for k in range(fib[j][0])}
     return S
@@ -213,8 +216,6 @@ def _suffix_sums(fib, L: int) -> list[set]:
 def _k_solutions(fib, target: int, L: int, S) -> Iterator[tuple[int, ...]]:
     """All ``(k_1..k_n)``, ``0 <= k_j < a_j``, with ``sum k_j L/a_j = target mod L`` (pruned depth-first)."""
     n = len(fib)
-    if target not in S[0]:
-        return
     stack = [(0, target, ())]
     while stack:
         j, t, ks = stack.pop()
@@ -232,7 +233,11 @@ def abelian_work(M) -> float:
     """Elementary steps of :func:`abelian_characters` (for the guard): suffix sets and the solutions."""
     fib = list(M.fibers)
     L = lcm(*[a for a, _ in fib]) if fib else 1
-    return float(L * sum(a for a, _ in fib) + M.h1_order * (len(fib) + 1) * max([a for a, _ in fib] + [1]))
+    work, size = 0, 1
+    for j in range(len(fib) - 1, 0, -1):       # building S[j] from S[j+1]
+        work += size * fib[j][0]
+        size = min(L, size * fib[j][0])
+    return float(work + M.h1_order * (len(fib) + 1) * max([a for a, _ in fib] + [1]))
 
 
 def abelian_characters(M) -> list[Character]:

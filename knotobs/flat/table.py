@@ -23,7 +23,7 @@ from knotobs.fibrations.seifert import parse_space
 from knotobs.flat.characters import Character, abelian_characters, abelian_work, guard_enumeration, irreducible_characters
 from knotobs.flat.torsion import irreducible_torsion
 
-__all__ = ["FlatSL2CRow", "FlatSL2CTable", "flat_sl2c_connections"]
+__all__ = ["FlatSL2CRow", "FlatSL2CTable", "flat_sl2c_connections", "guard_table"]
 
 
 @dataclass(frozen=True)
@@ -100,6 +100,22 @@ class FlatSL2CTable:
         }
 
 
+def guard_table(M) -> None:
+    """Refuse, before any work, a table estimated above the limits in force (``M`` in normal form).
+
+    >>> from knotobs.fibrations.seifert import parse_space
+    >>> guard_table(parse_space("Sigma(97,98,99)").normal_form())        # about 30 s: accepted
+    """
+    from knotobs.guard import require
+
+    guard_enumeration(M, "flat SL(2,C) connections")
+    h1 = M.h1_order
+    ab_cost = abelian_work(M)
+    require(f"abelian flat connections of {M}: |H_1| = {h1}, {ab_cost:.3g} steps",
+            seconds=ab_cost * 3e-6 + h1 * 1e-4, memory_mb=h1 * 4e-3 + ab_cost * 1e-4 + 50,
+            accepted="a smaller |H_1| or fewer fibres")
+
+
 def flat_sl2c_connections(space, digits: int = 15) -> FlatSL2CTable:
     """Every flat SL(2,C) connection of a Seifert rational homology sphere over ``S^2``.
 
@@ -133,15 +149,9 @@ def flat_sl2c_connections(space, digits: int = 15) -> FlatSL2CTable:
     if not M.is_rational_homology_sphere:
         raise InvalidSeifertDataError(f"{M0} has e = 0 (infinite H_1): flat connections form families"
                                       " there; a rational homology sphere is needed")
-    guard_enumeration(M, "flat SL(2,C) connections")
-    from knotobs.guard import require
-
+    guard_table(M)
     fib = list(M.fibers)
     h1 = M.h1_order
-    ab_cost = abelian_work(M)
-    require(f"abelian flat connections of {M}: |H_1| = {h1}, {ab_cost:.3g} steps",
-            seconds=ab_cost * 3e-6 + h1 * 1e-4, memory_mb=h1 * 4e-3 + ab_cost * 1e-4 + 50,
-            accepted="a smaller |H_1| or fewer fibres")
     from knotobs.numerics import local_mp
 
     ctx = local_mp(digits + 10)
