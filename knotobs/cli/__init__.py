@@ -19,7 +19,7 @@ from knotobs.cli import loop_cmd as _loop_cmd  # noqa: F401,E402
 from importlib import import_module as _import_module
 
 # command modules written alongside (each registers its commands on ``app``)
-for _name in ("fibers_cmd", "finite_cmd", "match_cmd", "grid_cmd", "continue_cmd", "qseries_cmd"):
+for _name in ("fibers_cmd", "finite_cmd", "match_cmd", "grid_cmd", "continue_cmd", "qseries_cmd", "borel_cmd"):
     try:
         _import_module(f"knotobs.cli.{_name}")
     except ModuleNotFoundError as _exc:  # pragma: no cover - module not written yet

@@ -16,11 +16,24 @@ from knotobs.errors import ParseError
 @handle_errors
 def flat(
     space: str = typer.Argument(..., help="Seifert rational homology sphere, e.g. Sigma(2,3,7), L(5,1), M(0; -1; (2,1), (3,1), (5,1))."),
-    order: int = typer.Option(6, "--order", help="Highest power of (q - 1) in the Ohtsuki series."),
-    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(2), or SU(N) on lens spaces."),
+    order: Optional[int] = typer.Option(None, "--order", help="Highest power of (q - 1) in the Ohtsuki series (SU(2); default 6)."),
+    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(2); SL(2,C) (every flat SL(2,C) connection); or SU(N) on lens spaces."),
+    digits: Optional[int] = typer.Option(None, "--digits", "-d", help="SL(2,C): digits of the torsions (default 15)."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Flat connections: CS invariants mod 1, one-loop data, Casson invariant, Ohtsuki series."""
+    if group.replace(" ", "").upper() == "SL(2,C)":
+        if order is not None:
+            raise ParseError("--order: the Ohtsuki series belongs to the SU(2) table; drop --order with --group 'SL(2,C)'")
+        from knotobs.flat.table import flat_sl2c_connections
+        from knotobs.output.flat_text import flat_sl2c_text
+
+        t = flat_sl2c_connections(space, digits=15 if digits is None else digits)
+        emit(t.to_json(), "" if as_json else flat_sl2c_text(t), as_json)
+        return
+    if digits is not None:
+        raise ParseError("--digits applies to --group 'SL(2,C)' (torsions); the SU(2) table prints fixed digits")
+    order = 6 if order is None else order
     from knotobs.representations.groups import parse_group
 
     g = parse_group(group)
@@ -69,8 +82,11 @@ def continue_(
         js = res.to_json()
         text = (f"SL(2,C) partition function of {target} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
                 f"  value = {certified_str(res.numeric, digits)}\n  sum over flat-connection sectors: {js['variables']}")
+        text += "\n  pairing: diagonal, sum over every flat connection of Z_alpha(t/2) conj(Z_alpha(conj(tt)/2))"
         for cs, (h, _a) in sorted(res.sectors.items()):
             text += f"\n    cs = {str(cs):>10s}  holomorphic block = {mpmath.nstr(h, min(digits, 12))}"
+        for cs, (h, _a) in sorted(res.nonunitary.items()):
+            text += f"\n    cs = {str(cs):>10s}  holomorphic block = {mpmath.nstr(h, min(digits, 12))}  (SL(2,R) connection)"
         for n in res.notes:
             text += f"\n  note: {n}"
         emit(js, text, as_json)
@@ -109,7 +125,7 @@ def continue_(
 @app.command()
 @handle_errors
 def plot(
-    kind: str = typer.Argument(..., help="level-plane, asymptotics or zeros."),
+    kind: str = typer.Argument(..., help="level-plane, asymptotics, zeros or borel."),
     target: str = typer.Argument(..., help="Seifert space (level-plane, asymptotics) or torus knot (zeros)."),
     out: str = typer.Option(..., "--out", "-o", help="Output file (.png, .svg or .pdf)."),
     re_range: str = typer.Option("3,12", "--re", help="level-plane: range of Re K, e.g. 3,12."),
@@ -122,8 +138,8 @@ def plot(
     from knotobs.continuation import plots
 
     k = kind.lower()
-    if k not in ("level-plane", "asymptotics", "zeros"):
-        raise ParseError(f"unknown plot {kind!r}: use level-plane, asymptotics or zeros")
+    if k not in ("level-plane", "asymptotics", "zeros", "borel"):
+        raise ParseError(f"unknown plot {kind!r}: use level-plane, asymptotics, zeros or borel")
     _inputs.output_path(out, "--out")
     if k == "level-plane":
         p = plots.plot_level_plane(target, out, _inputs.float_range(re_range, "--re"),
@@ -131,6 +147,10 @@ def plot(
     elif k == "asymptotics":
         _inputs.int_at_least(kmax, 15, "--kmax", "the plot starts at K = 10 and needs two levels")
         p = plots.plot_asymptotics(target, out, Ks=plots.asymptotic_levels(kmax))
+    elif k == "borel":
+        from knotobs.output.borel_plot import plot_borel
+
+        p = plot_borel(target, out)
     else:
         if color is not None:
             _inputs.int_at_least(color, 1, "--color", "the colour is the dimension n >= 1 of the SU(2) irrep")

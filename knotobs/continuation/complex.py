@@ -246,6 +246,8 @@ class SectorSum:
     numeric: mpmath.mpc
     digits: int
     notes: tuple[str, ...] = field(default_factory=tuple)
+    nonunitary: dict = field(default_factory=dict)   # cs -> (hol, antihol) of the SL(2,R) connections
+    unitary: bool = True
 
     def to_json(self) -> dict[str, Any]:
         def c(z):
@@ -256,11 +258,15 @@ class SectorSum:
             "space": self.space,
             "couplings": {"t": c(self.t), "tt": c(self.tt)},
             "variables": "K = t/2 (q = exp(4 pi i/t)); antiholomorphic block conj Z_alpha(conj(tt)/2)",
-            "sectors": [{"cs": str(cs), "holomorphic": _value_json(h, self.digits),
+            "pairing": "diagonal: Z = sum_alpha Z_alpha(t/2) conj(Z_alpha(conj(tt)/2)) over every flat connection alpha",
+            "sectors": [{"cs": str(cs), "real_form": "SU(2)", "holomorphic": _value_json(h, self.digits),
                          "antiholomorphic": _value_json(a, self.digits)}
-                        for cs, (h, a) in sorted(self.sectors.items())],
+                        for cs, (h, a) in sorted(self.sectors.items())]
+                       + [{"cs": str(cs), "real_form": "SL(2,R)", "holomorphic": _value_json(h, self.digits),
+                           "antiholomorphic": _value_json(a, self.digits)}
+                          for cs, (h, a) in sorted(self.nonunitary.items())],
             "numeric": {**_value_json(self.numeric, self.digits), "digits": self.digits},
-            "unitary": not self.notes,
+            "unitary": self.unitary,
             "notes": list(self.notes),
         }
 
@@ -271,18 +277,34 @@ def sl2c_partition_function(space, couplings, digits: int = 30) -> SectorSum:
     In complex Chern–Simons theory with couplings ``(t, tt)`` the expansion around a flat
     connection ``alpha`` factorises into a holomorphic and an antiholomorphic block
     (E. Witten, Commun. Math. Phys. 137 (1991) 29–66, §2–3; S. Gukov, Commun. Math. Phys.
-    255 (2005) 577–627, §2).  For a Seifert manifold the flat SL(2,C) connections that
-    contribute here are the complexified SU(2) ones, and the SU(2) theory already splits
-    exactly into one holomorphic function of ``K`` per flat connection
-    (:func:`knotobs.continuation.level.sector_values`).  This function returns
+    255 (2005) 577–627, §2).  This function returns
 
     .. math::  Z(t, \tilde t) = \sum_\alpha Z_\alpha(t/2)\, \overline{Z_\alpha(\overline{\tilde t}/2)}
 
-    (diagonal pairing of sectors), with ``K = t/2`` so that ``q = exp(2 pi i/K) = exp(4 pi i/t)``
-    as in :func:`sl_wilson_loop`.  At ``tt = conj(t)`` it is ``sum_alpha |Z_alpha(t/2)|^2``.
-    The pairing of sectors and the omission of flat connections without an SU(2) real form
-    are the assumptions of this perturbative picture; it is not a non-perturbative
-    definition of the theory.
+    with ``K = t/2`` (``q = exp(2 pi i/K) = exp(4 pi i/t)``, as in :func:`sl_wilson_loop`), summed over
+    **every** flat SL(2,C) connection ``alpha``: the trivial and abelian ones, the SU(2) ones and the
+    non-unitary (SL(2,R)) ones.
+
+    *Blocks.*  For the SU(2) connections ``Z_alpha`` is the exact sector of the Lawrence–Rozansky
+    decomposition (:func:`knotobs.continuation.level.sector_values`).  For a non-unitary ``alpha``
+    (isolated, on a three-fibre integral homology sphere) it is the one-loop-exact block
+    ``-S_m e^{2 pi i K cs_alpha} q^{-phi/4}`` built from the Stokes constant of the Borel pole at
+    ``4 pi^2 cs_alpha`` (:mod:`knotobs.resurgence.blocks`); the same formula reproduces the SU(2)
+    sectors exactly, which is how it is checked.
+
+    *Pairing: diagonal, and why.*  On the real integration cycle of the complexified theory
+    (``Abar`` the complex conjugate of ``A``) the holomorphic and antiholomorphic actions are
+    complex conjugates, so each critical point ``alpha`` contributes its holomorphic block times
+    the conjugate block of the *same* ``alpha``; cross terms ``Z_alpha conj(Z_beta)``, ``alpha != beta``,
+    would come from a cycle that pairs the thimble of ``alpha`` with the antithimble of ``beta``,
+    which the real cycle does not contain (E. Witten, Analytic continuation of Chern–Simons theory,
+    AMS/IP Stud. Adv. Math. 50 (2011), §2–5, quoted from memory).  Every critical point enters
+    with weight one: unlike the SU(2) contour, whose Stokes multipliers at integer level exclude
+    the SL(2,R) points, the SL(2,C) cycle contains all of them.  The resulting sum is a
+    perturbative (saddle-point) definition; it is not claimed to be the non-perturbative
+    SL(2,C) partition function.  At ``tt = conj(t)`` it is ``sum_alpha |Z_alpha(t/2)|^2``.
+    Non-unitary components of positive dimension (four or more fibres) and non-unitary blocks of
+    manifolds with ``|H_1| > 1`` are not set up; a note says when they are left out.
 
     Examples
     --------
@@ -291,6 +313,9 @@ def sl2c_partition_function(space, couplings, digits: int = 30) -> SectorSum:
     True
     >>> sorted(str(cs) for cs in z.sectors)
     ['0', '119/120', '71/120']
+    >>> w = sl2c_partition_function("Sigma(2,3,7)", "10+2i,10-2i", digits=15)
+    >>> [str(cs) for cs in w.nonunitary]                 # the SL(2,R) connection at -1/168
+    ['167/168']
 
     References
     ----------
@@ -298,8 +323,15 @@ def sl2c_partition_function(space, couplings, digits: int = 30) -> SectorSum:
     """
     from knotobs.continuation.level import sector_values
 
+    from knotobs.continuation.level import LRData
+    from knotobs.flat.table import flat_sl2c_connections
+    from knotobs.resurgence.blocks import isolated_block
+
     digits = check_digits(digits)
     t, tt = parse_couplings(couplings)
+    d = LRData.from_space(space)
+    table = flat_sl2c_connections(d.space)
+    notes = []
     with working_precision(digits + 10):
         hol = sector_values(space, t / 2, digits + 5)
         anti_raw = sector_values(space, mpmath.conj(tt) / 2, digits + 5)
@@ -310,7 +342,21 @@ def sl2c_partition_function(space, couplings, digits: int = 30) -> SectorSum:
             a = mpmath.conj(anti_raw.get(cs, mpmath.mpc(0)))
             sectors[cs] = (h, a)
             total += h * a
+        nonunitary = {}
+        others = [r.character for r in table.rows if r.character.kind == "irreducible" and "SU(2)" not in r.character.real_form]
+        if others and (abs(d.H) != 1 or len(d.space.exceptional_orders) != 3):
+            notes.append(f"{len(others)} non-unitary flat connection(s) left out: their blocks are set up for"
+                         " three-fibre integral homology spheres only")
+        elif others:
+            for ch in others:
+                h = isolated_block(d, ch.cs, t / 2, digits + 5)
+                a = mpmath.conj(isolated_block(d, ch.cs, mpmath.conj(tt) / 2, digits + 5))
+                h, a = mpmath.mpc(h), mpmath.mpc(a)
+                nonunitary[ch.cs] = (h, a)
+                total += h * a
     note = unitarity_note(t, tt)
+    if note:
+        notes.insert(0, note)
     name = str(getattr(space, "normal_form", lambda: space)()) if not isinstance(space, str) else space
     with working_precision(digits):
-        return SectorSum(name, t, tt, sectors, +total, digits, (note,) if note else ())
+        return SectorSum(name, t, tt, sectors, +total, digits, tuple(notes), nonunitary, note is None)

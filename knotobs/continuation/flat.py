@@ -12,10 +12,10 @@ Two independent descriptions are combined.
    ``theta_3' = theta_3`` (``eps^b = 1``) or ``pi - theta_3`` (``eps^b = -1``) satisfy the
    strict spherical triangle inequalities
    ``|theta_1 - theta_2| < theta_3' < min(theta_1 + theta_2, 2 pi - theta_1 - theta_2)``.
-   For the Brieskorn sphere ``Sigma(a_1,a_2,a_3)`` the Chern–Simons invariant is
-   ``cs = -e^2/(4 a_1 a_2 a_3) mod 1`` with ``e = sum_j l_j a_1 a_2 a_3/a_j``
-   (Fintushel–Stern 1990, §2; the form of ``e`` is quoted from memory and checked
-   against route 2 in the tests).
+   Each class carries its own Chern–Simons value, computed from its rotation numbers by the
+   formula of :mod:`knotobs.flat.chern_simons` (for Brieskorn spheres it agrees with
+   Fintushel–Stern's ``-e^2/(4 a_1 a_2 a_3)`` once the rotation numbers are written in the
+   presentation without ``b``), and its own torsion (:mod:`knotobs.flat.torsion`).
 2. **Residues** of the Lawrence–Rozansky representation
    (:mod:`knotobs.continuation.asymptotics`): each irreducible sector contributes
    ``exp(2 pi i K cs) q^(-phi/4) A(K)`` with ``cs = -H m^2/(4P) mod 1`` and ``A`` a Laurent
@@ -53,6 +53,9 @@ from knotobs.continuation.level import LRData, _B
 from knotobs.continuation.ohtsuki import ohtsuki_series
 from knotobs.errors import InvalidSeifertDataError
 from knotobs.fibrations.seifert import SeifertManifold, parse_space
+from knotobs.flat.characters import irreducible_characters
+from knotobs.flat.chern_simons import fintushel_stern_cs  # noqa: F401  (re-exported)
+from knotobs.flat.torsion import irreducible_torsion
 
 __all__ = [
     "FlatConnection",
@@ -117,22 +120,6 @@ def irreducible_representations(a: tuple[int, int, int]) -> list[tuple[int, tupl
                     if abs(t1 - t2) < t3 < min(t1 + t2, 2 - t1 - t2):
                         out.append((eps, (l1, l2, l3)))
     return out
-
-
-def fintushel_stern_cs(a: tuple[int, int, int], l: tuple[int, int, int]) -> Fraction:
-    """``cs = -e^2/(4 a_1 a_2 a_3) mod 1``, ``e = sum_j l_j a_1 a_2 a_3/a_j``.
-
-    >>> fintushel_stern_cs((2, 3, 5), (1, 1, 1)), fintushel_stern_cs((2, 3, 5), (1, 1, 3))
-    (Fraction(119, 120), Fraction(71, 120))
-
-    References
-    ----------
-    Fintushel & Stern, Proc. London Math. Soc. 61 (1990), §2 (from memory; checked
-    against the Lawrence–Rozansky residues in the tests).
-    """
-    A = a[0] * a[1] * a[2]
-    e = sum(lj * A // aj for lj, aj in zip(l, a))
-    return Fraction(-e * e, 4 * A) % 1
 
 
 def brieskorn_signature(a: tuple[int, ...]) -> int:
@@ -209,6 +196,7 @@ class FlatConnection:
             "cs_signed": str(self.cs - 1 if self.cs > Fraction(1, 2) else self.cs),
             "multiplicity": self.multiplicity,
             "rotation_numbers": [list(r[1]) for r in self.rotation] if self.rotation else [],
+            "rho_h": [r[0] for r in self.rotation] if self.rotation else [],
             "K_power": str(self.K_power),
             "one_loop": {
                 "amplitude": {"re": mpmath.nstr(self.amplitude.real, 15), "im": mpmath.nstr(self.amplitude.imag, 15)},
@@ -295,6 +283,22 @@ def _amplitude(d: LRData, c: Contribution) -> tuple[mpmath.mpc, Fraction]:
         ctx.prec = old
 
 
+def _guard_flat(d: LRData) -> None:
+    """Refuse, before any work, a residue decomposition estimated above the limits in force.
+
+    The cost grows like the number ``2P`` of residue points times the pole order (measured:
+    about ``2e-3 P`` s with three exceptional fibres, sixteen times more per extra fibre).
+    """
+    from knotobs.guard import require
+
+    extra = max(0, d.n - 4)
+    require(f"flat SU(2) connections of {d.space} by the residue route ({2 * d.P} residue points,"
+            f" {d.n} surgery coefficients)",
+            seconds=2e-3 * d.P * 16.0 ** extra, memory_mb=1e-3 * d.P * 4.0 ** extra + 50,
+            accepted="knotobs flat SPACE --group 'SL(2,C)' lists every flat connection with its CS"
+                     " value from the representations, without the residue route")
+
+
 def flat_connections(space, ohtsuki_order: int = 6) -> FlatTable:
     """Flat SU(2) connections with CS values, one-loop data, Casson invariant and Ohtsuki series.
 
@@ -323,41 +327,45 @@ def flat_connections(space, ohtsuki_order: int = 6) -> FlatTable:
     R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314.
     """
     d = LRData.from_space(space)
+    _guard_flat(d)
     notes = []
     bo = brieskorn_orientation(d.space)
+    M = d.space.normal_form()
     reps_by_cs: dict[Fraction, list] = {}
-    if bo is not None:
-        a, s = bo
-        for eps, l in irreducible_representations(a):
-            cs = (s * fintushel_stern_cs(a, l)) % 1
-            reps_by_cs.setdefault(cs, []).append((eps, l))
-        notes.append(f"M = {'-' if s < 0 else ''}Sigma{a}; irreducible classes from Fintushel-Stern rotation numbers")
+    if len(M.fibers) == 3:
+        # every SU(2) class with its own rotation numbers and CS value (CONVENTIONS §12)
+        for ch in irreducible_characters(M):
+            if ch.real_form == "SU(2)":
+                reps_by_cs.setdefault(ch.cs, []).append((ch.eps, ch.rotation))
+        if bo is not None:
+            notes.append(f"M = {'-' if bo[1] < 0 else ''}Sigma{bo[0]}; rotation numbers l_j refer to the normal form {M}")
+        else:
+            notes.append(f"rotation numbers l_j refer to the normal form {M}")
     elif len(d.space.exceptional_orders) > 3:
         notes.append("more than three exceptional fibres: irreducible connections form families of dimension"
                      f" {2 * (len(d.space.exceptional_orders) - 3)}; listed by their CS values (sectors)")
     conns = []
-    seen_abelian: dict[Fraction, int] = {}
     for c in contributions(d):
         if c.kind == "abelian":
             r2 = abs(d.H) - c.r
             if r2 < c.r:
                 continue          # merged with its partner r' = |H| - r
         amp, p = _amplitude(d, c)
-        mult = 1
-        rot: tuple = ()
         if c.kind == "abelian":
             mult = 2 if abs(d.H) - c.r != c.r else 1
             amp = amp * mult
-        if c.kind == "irreducible" and c.cs in reps_by_cs:
-            rot = tuple(reps_by_cs[c.cs])
-            mult = len(rot)
         with mpmath.workdps(20):
             ph = mpmath.arg(amp) / (2 * mpmath.pi) if amp != 0 else mpmath.mpf(0)
-            conns.append(FlatConnection(c.kind, c.cs, mult, rot, p, amp, abs(amp) ** 2, ph))
-    if bo is not None:
-        missing = set(reps_by_cs) - {c.cs for c in conns if c.kind == "irreducible"}
-        if missing:  # pragma: no cover - would signal a mismatch of the two routes
-            notes.append(f"representations with cs {sorted(map(str, missing))} have no residue sector")
+            if c.kind == "irreducible" and c.cs in reps_by_cs:
+                # one row per connection: its own rotation numbers and torsion
+                for eps, l in reps_by_cs.pop(c.cs):
+                    tau = irreducible_torsion(M, eps, l, 20)
+                    conns.append(FlatConnection(c.kind, c.cs, 1, ((eps, l),), p, amp, mpmath.mpf(tau), ph))
+                continue
+            mult = 1 if c.kind != "abelian" else (2 if abs(d.H) - c.r != c.r else 1)
+            conns.append(FlatConnection(c.kind, c.cs, mult, (), p, amp, abs(amp) ** 2, ph))
+    if reps_by_cs:  # pragma: no cover - would signal a mismatch of the two routes
+        notes.append(f"representations with cs {sorted(map(str, reps_by_cs))} have no residue sector")
     ser = ohtsuki_series(d, ohtsuki_order)
     casson = None
     if abs(d.H) == 1:

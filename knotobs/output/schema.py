@@ -25,7 +25,7 @@ dependency.  The documents:
     ``knotobs loop --level`` and ``knotobs space --level``: the exact cyclotomic value with
     the root of unity it is written in, the numeric value with checked digits, framing,
     orientation and normalisation.
-``flat-connections``, ``continued-value``
+``flat-connections``, ``flat-sl2c-connections``, ``continued-value``
     ``knotobs flat --json`` (connections with exact CS values mod 1, Casson invariant,
     Ohtsuki coefficients as exact strings) and ``knotobs continue --json``.
 """
@@ -143,6 +143,24 @@ SCHEMAS: dict[str, dict] = {
             "ohtsuki": {"type": "array", "items": _STR},
         },
         "required": ["connections", "casson", "ohtsuki"],
+    },
+    "flat-sl2c-connections": {
+        "$id": "knotobs/flat-sl2c-connections/1",
+        "type": "object",
+        "properties": {
+            "space": _STR,
+            "group": _STR,
+            "counts": {"type": "object"},
+            "connections": {"type": "array", "items": {
+                "type": "object",
+                "properties": {"kind": _STR, "real_form": _STR, "cs": {"type": "string", "description": "exact fraction mod 1"},
+                               "rotation_numbers": {"type": "array", "items": _INT}, "dimension": _INT,
+                               "angles": {"type": "array", "items": _STR},
+                               "torsion": {"type": ["string", "null"]}},
+                "required": ["kind", "real_form", "cs", "rotation_numbers", "dimension", "torsion"],
+            }},
+        },
+        "required": ["space", "group", "counts", "connections"],
     },
     "continued-value": {
         "$id": "knotobs/continued-value/1",

@@ -51,7 +51,9 @@ def test_sl2c_sum_is_real_on_the_unitary_line_and_conjugation_symmetric():
     z = sl2c_partition_function("Sigma(2,3,7)", "9+1.5i,9-1.5i", digits=20)
     assert not z.notes
     assert abs(z.numeric.imag) < 1e-18 and z.numeric.real > 0
-    direct = sum(abs(h) ** 2 for h, _ in z.sectors.values())
+    # every sector, the non-unitary (SL(2,R)) connection at -1/168 included (issue 10; GMP arXiv:1605.07615)
+    assert list(z.nonunitary) == [Fraction(167, 168)]
+    direct = sum(abs(h) ** 2 for h, _ in list(z.sectors.values()) + list(z.nonunitary.values()))
     assert abs(z.numeric - direct) < 1e-15
     t, tt = mpmath.mpc(8, 1), mpmath.mpc(11, -0.5)
     a = sl2c_partition_function("Sigma(2,3,5)", (t, tt), digits=20).numeric

@@ -147,7 +147,10 @@ def test_fintushel_stern_cs_matches_residue_sectors(a):
     # Fintushel-Stern cs = -e^2/(4 a1 a2 a3), e = sum l_j A/a_j (formula quoted from memory,
     # FS 1990 §2) against the Lawrence-Rozansky residue sectors (an independent route)
     reps = irreducible_representations(a)
-    fs = sorted({fintushel_stern_cs(a, l) for _, l in reps})
+    # rotation numbers of the normal form, written in the presentation without b first
+    from knotobs.flat.chern_simons import rotation_numbers_without_b
+    M = parse_space("Sigma(%d,%d,%d)" % a).normal_form()
+    fs = sorted({fintushel_stern_cs(a, rotation_numbers_without_b(M, e, l)) for e, l in reps})
     lr = sorted({c.cs for c in contributions("Sigma(%d,%d,%d)" % a) if c.kind == "irreducible"})
     assert fs == lr
 

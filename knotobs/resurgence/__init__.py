@@ -1,0 +1,1 @@
+"""Resurgence of the trivial-connection series of Seifert manifolds: Borel plane, singularities, Stokes constants, resummation."""
