@@ -61,19 +61,30 @@ def local_mp(dps: int) -> "mpmath.ctx_mp.MPContext":
 
 
 @contextmanager
-def working_precision(dps: int) -> Iterator[None]:
-    """Set mpmath's and python-flint's global precision to ``dps`` digits, under the lock.
+def working_precision(dps: int | None = None, *, bits: int | None = None) -> Iterator[None]:
+    """Set mpmath's and python-flint's global precision to ``dps`` digits (or ``bits`` bits), under the lock.
 
     Re-entrant: nested blocks in the same thread work and restore the outer precision.
+
+    >>> from flint import ctx
+    >>> with working_precision(bits=200):
+    ...     ctx.prec
+    200
     """
     from flint import ctx as flint_ctx
 
+    if (dps is None) == (bits is None):
+        raise TypeError("give exactly one of dps and bits")
     with NUMERIC_LOCK:
         old_mp = mpmath.mp.prec
         old_fl = flint_ctx.prec
         try:
-            mpmath.mp.dps = int(dps)
-            flint_ctx.dps = int(dps)
+            if bits is not None:
+                mpmath.mp.prec = int(bits)
+                flint_ctx.prec = int(bits)
+            else:
+                mpmath.mp.dps = int(dps)
+                flint_ctx.dps = int(dps)
             yield
         finally:
             mpmath.mp.prec = old_mp

@@ -56,6 +56,7 @@ from knotobs.fibrations.seifert import SeifertManifold, parse_space
 from knotobs.flat.characters import irreducible_characters
 from knotobs.flat.chern_simons import fintushel_stern_cs  # noqa: F401  (re-exported)
 from knotobs.flat.torsion import irreducible_torsion
+from knotobs.numerics import working_precision
 
 __all__ = [
     "FlatConnection",
@@ -251,9 +252,7 @@ class FlatTable:
 
 def _amplitude(d: LRData, c: Contribution) -> tuple[mpmath.mpc, Fraction]:
     """Leading ``A`` and power ``p``: ``Z_alpha ~ e^{2 pi i K cs} q^{-phi/4} A K^p``."""
-    old = ctx.prec
-    try:
-        ctx.prec = 200
+    with working_precision(bits=200):
         if c.kind == "irreducible":
             # A(K) is a Laurent polynomial in K of degree <= deg (pole orders): solve for its
             # coefficients from values at integer K (where the group is one sector)
@@ -267,7 +266,7 @@ def _amplitude(d: LRData, c: Contribution) -> tuple[mpmath.mpc, Fraction]:
                 v = v / (acb(0, 2) * arb.pi() * Ka * (c.cs.numerator) / c.cs.denominator).exp()
                 v = v * (acb(0, 1) * arb.pi() * acb(d.phi.numerator) / d.phi.denominator / (2 * Ka)).exp()
                 vals.append(to_mpc(v, 50))
-            with mpmath.workdps(50):
+            with working_precision(50):
                 A = mpmath.matrix([[mpmath.mpf(K) ** (e - 1) for e in range(npts)] for K in Ks])
                 coef = mpmath.lu_solve(A, mpmath.matrix(vals))
                 scale = max(abs(x) for x in coef)
@@ -279,8 +278,6 @@ def _amplitude(d: LRData, c: Contribution) -> tuple[mpmath.mpc, Fraction]:
         j, w = terms[0]
         B0 = _B(d, acb(10) ** 30)   # K-independent part of B (q^(-phi/4) -> 1)
         return to_mpc(B0 * w, 15), Fraction(-(2 * j + 1), 2)
-    finally:
-        ctx.prec = old
 
 
 def _guard_flat(d: LRData) -> None:
@@ -354,7 +351,7 @@ def flat_connections(space, ohtsuki_order: int = 6) -> FlatTable:
         if c.kind == "abelian":
             mult = 2 if abs(d.H) - c.r != c.r else 1
             amp = amp * mult
-        with mpmath.workdps(20):
+        with working_precision(20):
             ph = mpmath.arg(amp) / (2 * mpmath.pi) if amp != 0 else mpmath.mpf(0)
             if c.kind == "irreducible" and c.cs in reps_by_cs:
                 # one row per connection: its own rotation numbers and torsion

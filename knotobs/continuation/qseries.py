@@ -94,6 +94,7 @@ import mpmath
 from knotobs.continuation._num import parse_complex
 from knotobs.errors import InvalidSeifertDataError, SizeLimitError
 from knotobs.polynomials.laurent import Laurent
+from knotobs.numerics import working_precision
 
 __all__ = [
     "hikami_character",
@@ -171,7 +172,7 @@ def poincare_false_theta(q, digits: int = 30) -> mpmath.mpc:
     Lawrence & Zagier, Asian J. Math. 3 (1999) 93–107.
     """
     qv = parse_complex(q, "q")
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         r = abs(qv)
         if r >= 1:
             raise SizeLimitError(f"|q| = {mpmath.nstr(r, 8)}: the q-series converges only for |q| < 1")
@@ -191,7 +192,7 @@ def poincare_false_theta(q, digits: int = 30) -> mpmath.mpc:
             n += 1
             if n > 10**7:
                 raise SizeLimitError("|q| too close to 1 for direct summation; use the radial limit")
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +total
 
 
@@ -210,14 +211,14 @@ def poincare_radial_limit(K: int, digits: int = 30) -> mpmath.mpc:
     if not isinstance(K, int) or K < 1:
         raise SizeLimitError(f"K = {K!r} must be a positive integer")
     M = 60 * K
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         s = mpmath.mpc(0)
         for n in range(1, M + 1):
             c = _CHI.get(n % 60, 0)
             if c:
                 s += n * c * mpmath.expjpi(mpmath.mpf((n * n - 1) // 120 % K * 2) / K)
         res = -s / M
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +res
 
 
@@ -231,10 +232,10 @@ def tau_from_radial_limit(K: int, digits: int = 30) -> mpmath.mpc:
     True
     """
     L = poincare_radial_limit(K, digits + 5)
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         xi = mpmath.expjpi(mpmath.mpf(2) / K)
         res = (L / 2 - 1) / (xi * (1 - xi))
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +res
 
 
@@ -402,7 +403,7 @@ def brieskorn_false_theta(p, q_or_tau=None, order: int | None = None, *, variabl
     if not isinstance(digits, int) or digits < 1 or digits > 1000:
         raise SizeLimitError(f"digits = {digits!r} must be an integer between 1 and 1000")
     v = parse_complex(q_or_tau, variable)
-    with mpmath.workdps(digits + 15):
+    with working_precision(digits + 15):
         if variable == "tau":
             if v.imag <= 0:
                 raise SizeLimitError(f"tau = {mpmath.nstr(v, 8)}: need Im tau > 0")
@@ -428,13 +429,13 @@ def brieskorn_false_theta(p, q_or_tau=None, order: int | None = None, *, variabl
             j += 1
             if j * len(sup) > 10**7:
                 raise SizeLimitError("|q| too close to 1 for direct summation; use brieskorn_radial_limit")
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +total
 
 
 def _radial(d: BrieskornData, K: int, dps: int, sign: int = 1) -> mpmath.mpc:
     P4 = 4 * d.P
-    with mpmath.workdps(dps):
+    with working_precision(dps):
         s = mpmath.mpc(0)
         for j in range(K):
             for r, c in _support(d):
@@ -469,10 +470,10 @@ def brieskorn_radial_limit(p, K: int, digits: int = 30) -> mpmath.mpc:
 def _checked(f, digits: int) -> mpmath.mpc:
     a = f(digits + 10)
     b = f(digits + 20)
-    with mpmath.workdps(digits + 20):
+    with working_precision(digits + 20):
         if abs(a - b) > mpmath.mpf(10) ** (-digits) * max(1, abs(b)):  # pragma: no cover
             raise SizeLimitError(f"value not stable to {digits} digits")
-    with mpmath.workdps(digits):
+    with working_precision(digits):
         return +b
 
 
@@ -559,7 +560,7 @@ def tau_from_q_series(p, K: int, digits: int = 30) -> mpmath.mpc:
         raise SizeLimitError(f"K = {K!r} must be an integer between 2 and 10^5 (K = k + 2)")
 
     def f(dps):
-        with mpmath.workdps(dps):
+        with working_precision(dps):
             L = _radial(d, K, dps, d.H)
             E0 = sum((c * mpmath.expjpi(mpmath.mpf(2 * d.H * (k % K)) / K) for k, c in d.end_terms.items()),
                      mpmath.mpc(0))

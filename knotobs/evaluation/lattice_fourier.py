@@ -47,6 +47,7 @@ from typing import Sequence
 
 import numpy as np
 from flint import acb, acb_mat, arb, ctx
+from knotobs.numerics import working_precision
 
 __all__ = ["WeightLatticeFourier", "smith_normal_form", "DENSE_AXIS_MAX"]
 
@@ -132,13 +133,9 @@ def _perm_sign(p: Sequence[int]) -> int:
 @lru_cache(maxsize=64)
 def _twiddle(d: int, prec: int) -> acb_mat:
     """``exp(-2 pi i j k/d)`` as a ``d x d`` ball matrix at ``prec`` bits."""
-    old = ctx.prec
-    ctx.prec = prec
-    try:
+    with working_precision(bits=prec):
         roots = [acb(arb(-2 * e) / d).exp_pi_i() for e in range(d)]
         return acb_mat(d, d, [roots[(j * k) % d] for j in range(d) for k in range(d)])
-    finally:
-        ctx.prec = old
 
 
 def _largest_prime_factor(d: int) -> int:
@@ -269,9 +266,7 @@ class WeightLatticeFourier:
         if prec in cache:
             return cache[prec]
         d = self.shape[-1]
-        old = ctx.prec
-        ctx.prec = prec
-        try:
+        with working_precision(bits=prec):
             roots = [acb(arb(-2 * e) / d).exp_pi_i() for e in range(d)]
             groups: dict[int, list[tuple[int, int]]] = {}
             for lam, flat in enumerate(self.out_index.tolist()):
@@ -281,8 +276,6 @@ class WeightLatticeFourier:
                 rows = [lam for lam, _ in pts]
                 T = acb_mat(len(pts), d, [roots[(kk * x) % d] for _, kk in pts for x in range(d)])
                 lines[line] = (rows, T)
-        finally:
-            ctx.prec = old
         cache.clear()
         cache[prec] = lines
         return lines

@@ -45,6 +45,7 @@ from knotobs.polynomials.cyclotomic import (
     CyclotomicSurd,
 )
 from knotobs.representations.partitions import Partition, as_partition, kappa
+from knotobs.numerics import working_precision
 
 __all__ = [
     "parse_group",
@@ -378,7 +379,7 @@ class ModularData:
     def S_mpmath(self, dps: int = 30) -> mpmath.matrix:
         """``S`` as an mpmath matrix at ``dps`` digits (from the exact entries)."""
         n = self.size
-        with mpmath.workdps(dps):
+        with working_precision(dps):
             s0 = self.s0().to_mpc(dps)
             A = mpmath.matrix(n, n)
             for i in range(n):

@@ -54,6 +54,7 @@ from knotobs.polynomials.cyclotomic import (
     CyclotomicSurd,
 )
 from knotobs.representations.partitions import Partition
+from knotobs.numerics import working_precision
 
 __all__ = [
     "negative_continued_fraction",
@@ -615,7 +616,7 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
     pres = SurgeryPresentation.from_coefficients(e0, pq)
     value, numeric = _evaluate(md, pres, {}, [], digits, exact, genus)
     if route == "both":
-        with mpmath.workdps(digits + 5):
+        with working_precision(digits + 5):
             if abs(gs.numeric - numeric) > mpmath.mpf(10) ** (3 - digits) * max(1, abs(numeric)):
                 raise KnotobsError(  # pragma: no cover - would be a bug
                     f"surgery and Gauss-sum routes disagree at level {md.k}: {numeric} vs {gs.numeric}"
@@ -728,7 +729,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
                 f"Z(M) vanishes at level {md.k}; the normalised Wilson loop is undefined: ask for Z(M; L)"
                 " itself (normalized=False; knotobs loop --raw)"
             )
-    with mpmath.workdps(digits + 10):
+    with working_precision(digits + 10):
         phase = mpmath.expjpi(2 * mpmath.mpf(shift.numerator) / shift.denominator)
         if normalized:
             numeric = num_L / num_0 * phase
@@ -740,7 +741,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
         value = (val_L / val_0 if normalized else val_L) * ph
         numeric = value.to_mpc(digits)
     else:
-        with mpmath.workdps(digits):
+        with working_precision(digits):
             numeric = +numeric
     fr_text = ("0-framing of the surgery-diagram meridian (regular fibers: fiber framing);"
                f" self-linking in M: {[str(f) for f in framings]}") if framing == "fiber" \
