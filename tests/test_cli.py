@@ -50,7 +50,7 @@ def test_loop_text_output():
     assert "T(2,3)" in lines[0] and "SU(2)" in lines[0]
     # Jones (1987): V(t) = t + t^3 - t^4 at t = q^-1
     assert "-q^-4 + q^-3 + q^-1" in text
-    for label in ("variables:", "framing:", "normalisation:", "chirality:"):
+    for label in ("variables:", "framing:", "normalization:", "chirality:"):
         assert label in text
     assert "zero (Seifert) framing" in text
 
@@ -61,7 +61,7 @@ def test_loop_json_trefoil_is_jones():
     assert sympy.simplify(parse(out) - (q**-1 + q**-3 - q**-4)) == 0  # Jones (1987), t = 1/q
     assert out["inputs"] == {"knot": "T(2,3)", "group": "SU(2)", "rep": [[1]], "framing": [0], "normalized": True}
     assert out["profile"]["framing"] == [0]
-    assert out["profile"]["normalisation"].startswith("normalised")
+    assert out["profile"]["normalisation"].startswith("normalized")
     assert out["knot"] == "T(2,3)" and out["group"] == "SU(2)"
 
 

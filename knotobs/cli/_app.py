@@ -34,9 +34,12 @@ def handle_errors(func: Callable[..., Any]) -> Callable[..., Any]:
     return wrapper
 
 
-def emit(payload: dict, text: str, as_json: bool) -> None:
-    """Print either the JSON object or the human-readable text."""
+def emit(payload, text, as_json: bool) -> None:
+    """Print either the JSON object or the human-readable text.
+
+    ``payload`` and ``text`` may be callables: only the form asked for is built.
+    """
     if as_json:
-        sys.stdout.write(json.dumps(payload, indent=2, sort_keys=False) + "\n")
+        sys.stdout.write(json.dumps(payload() if callable(payload) else payload, indent=2, sort_keys=False) + "\n")
     else:
-        typer.echo(text)
+        typer.echo(text() if callable(text) else text)

@@ -4,10 +4,10 @@ from __future__ import annotations
 
 from typing import Optional
 
-import mpmath
 import typer
 
 from knotobs.cli._app import app, emit, handle_errors
+from knotobs.cli._options import framing as _framing, refuse, renamed, rep_or_color, rep_text
 from knotobs.errors import ParseError
 
 
@@ -15,7 +15,7 @@ from knotobs.errors import ParseError
 @handle_errors
 def flat(
     space: str = typer.Argument(..., help="Seifert rational homology sphere, e.g. Sigma(2,3,7), L(5,1), M(0; -1; (2,1), (3,1), (5,1))."),
-    order: int = typer.Option(6, "--order", help="Highest power of (q - 1) in the Ohtsuki series."),
+    order: Optional[int] = typer.Option(None, "--order", help="SU(2): highest power of (q - 1) in the Ohtsuki series (default 6)."),
     group: str = typer.Option("SU(2)", "--group", "-g", help="SU(2), or SU(N) on lens spaces."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
@@ -24,107 +24,149 @@ def flat(
 
     g = parse_group(group)
     if g.kind != "SU":
-        raise ParseError(f"flat connections are computed for SU(N); got {g}")
+        refuse("--group", f"{g}: flat connections are computed for SU(N)")
     if g.N == 2:
         from knotobs.continuation.flat import flat_connections
+        from knotobs.output.continuation_text import flat_text
 
-        t = flat_connections(space, ohtsuki_order=order)
-        emit(t.to_json(), t.text(), as_json)
+        t = flat_connections(space, ohtsuki_order=6 if order is None else order)
+        emit(t.to_json, lambda: flat_text(t), as_json)
         return
+    if order is not None:
+        refuse("--order", f"the Ohtsuki series is computed for SU(2), not {g}")
     from knotobs.continuation.flat_sun import lens_flat_connections
+    from knotobs.output.continuation_text import flat_sun_json, flat_sun_text
 
     conns = lens_flat_connections(space, g.N)
-    payload = {"space": space, "group": str(g), "connections": [c.to_json() for c in conns],
-               "casson": None, "ohtsuki": [],
-               "notes": ["SU(N), N > 2: lens spaces only; cs = (q*/2p) sum x_i^2 mod 1 (module docstring)"]}
-    lines = [f"flat {g} connections on {space}   ({len(conns)} classes)",
-             f"{'kind':10s} {'cs mod 1':>10s} {'K^p':>6s}  holonomy exponents (mod p)"]
-    for c in conns:
-        lines.append(f"{c.kind:10s} {str(c.cs):>10s} {str(c.K_power):>6s}  {list(c.holonomy)}")
-    emit(payload, "\n".join(lines), as_json)
+    emit(lambda: flat_sun_json(space, g, conns), lambda: flat_sun_text(space, g, conns), as_json)
 
 
 @app.command("continue")
 @handle_errors
 def continue_(
     target: str = typer.Argument(..., help="A Seifert space (Sigma(2,3,5), L(7,2), ...) or, with --couplings, a torus knot T(p,q)."),
-    level: Optional[str] = typer.Option(None, "--level", help="Complex level k, e.g. 7.5+0.3i (K = k + 2)."),
+    level: Optional[str] = typer.Option(None, "--level", "-k", help="Complex level k, e.g. 7.5+0.3i (K = k + 2)."),
     K: Optional[str] = typer.Option(None, "--K", help="Complex shifted level K instead of --level."),
-    couplings: Optional[str] = typer.Option(None, "--couplings", help="SL(N,C) couplings t,tt, e.g. 10+2i,10-2i (torus knots)."),
-    rep: str = typer.Option("[1];[]", "--rep", help="SL(N,C) representation [lam];[lamt] (with --couplings)."),
-    N: int = typer.Option(2, "--N", help="Rank N of SL(N,C) (with --couplings)."),
-    digits: int = typer.Option(30, "--digits", help="Correct digits."),
-    phases: str = typer.Option("reduced", "--phases", help="reduced (CS values mod 1 in (-1/2,1/2]; smallest growth) or lawrence-rozansky."),
+    couplings: Optional[str] = typer.Option(None, "--couplings", help="SL(N,C) couplings t,tt, e.g. 10+2i,10-2i."),
+    group: Optional[str] = typer.Option(None, "--group", "-g", help="SU(2) at complex level; SL(N,C) with --couplings (default SL(2,C))."),
+    rep: Optional[str] = typer.Option(None, "--rep", "-r", help="With --couplings and a knot: [lam];[lamt] (default [1];[])."),
+    digits: int = typer.Option(30, "--digits", "-d", help="Correct digits."),
+    phases: Optional[str] = typer.Option(None, "--phases", help="Complex level: reduced (default; CS values in (-1/2,1/2]) or lawrence-rozansky."),
+    old_N: Optional[int] = typer.Option(None, "--N", hidden=True),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Values at complex level (Seifert partition functions) or at SL(N,C) couplings (torus knots)."""
-    if couplings is not None and not target.strip().upper().startswith("T("):
-        from knotobs.continuation.complex import sl2c_partition_function
-
-        res = sl2c_partition_function(target, couplings, digits=digits)
-        js = res.to_json()
-        text = (f"SL(2,C) partition function of {target} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
-                f"  value = {mpmath.nstr(res.numeric, digits)}\n  sum over flat-connection sectors: {js['variables']}")
-        for cs, (h, _a) in sorted(res.sectors.items()):
-            text += f"\n    cs = {str(cs):>10s}  holomorphic block = {mpmath.nstr(h, min(digits, 12))}"
-        for n in res.notes:
-            text += f"\n  note: {n}"
-        emit(js, text, as_json)
-        return
+    if old_N is not None:
+        renamed("--N", "--group", f"--group 'SL({old_N},C)'")
+    is_knot = target.strip().upper().startswith("T(")
     if couplings is not None:
+        for opt, val in (("--level", level), ("--K", K), ("--phases", phases)):
+            if val is not None:
+                refuse(opt, "does not apply with --couplings (the couplings t, tt set both levels)")
+        import re
+
+        gname = (group or "SL(2,C)").replace(" ", "").upper()
+        m = re.fullmatch(r"SL\((\d+),C\)", gname)
+        if not m:
+            refuse("--group", f"{group}: with --couplings the group is SL(N,C), e.g. 'SL(3,C)'")
+        N = int(m.group(1))
+        from knotobs.output.continuation_text import sector_text, sl_text
+
+        if not is_knot:
+            if rep is not None:
+                refuse("--rep", "colors a knot; the partition function of a space has no Wilson line")
+            if N != 2:
+                refuse("--group", f"{group}: the sector sum over flat connections is computed for SL(2,C)")
+            from knotobs.continuation.complex import sl2c_partition_function
+
+            res = sl2c_partition_function(target, couplings, digits=digits)
+            emit(res.to_json, lambda: sector_text(res, target), as_json)
+            return
         from knotobs.continuation.complex import sl_wilson_loop
 
-        res = sl_wilson_loop(target, rep, couplings, N=N, digits=digits)
-        js = res.to_json()
-        text = (f"SL({N},C) Wilson loop of {target} in {rep} at (t, tt) = ({mpmath.nstr(res.t, 10)}, {mpmath.nstr(res.tt, 10)})\n"
-                f"  value = {mpmath.nstr(res.numeric, digits)}\n  variables: {js['variables']}")
-        for n in res.notes:
-            text += f"\n  note: {n}"
-        emit(js, text, as_json)
+        r = rep or "[1];[]"
+        res = sl_wilson_loop(target, r, couplings, N=N, digits=digits)
+        emit(res.to_json, lambda: sl_text(res, target, r, N), as_json)
         return
+    if rep is not None:
+        refuse("--rep", "needs --couplings and a knot: the continued partition function has no Wilson line")
+    if group is not None and group.replace(" ", "").upper() != "SU(2)":
+        refuse("--group", f"{group}: the continuation in the level is computed for SU(2)"
+                          " (SL(N,C) Wilson loops: --couplings t,tt)")
+    if is_knot:
+        raise ParseError(f"{target} is a knot: give --couplings t,tt for its SL(N,C) Wilson loop, or a space")
     if level is None and K is None:
         raise ParseError("give --level k (complex, e.g. 7.5+0.3i), --K, or --couplings t,tt")
+    if level is not None and K is not None:
+        refuse("--K", "give the level once: --level k or --K (= k + 2)")
     from knotobs.continuation.level import continued_partition_function
+    from knotobs.output.continuation_text import continued_text
 
-    res = continued_partition_function(target, level, K=K, digits=digits, phases=phases)
-    text = (f"Z({res.space}) at K = {mpmath.nstr(res.K, 12)} (level k = K - 2)\n"
-            f"  value = {mpmath.nstr(res.numeric, digits)}\n  normalisation: Z(S^3) = S_11, canonical 2-framing\n"
-            f"  continuation: Lawrence-Rozansky integral + residues, phases {phases}")
-    for n in res.notes:
-        text += f"\n  note: {n}"
-    emit(res.to_json(), text, as_json)
+    ph = phases or "reduced"
+    res = continued_partition_function(target, level, K=K, digits=digits, phases=ph)
+    emit(res.to_json, lambda: continued_text(res, ph), as_json)
+
+
+_PLOT_KINDS = ("level-plane", "asymptotics", "zeros", "wilson-level")
+#: options of ``plot`` and the kinds they apply to
+_PLOT_OPTIONS = {"--re": ("level-plane",), "--im": ("level-plane",), "--n": ("level-plane",),
+                 "--progress": ("level-plane",), "--kmax": ("asymptotics", "wilson-level"),
+                 "--color": ("zeros", "wilson-level"), "--rep": ("wilson-level",), "--group": ("wilson-level",),
+                 "--framing": ("wilson-level",), "--normalized": ("wilson-level",)}
 
 
 @app.command()
 @handle_errors
 def plot(
-    kind: str = typer.Argument(..., help="level-plane, asymptotics or zeros."),
-    target: str = typer.Argument(..., help="Seifert space (level-plane, asymptotics) or torus knot (zeros)."),
-    out: str = typer.Option(..., "--out", "-o", help="Output file (.png, .svg or .pdf)."),
-    re_range: str = typer.Option("3,12", "--re", help="level-plane: range of Re K, e.g. 3,12."),
-    im_range: str = typer.Option("-1,1", "--im", help="level-plane: range of Im K."),
-    n: int = typer.Option(30, "--n", help="level-plane: grid points per axis."),
-    kmax: int = typer.Option(500, "--kmax", help="asymptotics: largest K."),
-    color: Optional[int] = typer.Option(None, "--color", help="zeros: colour of the coloured Jones polynomial."),
+    kind: str = typer.Argument(..., help="level-plane, asymptotics, zeros or wilson-level."),
+    target: str = typer.Argument(..., help="Seifert space (level-plane, asymptotics) or torus knot (zeros, wilson-level)."),
+    output: Optional[str] = typer.Option(None, "--output", "-o", help="Figure file (.png, .svg or .pdf); optional with --json."),
+    re_range: Optional[str] = typer.Option(None, "--re", help="level-plane: range of Re K (default 3,12)."),
+    im_range: Optional[str] = typer.Option(None, "--im", help="level-plane: range of Im K (default -1,1)."),
+    n: Optional[int] = typer.Option(None, "--n", help="level-plane: grid points per axis (default 24, drawn smoothly)."),
+    kmax: Optional[int] = typer.Option(None, "--kmax", help="asymptotics: largest K (default 200); wilson-level: largest k (default 40)."),
+    color: Optional[int] = typer.Option(None, "--color", "-c", help="zeros: colored Jones J_n; wilson-level: SU(2) n-dimensional irrep."),
+    rep: Optional[str] = typer.Option(None, "--rep", "-r", help="wilson-level: partition (default [1])."),
+    group: Optional[str] = typer.Option(None, "--group", "-g", help="wilson-level: SU(N) (default SU(2))."),
+    framing: Optional[str] = typer.Option(None, "--framing", "-f", help="wilson-level: integer framing (default 0) or fiber."),
+    normalized: Optional[bool] = typer.Option(None, "--normalized/--unnormalized", help="wilson-level: divide by the unknot (default unnormalized)."),
+    progress: Optional[bool] = typer.Option(None, "--progress/--no-progress", help="level-plane: progress bar on stderr (default: when it is a terminal)."),
+    old_out: Optional[str] = typer.Option(None, "--out", hidden=True),
+    as_json: bool = typer.Option(False, "--json", help="Print the figure's data as one JSON object."),
 ) -> None:
-    """Figures: |Z| and arg Z over the complex K plane, exact vs asymptotic, zeros of a polynomial."""
-    from knotobs.continuation import plots
+    """Figures: |Z| and arg Z over the complex K plane, exact vs asymptotic, zeros, Wilson loop vs level."""
+    if old_out is not None:
+        renamed("--out", "--output/-o", f"-o {old_out}")
+    k = kind.lower()
+    if k not in _PLOT_KINDS:
+        raise ParseError(f"unknown plot {kind!r}: use {', '.join(_PLOT_KINDS)}")
+    given = {"--re": re_range, "--im": im_range, "--n": n, "--progress": progress, "--kmax": kmax, "--color": color,
+             "--rep": rep, "--group": group, "--framing": framing, "--normalized": normalized}
+    for opt, val in given.items():
+        if val is not None and k not in _PLOT_OPTIONS[opt]:
+            refuse(opt, f"does not apply to plot {k} (it applies to {', '.join(_PLOT_OPTIONS[opt])})")
+    if output is None and not as_json:
+        raise ParseError("give the figure file: --output figure.png (or --json for the data only)")
+    from knotobs.output import plots
 
-    def rng(s: str):
+    def rng(s: str, opt: str):
         try:
             a, b = (float(x) for x in s.split(","))
         except ValueError:
-            raise ParseError(f"cannot read range {s!r}: write two numbers a,b") from None
+            raise ParseError(f"{opt} {s!r}: write two numbers a,b") from None
         return a, b
 
-    k = kind.lower()
     if k == "level-plane":
-        p = plots.plot_level_plane(target, out, rng(re_range), rng(im_range), n=n)
+        fig = plots.plot_level_plane(target, output, rng(re_range or "3,12", "--re"), rng(im_range or "-1,1", "--im"),
+                                     n=24 if n is None else n, progress=progress)
     elif k == "asymptotics":
-        Ks = sorted(set(list(range(10, min(kmax, 100) + 1, 5)) + list(range(100, kmax + 1, 25))))
-        p = plots.plot_asymptotics(target, out, Ks=Ks)
+        fig = plots.plot_asymptotics(target, output, kmax=200 if kmax is None else kmax)
     elif k == "zeros":
-        p = plots.plot_zeros(target, out, family="colored-jones" if color else "jones", color=color)
+        fig = plots.plot_zeros(target, output, family="colored-jones" if color else "jones", color=color)
     else:
-        raise ParseError(f"unknown plot {kind!r}: use level-plane, asymptotics or zeros")
-    emit({"file": str(p), "kind": k}, f"wrote {p}", False)
+        fr = _framing(framing)
+        fig = plots.plot_wilson_level(target, output, group or "SU(2)", rep_or_color(rep, color),
+                                      kmax=40 if kmax is None else kmax, framing=0 if fr is None else fr,
+                                      normalized=bool(normalized))
+        fig.data["inputs"] = {"rep": rep_text(rep, color)}
+    emit(fig.to_json, lambda: f"wrote {fig.path}", as_json)

@@ -82,7 +82,7 @@ def latex_result(result) -> str:
 
     >>> from knotobs import jones
     >>> print(latex_result(jones("T(2,3)")).splitlines()[0])
-    % jones of T(2,3), SU(2); variables t (t = q^-1); normalised (unknot = 1); framing [0]
+    % jones of T(2,3), SU(2); variables t (t = q^-1); normalized (unknot = 1); framing [0]
     """
     import sympy
 

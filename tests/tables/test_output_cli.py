@@ -78,7 +78,7 @@ def test_match_cli_knotinfo():
     (["match", "T(2,3)"], "give a polynomial"),
     (["match", "knot", "--poly", "t"], "cannot read knot"),
     (["grid", "run", "--knots", "T(2,3),trefoil", "--store", "/nonexistent/x.sqlite"], "cannot read knots"),
-    (["grid", "run", "--knots", "T(2,3)", "--levels", "generic,x"], "cannot read level"),
+    (["grid", "run", "--knots", "T(2,3)", "--level", "generic,x"], "cannot read the level"),
     (["grid", "export", "--store", "/nonexistent/none.sqlite"], "does not exist"),
 ])
 def test_cli_bad_input_is_one_line(args, msg):
@@ -89,7 +89,7 @@ def test_cli_bad_input_is_one_line(args, msg):
 
 def test_grid_cli_run_resume_export(tmp_path):
     db = str(tmp_path / "g.sqlite")
-    r = runner.invoke(app, ["grid", "run", "--knots", "T(2,3),T(3,4)", "--reps", "[1];[2]", "--levels", "generic,1",
+    r = runner.invoke(app, ["grid", "run", "--knots", "T(2,3),T(3,4)", "--rep", "[1];[2]", "--level", "generic,1", "--normalized",
                             "--store", db, "--workers", "0", "--no-progress", "--json"])
     assert r.exit_code == 0, r.output
     rep = json.loads(r.stdout)
