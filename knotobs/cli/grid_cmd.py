@@ -169,6 +169,10 @@ def export(
         if fmt not in ("csv", "json"):
             refuse("--json", f"is --format json; it cannot be combined with --format {fmt}")
         fmt = "json"
+    import os
+
+    if not os.path.exists(store):
+        raise ParseError(f"--store {store!r}: the results store does not exist; run a grid first (knotobs grid run)")
     text = export_grid(store, fmt, output)
     if output is None:
         typer.echo(text, nl=False)
@@ -183,8 +187,12 @@ def status(
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Rows stored and, for every recorded grid, how many of its rows are missing."""
+    import os
+
     from knotobs.tables.grid import grid_status
 
+    if not os.path.exists(store):
+        raise ParseError(f"--store {store!r}: the results store does not exist; run a grid first (knotobs grid run)")
     st = grid_status(store)
     lines = [f"{st['store']}: {st['rows']} rows"]
     for g in st["grids"]:
