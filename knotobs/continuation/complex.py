@@ -46,6 +46,7 @@ from knotobs.continuation._num import parse_complex
 from knotobs.errors import InvalidRepresentationError, ParseError
 from knotobs.evaluation.families import wilson_loop
 from knotobs.representations.complexified import ComplexRep
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["ComplexObservable", "parse_couplings", "unitarity_note", "sl_wilson_loop",
            "SectorSum", "sl2c_partition_function"]
@@ -99,8 +100,8 @@ def _complex_json(z, digits: int) -> dict[str, str]:
     return {"re": mpmath.nstr(z.real, digits), "im": mpmath.nstr(z.imag, digits)}
 
 
-@dataclass(frozen=True)
-class ComplexObservable:
+@dataclass(frozen=True, repr=False)
+class ComplexObservable(NotebookMixin):
     """Value of an SL(N,C) Wilson loop at couplings ``(t, tt)``."""
 
     knot: str
@@ -194,8 +195,8 @@ def sl_wilson_loop(knot, rep, couplings, N: int | None = None, framing=0, normal
         return ComplexObservable(str(knot), rep, t, tt, +h, +a, +v, digits, (note,) if note else ())
 
 
-@dataclass(frozen=True)
-class SectorSum:
+@dataclass(frozen=True, repr=False)
+class SectorSum(NotebookMixin):
     """SL(2,C) partition function of a Seifert manifold as a sum over flat-connection sectors."""
 
     space: str

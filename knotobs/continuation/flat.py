@@ -53,6 +53,7 @@ from knotobs.continuation.level import LRData, _B
 from knotobs.continuation.ohtsuki import ohtsuki_series
 from knotobs.errors import InvalidSeifertDataError
 from knotobs.fibrations.seifert import SeifertManifold, parse_space
+from knotobs._notebook import NotebookMixin
 
 __all__ = [
     "FlatConnection",
@@ -219,8 +220,8 @@ class FlatConnection:
         }
 
 
-@dataclass(frozen=True)
-class FlatTable:
+@dataclass(frozen=True, repr=False)
+class FlatTable(NotebookMixin):
     """Flat connections of a Seifert rational homology sphere, with Casson and Ohtsuki data."""
 
     space: str

@@ -70,6 +70,7 @@ from knotobs.continuation._num import (
 from knotobs.errors import InvalidSeifertDataError, KnotobsError, PrecisionError
 from knotobs.fibrations.seifert import SeifertManifold, parse_space
 from knotobs.polynomials.laurent import Laurent
+from knotobs._notebook import NotebookMixin
 
 __all__ = [
     "LRData",
@@ -608,8 +609,8 @@ def sector_values(space, K, digits: int = 30, phases: str = "reduced") -> dict[F
     return out
 
 
-@dataclass(frozen=True)
-class ContinuedValue:
+@dataclass(frozen=True, repr=False)
+class ContinuedValue(NotebookMixin):
     """``Z(K)`` at a complex shifted level, with its pieces and profile.
 
     Attributes

@@ -101,7 +101,10 @@ class FiniteLevelValue:
     def _repr_latex_(self) -> str:
         from knotobs.output.notebook import cyclotomic_latex
 
-        num = mpmath.nstr(self.numeric, min(self.digits, 15))
+        d = min(self.digits, 15)
+        z = mpmath.mpc(self.numeric)
+        num = mpmath.nstr(z.real, d) if z.imag == 0 else (
+            f"{mpmath.nstr(z.real, d)} {'-' if z.imag < 0 else '+'} {mpmath.nstr(abs(z.imag), d)} i")
         if self.exact is None:
             return f"${num}$"
         n = self.exact.conductor

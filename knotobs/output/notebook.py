@@ -181,6 +181,13 @@ def to_mpmath(x, dps: int = 30):
     >>> to_mpmath(sympy.Rational(1, 2)), to_mpmath(2), to_mpmath(mpmath.mpf(3))
     (mpf('0.5'), mpf('2.0'), mpf('3.0'))
     """
+    from knotobs.numerics import working_precision
+
+    with working_precision(dps + 10):
+        return _to_mpmath(x, dps)
+
+
+def _to_mpmath(x, dps: int):
     import mpmath
 
     from knotobs.errors import ParseError

@@ -356,8 +356,10 @@ def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
                         d["profile"]["normalisation"], d["quantity"], d["version"]])
         text = buf.getvalue()
     elif f == "latex":
-        text = latex_table(GRID_HEADERS, grid_table_rows(rows), caption=f"knotobs results ({len(rows)} rows)",
-                           math_columns=[5]) + "\n"
+        from knotobs.output.latex import latex_longtable
+
+        text = latex_longtable(GRID_HEADERS, grid_table_rows(rows), caption=f"knotobs results ({len(rows)} rows)",
+                               math_columns=[5], wide_column=5) + "\n"
     else:
         text = terminal_table(GRID_HEADERS, grid_table_rows(rows), title=f"{store} ({len(rows)} rows)") + "\n"
     if out:

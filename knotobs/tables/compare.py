@@ -35,6 +35,7 @@ from knotobs.representations.groups import Group, casimir, homfly_unknot, parse_
 from knotobs.representations.partitions import kappa
 from knotobs.tables.polyparse import KNOWN_VARIABLES, parse_polynomial
 from knotobs.tables.sparse import MPoly
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["ConventionMap", "Comparison", "compare", "compare_knotinfo", "INVARIANTS"]
 
@@ -130,8 +131,8 @@ class ConventionMap:
         }
 
 
-@dataclass(frozen=True)
-class Comparison:
+@dataclass(frozen=True, repr=False)
+class Comparison(NotebookMixin):
     """Outcome of :func:`compare`.
 
     Attributes

@@ -52,6 +52,7 @@ from knotobs.fibrations.torus import TorusLink, parse_knot
 from knotobs.representations.groups import parse_group
 from knotobs.representations.partitions import as_partition
 from knotobs.tables.store import GridStore, canonical_json, description_key
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["GridSpec", "GridReport", "run_grid", "resume_grid", "grid_status", "compute_row", "torus_knots",
            "QUANTITIES", "MAX_GRID_POINTS", "observable_document"]
@@ -352,8 +353,8 @@ def compute_batch(descs: list[dict], run_id: str = "") -> list[dict]:
 # ------------------------------------------------------------------ running
 
 
-@dataclass
-class GridReport:
+@dataclass(repr=False)
+class GridReport(NotebookMixin):
     """What :func:`run_grid` did."""
 
     store: str

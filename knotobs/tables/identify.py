@@ -24,6 +24,7 @@ from knotobs.representations.partitions import partitions_of
 from knotobs.tables.compare import _colours_text
 from knotobs.tables.compare import INVARIANTS, Comparison, ConventionMap, compare, _target_mpoly
 from knotobs.tables.sparse import MPoly
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["Candidate", "Identification", "identify", "MAX_CANDIDATES"]
 
@@ -52,8 +53,8 @@ class Candidate:
                 "group": self.group, "chirality": self.chirality, "map": self.map.to_json()}
 
 
-@dataclass(frozen=True)
-class Identification:
+@dataclass(frozen=True, repr=False)
+class Identification(NotebookMixin):
     """Outcome of :func:`identify`."""
 
     target: str
