@@ -579,7 +579,7 @@ def resume_grid(store: str, workers: int = 2, progress: bool = True, scheduler: 
     with GridStore(store) as st:
         specs = st.specs()
     if not specs:
-        raise KnotobsError(f"the store {store!r} records no grid to resume; start one with run_grid / 'knotobs grid run'")
+        raise KnotobsError(f"the store {store!r} records no grid to resume; start one with 'knotobs grid run --store ...' (Python: knotobs.run_grid)")
     return [run_grid(GridSpec.from_dict(s), store, workers, progress, scheduler) for s in specs]
 
 
