@@ -266,6 +266,9 @@ def plot_asymptotics(space, out=None, Ks=None, orders=(0, 1, 2), digits=30, kmax
         if keep.any():
             K1, E1 = np.array(Ks)[keep][-1], errs[keep][-1]
             axes[2].loglog(Ks, [E1 * (K1 / k) ** e for k in Ks], "--", lw=0.8, color="gray")
+    from matplotlib.ticker import NullFormatter
+
+    axes[2].xaxis.set_minor_formatter(NullFormatter())
     axes[2].set_xlabel(r"$K$")
     axes[2].set_ylabel(r"$|Z_K - Z_K^{\mathrm{asympt}}|$")
     axes[2].set_title("error (dashed: predicted power of K)")
