@@ -90,3 +90,14 @@ def test_flat_table_continued_and_comparison_forms():
     assert abs(complex(v.to_sympy()) - complex(z.numeric)) < 1e-12     # integer level: the finite value
     assert v._repr_latex_().startswith("$") and "ContinuedValue" in repr(v)
     json.dumps(v.to_json())
+
+
+@pytest.mark.parametrize("knot,n", [("T(2,2)", 1), ("T(2,3)", 2), ("T(3,4)", 9), ("T(4,6)", 3), ("T(2,5)", 30)])
+def test_fast_text_equals_the_polynomial_printer(knot, n):
+    """The one-pass printer of the output layer prints exactly what Laurent.to_string prints
+    (rational exponents of links included)."""
+    from knotobs.output.notebook import laurent_text
+
+    r = knotobs.colored_jones(knot, n) if n > 1 else knotobs.jones(knot)
+    assert laurent_text(r.value, "t") == r.value.to_string("t")
+    assert r.exact_string() == r.value.to_string("t")

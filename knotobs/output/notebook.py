@@ -38,9 +38,13 @@ def laurent_items(p) -> Iterable[tuple[int, int, int]]:
             yield e.numerator, e.denominator, int(a)
         return
     s, d = int(c._s), int(c._d)
+    step = 1
+    if hasattr(raw, "deflation") and raw.degree() > 64:
+        raw, step = raw.deflation()       # p(y) = r(y^step): skip the zeros between exponents
+        step = int(step)
     for i, a in enumerate(raw.coeffs()):
         if a:
-            n = s + i
+            n = s + i * step
             g = gcd(n, d)
             yield n // g, d // g, int(a)
 
