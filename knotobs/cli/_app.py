@@ -17,6 +17,7 @@ app = typer.Typer(
     no_args_is_help=True,
     add_completion=False,
     pretty_exceptions_enable=False,
+    rich_markup_mode=None,   # plain help: rich's markdown stack costs ~0.3 s of start-up
 )
 
 

@@ -11,7 +11,8 @@ import typer
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError
 
-grid_app = typer.Typer(help="Grids of invariants: run (resumable), resume, export, status.", no_args_is_help=True)
+grid_app = typer.Typer(help="Grids of invariants: run (resumable), resume, export, status.", no_args_is_help=True,
+                       rich_markup_mode=None)
 app.add_typer(grid_app, name="grid")
 
 _KNOT = re.compile(r"T\s*\(\s*[-+]?\d+\s*,\s*[-+]?\d+\s*\)", re.IGNORECASE)
