@@ -66,8 +66,9 @@ def fibered_knot_json(F: FiberedKnot, inputs: dict[str, Any] | None = None) -> d
         "components": F.components,
         "fiber_framing": _fr(F.fiber_framing),
         "seifert_unnormalised": seifert_json(F.manifold),
+        "fiber_numbering": "exceptional fibers are numbered 1..n in the order of seifert_unnormalised (as --fiber)",
         "exceptional_fibers": [
-            {"index": c.index, "order": c.order, "invariant": list(c.invariant),
+            {"index": c.index + 1, "order": c.order, "invariant": list(c.invariant),
              "knot_type": c.knot_type or None, "homology_class": c.homology_class}
             for c in F.cores
         ],
