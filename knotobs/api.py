@@ -632,7 +632,15 @@ def compare(knot, target, group="SU(2)", rep=None, invariant: str = "auto", **op
 
 @_only_knotobs_errors
 def identify(target, invariant: str = "auto", group="SU(2)", **options):
-    """Which torus knots/links, colours and maps reproduce a polynomial (knotobs.tables.identify)."""
+    """Which torus knots/links, colors and maps reproduce a polynomial (knotobs.tables.identify).
+
+    >>> [c.knot for c in identify("t + t^3 - t^4", max_boxes=1).candidates][:1]
+    ['T(2,3)']
+    """
     from knotobs.tables.identify import identify as _i
 
+    if "max_boxes" in options:            # the vocabulary name (docs/interface.md); the module says max_colour
+        if "max_colour" in options:
+            raise ParseError("give max_boxes once (max_colour is its older name)")
+        options["max_colour"] = options.pop("max_boxes")
     return _i(target, invariant, str(as_group(group)), **options)
