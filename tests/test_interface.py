@@ -410,3 +410,31 @@ def test_a_failed_run_leaves_no_store(tmp_path):
     r = runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "--scheduler", "tcp://127.0.0.1:9", "--store", str(f)])
     assert r.exit_code == 2
     assert not any(tmp_path.iterdir()), list(tmp_path.iterdir())
+
+
+# ------------------------------------------------------------------ start-up
+def test_a_command_does_not_load_what_it_does_not_use():
+    """``poly`` loads neither typer's pydantic coercion, nor rich's help, nor the finite-level
+    machinery; ``--version`` loads no command line at all."""
+    import subprocess
+    import sys
+
+    code = ("import sys; sys.argv = ['knotobs', 'poly', 'T(2,3)', '--json']\n"
+            "from knotobs.__main__ import main\n"
+            "try:\n    main()\nexcept SystemExit:\n    pass\n"
+            "bad = [m for m in ('pydantic', 'rich.markdown', 'sympy', 'matplotlib', 'knotobs.evaluation.modular',"
+            " 'knotobs.evaluation.surgery', 'knotobs.tables.compare') if m in sys.modules]\n"
+            "sys.stderr.write(repr(bad))")
+    r = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True)
+    assert r.returncode == 0 and r.stderr.strip() == "[]", r.stderr
+    code = ("import sys; sys.argv = ['knotobs', '--version']\nfrom knotobs.__main__ import main\nmain()\n"
+            "sys.stderr.write(repr([m for m in ('typer', 'numpy', 'flint') if m in sys.modules]))")
+    r = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True)
+    assert r.stdout.startswith("knotobs ") and r.stderr.strip() == "[]", r.stderr
+
+
+def test_plain_option_values_are_still_checked():
+    r = runner.invoke(app, ["loop", "T(2,3)", "-k", "x"])
+    assert r.exit_code == 2 and "'x' is not a valid integer" in r.output and "--level" in r.output
+    r = runner.invoke(app, ["loop", "T(2,3)", "-k", "3", "-d", "12", "--json"])
+    assert r.exit_code == 0 and json.loads(r.stdout)["numeric"]["digits"] == 12
