@@ -4,7 +4,7 @@ Values printed are checked against outside references, not only against the libr
 the Jones polynomial of the trefoil ``t + t^3 - t^4`` (V. F. R. Jones, Ann. of Math. 126
 (1987) 335; also KnotInfo 3_1), the positive Hopf link ``-t^(1/2) - t^(5/2)`` (LinkInfo
 L2a1{1}), the HOMFLY-PT of the trefoil ``2a^-2 - a^-4 + a^-2 z^2`` (KnotInfo 3_1 with
-``v = a^-1``, CONVENTIONS §3/§8), the quantum dimension of the unknot (hook–content,
+``v = a^-1``, docs/CONVENTIONS.md §3/§8), the quantum dimension of the unknot (hook–content,
 Macdonald (1995) I.3 ex. 1), and the framing rule ``W^fiber = theta^(PQ) W^0`` (CONVENTIONS §4).
 """
 
@@ -50,7 +50,7 @@ def test_loop_text_output():
     assert "T(2,3)" in lines[0] and "SU(2)" in lines[0]
     # Jones (1987): V(t) = t + t^3 - t^4 at t = q^-1
     assert "-q^-4 + q^-3 + q^-1" in text
-    for label in ("variables:", "framing:", "normalisation:", "chirality:"):
+    for label in ("variables:", "framing:", "normalization:", "chirality:"):
         assert label in text
     assert "zero (Seifert) framing" in text
 
@@ -61,7 +61,7 @@ def test_loop_json_trefoil_is_jones():
     assert sympy.simplify(parse(out) - (q**-1 + q**-3 - q**-4)) == 0  # Jones (1987), t = 1/q
     assert out["inputs"] == {"knot": "T(2,3)", "group": "SU(2)", "rep": [[1]], "framing": [0], "normalized": True}
     assert out["profile"]["framing"] == [0]
-    assert out["profile"]["normalisation"].startswith("normalised")
+    assert out["profile"]["normalisation"].startswith("normalized")
     assert out["knot"] == "T(2,3)" and out["group"] == "SU(2)"
 
 

@@ -12,6 +12,9 @@ import sys
 import typer
 
 from knotobs.cli._app import app
+from knotobs.cli._fastparams import install as _install_fast_params
+
+_install_fast_params()  # plain option values without typer's pydantic layer (start-up)
 
 # Importing the command modules registers their commands on ``app``.
 from knotobs.cli import loop_cmd as _loop_cmd  # noqa: F401,E402

@@ -16,7 +16,7 @@ def borel(
     space: str = typer.Argument(..., help="Seifert rational homology sphere with pairwise coprime orders, e.g. Sigma(2,3,7)."),
     order: int = typer.Option(40, "--order", help="Highest power of h in the exact series (number of coefficients - 1)."),
     count: int = typer.Option(4, "--count", help="Number of predicted singularities, nearest first."),
-    digits: int = typer.Option(20, "--digits", "-d", help="Checked digits of the numbers printed."),
+    digits: int = typer.Option(30, "--digits", "-d", help="Checked digits of the numbers printed."),
     K: Optional[str] = typer.Option(None, "--K", help="Resum at this shifted level K = k + 2 (an integer adds the finite-level check)."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:

@@ -10,10 +10,9 @@ import typer
 
 from knotobs.cli._app import app, emit, handle_errors
 from knotobs.errors import ParseError, SizeLimitError
-from knotobs.output.schema import EXPORT_FORMATS, export_grid
-from knotobs.tables.grid import GridSpec, grid_status, resume_grid, run_grid, torus_knots
 
-grid_app = typer.Typer(help="Grids of invariants: run (resumable), resume, export, status.", no_args_is_help=True)
+grid_app = typer.Typer(help="Grids of invariants: run (resumable), resume, export, status.", no_args_is_help=True,
+                       rich_markup_mode=None)
 app.add_typer(grid_app, name="grid")
 
 _KNOT = re.compile(r"T\s*\(\s*[-+]?\d+\s*,\s*[-+]?\d+\s*\)", re.IGNORECASE)
@@ -31,12 +30,16 @@ def _knots(text: Optional[str], max_pq: Optional[int], links: bool) -> list[str]
     if max_pq is not None:
         if max_pq < 6:
             raise ParseError(f"--max-pq {max_pq}: the smallest torus knot is T(2,3) (P*Q = 6); give --max-pq >= 6")
+        from knotobs.tables.grid import torus_knots
+
         try:
             out += torus_knots(max_pq, links=links)
         except SizeLimitError as exc:
             raise SizeLimitError(str(exc).replace("max_pq = ", "--max-pq ").replace("max_pq <=", "--max-pq <=")) from None
     if not out:
         raise ParseError("give the knots: --knots 'T(2,3),T(3,4)' and/or --max-pq N (all torus knots with P*Q <= N)")
+    if links and max_pq is None:
+        raise ParseError("--links: applies with --max-pq N (it adds the torus links with P*Q <= N)")
     return out
 
 
@@ -49,9 +52,9 @@ def _levels(text: str) -> list:
             try:
                 out.append(int(tok))
             except ValueError:
-                raise ParseError(f"cannot read level {tok!r}: use 'generic' or a positive integer, e.g. generic,1,2,3") from None
+                raise ParseError(f"--level {tok!r}: cannot read the level: use 'generic' or a positive integer, e.g. generic,1,2,3") from None
     if not out:
-        raise ParseError(f"--levels {text!r} is empty: use 'generic' and/or positive integers, e.g. generic,1,2,3")
+        raise ParseError(f"--level {text!r} is empty: use 'generic' and/or positive integers, e.g. generic,1,2,3")
     return out
 
 
@@ -60,33 +63,75 @@ def _show(progress: Optional[bool]) -> bool:
     return sys.stderr.isatty() if progress is None else progress
 
 
+def _remove_new_store(store: str) -> None:
+    """Remove a store file (and its SQLite side files) that this command created."""
+    import os
+
+    for suffix in ("", "-journal", "-wal", "-shm"):
+        try:
+            os.remove(store + suffix)
+        except OSError:
+            pass
+
+
 @grid_app.command("run")
 @handle_errors
 def run(
-    knots: Optional[str] = typer.Option(None, "--knots", "-k", help="List of knots, e.g. 'T(2,3),T(2,5)'."),
+    knots: Optional[str] = typer.Option(None, "--knots", help="List of knots, e.g. 'T(2,3),T(2,5)'."),
     max_pq: Optional[int] = typer.Option(None, "--max-pq", help="Add all torus knots T(P,Q) with P*Q <= this."),
     links: bool = typer.Option(False, "--links", help="With --max-pq: include torus links."),
     group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N)."),
-    reps: str = typer.Option("[1]", "--reps", "-r", help="Colours separated by ';', e.g. '[1];[2];[2,1]'."),
-    levels: str = typer.Option("generic", "--levels", "-l", help="'generic' and/or levels k, e.g. generic,1,2,3."),
+    rep: Optional[str] = typer.Option(None, "--rep", "-r", help="Partitions separated by ';', e.g. '[1];[2];[2,1]' (default [1])."),
+    color: Optional[str] = typer.Option(None, "--color", "-c", help="SU(2) dimensions instead of --rep, e.g. 2,3,4 (n means [n-1])."),
+    level: str = typer.Option("generic", "--level", "-k", help="'generic' and/or levels k, e.g. generic,1,2,3."),
     quantity: str = typer.Option("wilson-loop", "--quantity", help="wilson-loop, colored-jones or homfly."),
-    unnormalized: bool = typer.Option(False, "--unnormalized", help="Do not divide by the unknot."),
-    framing: int = typer.Option(0, "--framing", "-f", help="Framing of every component (wilson-loop)."),
-    dps: int = typer.Option(30, "--dps", help="Digits of level values."),
+    normalized: Optional[bool] = typer.Option(None, "--normalized/--unnormalized", help="Divide by the unknot (default: as the quantity is defined: wilson-loop unnormalized, colored-jones and homfly normalized)."),
+    framing: int = typer.Option(0, "--framing", "-f", help="wilson-loop: framing of every component."),
+    digits: int = typer.Option(30, "--digits", "-d", help="Digits of level values."),
     store: str = typer.Option(DEFAULT_STORE, "--store", "-s", help="SQLite results store."),
     workers: int = typer.Option(2, "--workers", "-w", help="Local worker processes (0: in this process)."),
     scheduler: Optional[str] = typer.Option(None, "--scheduler", help="Dask scheduler address, e.g. tcp://127.0.0.1:8786."),
     progress: Optional[bool] = typer.Option(None, "--progress/--no-progress", help="Progress bar on stderr (default: when it is a terminal)."),
+    old_reps: Optional[str] = typer.Option(None, "--reps", hidden=True),
+    old_levels: Optional[str] = typer.Option(None, "--levels", "-l", hidden=True),
+    old_dps: Optional[int] = typer.Option(None, "--dps", hidden=True),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Compute a grid (skipping rows already in the store) and store every row."""
-    from knotobs.cli import _inputs
+    import os
 
-    spec = GridSpec(_knots(knots, max_pq, links), group, _inputs.reps(reps, "--reps", one_allowed=False),
-                    _levels(levels), quantity, not unnormalized, framing, dps)
-    rep = run_grid(spec, store, workers, _show(progress), scheduler)
-    emit(rep.to_json(), rep.describe(), as_json)
-    if not rep.complete:
+    from knotobs.cli import _inputs
+    from knotobs.cli._options import check_renamed, refuse
+    from knotobs.tables.grid import GridSpec, run_grid
+
+    check_renamed(**{"--reps": (old_reps, "--rep"), "--levels": (old_levels, "--level/-k"),
+                     "--dps": (old_dps, "--digits/-d")})
+    q = quantity.lower()
+    if framing and q != "wilson-loop":
+        refuse("--framing", f"applies to --quantity wilson-loop; {q} is defined at zero framing")
+    if rep is not None and color is not None:
+        refuse("--color", "give the colors once: --rep PARTITIONS or --color DIMENSIONS")
+    if color is not None:
+        try:
+            dims = [int(x) for x in color.split(",") if x.strip()]
+        except ValueError:
+            raise ParseError(f"--color {color!r}: write dimensions like 2,3,4") from None
+        if not dims or min(dims) < 1:
+            refuse("--color", f"{color!r}: dimensions are integers >= 1")
+        cols = [(d - 1,) if d > 1 else () for d in dims]
+    else:
+        cols = _inputs.reps(rep if rep is not None else "[1]", "--rep", one_allowed=False)
+    norm = (q != "wilson-loop") if normalized is None else normalized
+    spec = GridSpec(_knots(knots, max_pq, links), group, cols, _levels(level), quantity, norm, framing, digits)
+    existed = os.path.exists(store)
+    try:
+        rep_ = run_grid(spec, store, workers, _show(progress), scheduler)
+    except BaseException:
+        if not existed:
+            _remove_new_store(store)   # a failed run leaves no store behind
+        raise
+    emit(rep_.to_json, rep_.describe, as_json)
+    if not rep_.complete:
         raise typer.Exit(code=2)
 
 
@@ -97,11 +142,18 @@ def resume(
     workers: int = typer.Option(2, "--workers", "-w", help="Local worker processes."),
     scheduler: Optional[str] = typer.Option(None, "--scheduler", help="Dask scheduler address."),
     progress: Optional[bool] = typer.Option(None, "--progress/--no-progress", help="Progress bar on stderr (default: when it is a terminal)."),
-    as_json: bool = typer.Option(False, "--json"),
+    as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Finish every grid recorded in the store, computing only the missing rows."""
+    import os
+
+    from knotobs.tables.grid import resume_grid
+
+    if not os.path.exists(store):
+        raise ParseError(f"--store {store!r}: no such results store; start a grid with knotobs grid run --store {store}")
     reps = resume_grid(store, workers, _show(progress), scheduler)
-    emit({"kind": "grid-resume", "reports": [r.to_json() for r in reps]}, "\n".join(r.describe() for r in reps), as_json)
+    emit(lambda: {"kind": "grid-resume", "reports": [r.to_json() for r in reps]},
+         lambda: "\n".join(r.describe() for r in reps), as_json)
     if not all(r.complete for r in reps):
         raise typer.Exit(code=2)
 
@@ -110,24 +162,45 @@ def resume(
 @handle_errors
 def export(
     store: str = typer.Option(DEFAULT_STORE, "--store", "-s", help="SQLite results store."),
-    fmt: str = typer.Option("csv", "--format", help=f"One of {', '.join(EXPORT_FORMATS)}."),
-    out: Optional[str] = typer.Option(None, "--out", "-o", help="Write to this file (default: print)."),
+    fmt: str = typer.Option("csv", "--format", help="csv, json, latex or table."),
+    output: Optional[str] = typer.Option(None, "--output", "-o", help="Write to this file (default: print)."),
+    old_out: Optional[str] = typer.Option(None, "--out", hidden=True),
+    as_json: bool = typer.Option(False, "--json", help="Same as --format json."),
 ) -> None:
-    """Export the stored rows as CSV, JSON, LaTeX or a terminal table."""
-    text = export_grid(store, fmt, out)
-    if out is None:
+    """Export the stored rows as CSV, JSON, LaTeX (a multi-page longtable) or a terminal table."""
+    from knotobs.cli._options import refuse, renamed
+    from knotobs.output.schema import export_grid
+
+    if old_out is not None:
+        renamed("--out", "--output/-o", f"-o {old_out}")
+    if as_json:
+        if fmt not in ("csv", "json"):
+            refuse("--json", f"is --format json; it cannot be combined with --format {fmt}")
+        fmt = "json"
+    import os
+
+    if not os.path.exists(store):
+        raise ParseError(f"--store {store!r}: the results store does not exist; run a grid first (knotobs grid run)")
+    text = export_grid(store, fmt, output)
+    if output is None:
         typer.echo(text, nl=False)
     else:
-        typer.echo(f"wrote {out}", err=True)
+        typer.echo(f"wrote {output}", err=True)
 
 
 @grid_app.command("status")
 @handle_errors
 def status(
     store: str = typer.Option(DEFAULT_STORE, "--store", "-s", help="SQLite results store."),
-    as_json: bool = typer.Option(False, "--json"),
+    as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Rows stored and, for every recorded grid, how many of its rows are missing."""
+    import os
+
+    from knotobs.tables.grid import grid_status
+
+    if not os.path.exists(store):
+        raise ParseError(f"--store {store!r}: the results store does not exist; run a grid first (knotobs grid run)")
     st = grid_status(store)
     lines = [f"{st['store']}: {st['rows']} rows"]
     for g in st["grids"]:

@@ -8,14 +8,8 @@ import typer
 
 from knotobs.cli import _inputs
 from knotobs.cli._app import app, emit, handle_errors
+from knotobs.cli._options import refuse, renamed, rep_or_color
 from knotobs.errors import ParseError
-from knotobs.tables.compare import compare, compare_knotinfo
-from knotobs.tables.identify import identify
-from knotobs.tables.polyparse import read_polynomial
-
-
-def _reps(text: str):
-    return _inputs.reps(text, "--rep")
 
 
 @app.command()
@@ -26,15 +20,34 @@ def match(
     file: Optional[str] = typer.Option(None, "--file", help="Read the polynomial from this text file."),
     knotinfo: bool = typer.Option(False, "--knotinfo", help="Compare with the database-knotinfo entry (optional extra)."),
     invariant: str = typer.Option("auto", "--invariant", "-i", help="auto, quantum, jones, homfly, alexander, conway or kauffman."),
-    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N) for one-variable polynomials."),
-    rep: str = typer.Option("[1]", "--rep", "-r", help="Partition, e.g. [2,1]; links: [1];[2] per component."),
-    max_p: int = typer.Option(5, "--max-p", help="Identify: largest P of T(P,Q)."),
-    max_q: int = typer.Option(12, "--max-q", help="Identify: largest Q of T(P,Q)."),
-    max_colour: int = typer.Option(2, "--max-colour", help="Identify: colours with at most this many boxes."),
-    links: bool = typer.Option(True, "--links/--knots-only", help="Identify: include torus links."),
+    group: Optional[str] = typer.Option(None, "--group", "-g", help="SU(N) or U(N) for one-variable polynomials (default SU(2))."),
+    rep: Optional[str] = typer.Option(None, "--rep", "-r", help="Compare: partition, e.g. [2,1]; links: [1];[2] per component."),
+    color: Optional[int] = typer.Option(None, "--color", "-c", help="Compare: SU(2) n-dimensional irrep (= --rep [n-1])."),
+    max_p: Optional[int] = typer.Option(None, "--max-p", help="Identify: largest P of T(P,Q) (default 5)."),
+    max_q: Optional[int] = typer.Option(None, "--max-q", help="Identify: largest Q of T(P,Q) (default 12)."),
+    max_boxes: Optional[int] = typer.Option(None, "--max-boxes", help="Identify: representations with at most this many boxes (default 2)."),
+    links: Optional[bool] = typer.Option(None, "--links/--knots-only", help="Identify: include torus links (default: yes)."),
+    old_max_colour: Optional[int] = typer.Option(None, "--max-colour", hidden=True),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Compare with a typed or tabulated polynomial (with KNOT), or identify a polynomial (without)."""
+    if old_max_colour is not None:
+        renamed("--max-colour", "--max-boxes", f"--max-boxes {old_max_colour}")
+    from knotobs.tables.polyparse import read_polynomial
+
+    if knot is not None:
+        for opt, val in (("--max-p", max_p), ("--max-q", max_q), ("--max-boxes", max_boxes), ("--links", links)):
+            if val is not None:
+                refuse(opt if opt != "--links" else ("--links" if links else "--knots-only"),
+                       "applies when identifying a polynomial (without KNOT)")
+    else:
+        for opt, val in (("--rep", rep), ("--color", color)):
+            if val is not None:
+                refuse(opt, "applies when comparing with KNOT; identification tries every representation up to --max-boxes")
+    if knotinfo:
+        for opt, val in (("--group", group), ("--rep", rep), ("--color", color)):
+            if val is not None:
+                refuse(opt, "the dataset tabulates the SU(2)/U(N) invariants of the fundamental representation")
     sources = [x for x in (poly, file) if x is not None]
     if len(sources) > 1:
         raise ParseError("give the polynomial once: either --poly TEXT or --file PATH")
@@ -46,15 +59,22 @@ def match(
             raise ParseError("--knotinfo compares a knot with its dataset entry: give the knot, e.g. knotobs match T(2,3) --knotinfo")
         if target is None:
             raise ParseError("nothing to do: give a knot and --poly/--file/--knotinfo to compare, or --poly/--file alone to identify")
-        res = identify(target, invariant, group, max_p, max_q, max_colour, links)
+        from knotobs.tables.identify import identify
+
+        res = identify(target, invariant, group or "SU(2)", 5 if max_p is None else max_p, 12 if max_q is None else max_q,
+                       2 if max_boxes is None else max_boxes, True if links is None else links)
     elif knotinfo:
         if target is not None:
             raise ParseError("--knotinfo and --poly/--file are alternatives: compare with one of them")
+        from knotobs.tables.compare import compare_knotinfo
+
         res = compare_knotinfo(knot, "jones" if invariant == "auto" else invariant)
     else:
         if target is None:
             raise ParseError(f"give a polynomial to compare {knot} with (--poly TEXT or --file PATH) or --knotinfo")
-        res = compare(knot, target, group, _reps(rep), invariant)
-    emit(res.to_json(), res.describe(), as_json)
+        from knotobs.tables.compare import compare
+
+        res = compare(knot, target, group or "SU(2)", rep_or_color(rep, color), invariant)
+    emit(res.to_json, res.describe, as_json)
     if knot is not None and not res.equal:
         raise typer.Exit(code=1)

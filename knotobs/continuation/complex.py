@@ -24,7 +24,7 @@ the observable factorises),
     ``W_(lam, lamt)(t, tt) = W_lam(q) * W_lamt(qt)``
 
 with ``W_lam`` the compact polynomial of :func:`knotobs.evaluation.families.wilson_loop`
-(unnormalised, unknot = ``dim_q``, zero framing unless asked; CONVENTIONS §3).  With
+(unnormalised, unknot = ``dim_q``, zero framing unless asked; docs/CONVENTIONS.md §3).  With
 ``lamt`` trivial this is the compact polynomial at ``q = exp(4 pi i/t)``; at ``t = 2K``
 (``K = k + N``) it is the SU(N) level-``k`` value.  Exchanging the labels and the
 couplings and conjugating them is complex conjugation,
@@ -49,6 +49,7 @@ from knotobs.numerics import working_precision
 from knotobs.precision import certified_parts, check_digits
 from knotobs.evaluation.families import wilson_loop
 from knotobs.representations.complexified import ComplexRep
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["ComplexObservable", "parse_couplings", "unitarity_note", "sl_wilson_loop",
            "SectorSum", "sl2c_partition_function"]
@@ -102,8 +103,8 @@ def _complex_json(z, digits: int) -> dict[str, str]:
     return {"re": mpmath.nstr(z.real, digits), "im": mpmath.nstr(z.imag, digits)}
 
 
-@dataclass(frozen=True)
-class ComplexObservable:
+@dataclass(frozen=True, repr=False)
+class ComplexObservable(NotebookMixin):
     """Value of an SL(N,C) Wilson loop at couplings ``(t, tt)``."""
 
     knot: str
@@ -235,8 +236,8 @@ def sl_wilson_loop(knot, rep, couplings, N: int | None = None, framing=0, normal
         return ComplexObservable(str(knot), rep, t, tt, +h, +a, +v, digits, (note,) if note else ())
 
 
-@dataclass(frozen=True)
-class SectorSum:
+@dataclass(frozen=True, repr=False)
+class SectorSum(NotebookMixin):
     """SL(2,C) partition function of a Seifert manifold as a sum over flat-connection sectors."""
 
     space: str

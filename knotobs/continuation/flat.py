@@ -57,6 +57,7 @@ from knotobs.flat.characters import irreducible_characters
 from knotobs.flat.chern_simons import fintushel_stern_cs  # noqa: F401  (re-exported)
 from knotobs.flat.torsion import irreducible_torsion
 from knotobs.numerics import working_precision
+from knotobs._notebook import NotebookMixin
 
 __all__ = [
     "FlatConnection",
@@ -208,8 +209,8 @@ class FlatConnection:
         }
 
 
-@dataclass(frozen=True)
-class FlatTable:
+@dataclass(frozen=True, repr=False)
+class FlatTable(NotebookMixin):
     """Flat connections of a Seifert rational homology sphere, with Casson and Ohtsuki data."""
 
     space: str

@@ -4,7 +4,7 @@ continuation in ``K`` of SU(2) partition functions of Seifert manifolds.
 Conventions
 -----------
 SU(2) at level ``k`` has shifted level ``K = k + 2`` and ``q = exp(2 pi i/K)``
-(CONVENTIONS §1).  Functions take either ``level=k`` or ``K=``; a complex
+(docs/CONVENTIONS.md §1).  Functions take either ``level=k`` or ``K=``; a complex
 ``level`` means ``K = level + 2``.  Partition functions are normalised by
 ``Z(S^3) = S_11``, ``Z(S^2 x S^1) = 1`` in the canonical 2-framing, exactly as the
 finite-level routes of :mod:`knotobs.evaluation` (CONVENTIONS §9).
@@ -75,6 +75,7 @@ from knotobs.numerics import working_precision
 from knotobs.precision import certified_parts, check_digits
 from knotobs.fibrations.seifert import SeifertManifold, parse_space
 from knotobs.polynomials.laurent import Laurent
+from knotobs._notebook import NotebookMixin
 
 __all__ = [
     "LRData",
@@ -637,8 +638,8 @@ def sector_values(space, K, digits: int = 30, phases: str = "reduced") -> dict[F
     return out
 
 
-@dataclass(frozen=True)
-class ContinuedValue:
+@dataclass(frozen=True, repr=False)
+class ContinuedValue(NotebookMixin):
     """``Z(K)`` at a complex shifted level, with its pieces and profile.
 
     Attributes

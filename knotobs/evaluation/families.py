@@ -1,6 +1,6 @@
 """Named invariants and the entry point that picks an evaluation route.
 
-All of them come from the same zero-framed Wilson loop ``W`` of CONVENTIONS §3
+All of them come from the same zero-framed Wilson loop ``W`` of docs/CONVENTIONS.md §3
 (unknot = ``dim_q``, ``q = exp(2 pi i/(k+N))`` at level ``k``):
 
 * :func:`wilson_loop` — ``W`` itself for SU(N) or U(N), any framing, optionally
@@ -196,7 +196,7 @@ def jones(knot, t_is: str = "q^-1", mirror: bool = False, normalized: bool = Tru
     prof = Profile(
         variables=("t",), variable_map=f"t = {t_is}",
         framing=(0,) * k.components, framing_note="zero framing; for links the total linking is removed as the skein relation requires",
-        normalisation=NORMALISED if normalized else "unnormalised (unknot = [2] = t^(1/2) + t^(-1/2))",
+        normalisation=NORMALISED if normalized else "unnormalized (unknot = [2] = t^(1/2) + t^(-1/2))",
         chirality=_chir(mirror),
         skein="t^-1 V(L+) - t V(L-) = (t^(1/2) - t^(-1/2)) V(L0)" if t_is.replace(" ", "") != "q" else "V(1/t) of the standard convention",
     )
@@ -229,7 +229,7 @@ def colored_jones(knot, n: int, t_is: str = "q^-1", mirror: bool = False, normal
     prof = Profile(
         variables=("t",), variable_map=f"t = {t_is}",
         framing=(0,) * k.components, framing_note="zero framing (for links: theta(n)^(-2 lk) and sign (-1)^((n-1)(c-1)) applied)",
-        normalisation=NORMALISED if normalized else "unnormalised (unknot = [n])",
+        normalisation=NORMALISED if normalized else "unnormalized (unknot = [n])",
         chirality=_chir(mirror), skein=f"colour n = {n} (dimension), J_2 = Jones V",
     )
     return PolynomialResult("colored-jones", str(k0), "SU(2)", ((n - 1,),) * k.components, v, prof, route,
@@ -314,7 +314,7 @@ def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True, form: 
         variable_map="a = q^(N/2), z = q^(1/2) - q^(-1/2)" if form == "az" else "a = q^(N/2), q = exp(2 pi i/(k+N))",
         framing=(0,) * k.components,
         framing_note="zero framing; for links the linking phase a^(-2 lk |lam_i||lam_j|) is removed",
-        normalisation=NORMALISED if normalized else "unnormalised (unknot = (a - a^-1)/z)",
+        normalisation=NORMALISED if normalized else "unnormalized (unknot = (a - a^-1)/z)",
         chirality=_chir(mirror), skein="a P(L+) - a^-1 P(L-) = z P(L0)",
     )
     return PolynomialResult("homfly", str(k0), "U(N), generic N", cols, val, prof, "rosso-jones (generic N)",
@@ -372,7 +372,7 @@ def alexander(knot, mirror: bool = False) -> PolynomialResult:
     prof = Profile(
         variables=("t",), variable_map="t = q (s = t^(1/2)); Delta(t) = Delta(1/t)",
         framing=(0,) * k.components, framing_note="framing-independent",
-        normalisation="Conway normalised: Delta(unknot) = 1, Delta(t) = Delta(1/t)",
+        normalisation="Conway normalized: Delta(unknot) = 1, Delta(t) = Delta(1/t)",
         chirality=_chir(mirror), skein="Delta(L+) - Delta(L-) = (t^(1/2) - t^(-1/2)) Delta(L0)",
     )
     return PolynomialResult("alexander", str(k0), "HOMFLY-PT at a = 1", cols, delta, prof, "rosso-jones (generic N)",

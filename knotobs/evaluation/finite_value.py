@@ -19,7 +19,7 @@ from knotobs.polynomials.cyclotomic import Cyclotomic, CyclotomicSurd
 __all__ = ["FiniteLevelValue"]
 
 
-@dataclass(frozen=True)
+@dataclass(frozen=True, repr=False)
 class FiniteLevelValue:
     """An exact finite-level value with its numeric value and convention profile.
 
@@ -56,10 +56,65 @@ class FiniteLevelValue:
 
     @property
     def root_of_unity(self) -> str:
-        if self.exact is None:
+        """``"z40 = exp(2*pi*i/40)"``; empty when the value is rational (or not computed)."""
+        if self.exact is None or self.is_rational():
             return ""
         n = self.exact.conductor
         return f"z{n} = exp(2*pi*i/{n})"
+
+    def is_rational(self) -> bool:
+        """Whether the exact value is a rational number (then it is printed without a root of unity)."""
+        if self.exact is None:
+            return False
+        c = getattr(self.exact, "coefficient", self.exact)
+        return c.is_rational() and getattr(self.exact, "radicand", 1) == 1
+
+    # ------------------------------------------------------------ notebook forms
+    def to_sympy(self):
+        """The exact value as a sympy expression in ``exp(2 pi i/n)`` (no free symbols).
+
+        >>> from knotobs.polynomials.cyclotomic import CyclotomicField
+        >>> v = FiniteLevelValue(CyclotomicField(4).zeta(1), mpmath.mpc(0, 1), 5, "-", "-", "-")
+        >>> v.to_sympy()
+        I
+        """
+        if self.exact is None:
+            import sympy
+
+            return sympy.Float(self.numeric.real, self.digits) + sympy.I * sympy.Float(self.numeric.imag, self.digits)
+        from knotobs.output.notebook import cyclotomic_sympy
+
+        return cyclotomic_sympy(self.exact)
+
+    def evaluate(self, dps: int | None = None) -> mpmath.mpc:
+        """The numeric value at ``dps`` digits (recomputed from the exact value when it is known)."""
+        from knotobs.errors import PrecisionError
+
+        if dps is None or dps == self.digits:
+            return self.numeric
+        if self.exact is None:
+            if dps > self.digits:
+                raise PrecisionError(f"only {self.digits} digits are known (no exact value): ask for more digits")
+            return self.numeric
+        return self.exact.to_mpc(dps)
+
+    def _repr_latex_(self) -> str:
+        from knotobs.output.notebook import cyclotomic_latex
+
+        d = min(self.digits, 15)
+        z = mpmath.mpc(self.numeric)
+        num = mpmath.nstr(z.real, d) if z.imag == 0 else (
+            f"{mpmath.nstr(z.real, d)} {'-' if z.imag < 0 else '+'} {mpmath.nstr(abs(z.imag), d)} i")
+        if self.exact is None:
+            return f"${num}$"
+        n = self.exact.conductor
+        zeta = "" if self.is_rational() else f", \\quad \\zeta_{{{n}}} = e^{{2\\pi i/{n}}}"
+        return f"${cyclotomic_latex(self.exact)} \\approx {num}{zeta}$"
+
+    def __repr__(self) -> str:
+        exact = "numeric only" if self.exact is None else (
+            f"exact {self.exact}" if self.is_rational() else f"exact in Q(zeta_{self.exact.conductor})")
+        return f"<FiniteLevelValue {mpmath.nstr(self.numeric, min(self.digits, 12))} ({self.digits} digits; {exact})>"
 
     def to_json(self) -> dict[str, Any]:
         """JSON-ready dictionary (strings for all numbers)."""

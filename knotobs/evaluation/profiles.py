@@ -6,8 +6,8 @@ from dataclasses import asdict, dataclass, field
 
 __all__ = ["Profile", "UNNORMALISED", "NORMALISED"]
 
-UNNORMALISED = "unnormalised (unknot = dim_q, i.e. normalised by Z(S^3))"
-NORMALISED = "normalised (unknot = 1)"
+UNNORMALISED = "unnormalized (unknot = dim_q, i.e. normalized by Z(S^3))"
+NORMALISED = "normalized (unknot = 1)"
 
 
 @dataclass(frozen=True)
@@ -53,7 +53,7 @@ class Profile:
         lines = [
             f"variables:     {', '.join(self.variables)}   ({self.variable_map})",
             f"framing:       {list(self.framing)}   ({self.framing_note})",
-            f"normalisation: {self.normalisation}",
+            f"normalization: {self.normalisation}",
             f"chirality:     {self.chirality}",
         ]
         if self.skein:

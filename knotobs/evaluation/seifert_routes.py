@@ -348,7 +348,7 @@ def _surgery_loop(M, N, k, regular, exceptional, normalized, digits, framing, ex
             numeric = +numeric
     return dataclasses.replace(v, exact=value, numeric=numeric, digits=digits,
                                framing=("fibration framing (regular fibers: a nearby fiber; cores: the"
-                                        f" gluing-matrix curve -y mu + x h); self-linking in M: {[_fr(f) for f in ours]}"),
+                                        f" gluing-matrix curve -y mu + x h); self-linking in M: {', '.join(_fr(f) for f in ours)}"),
                                details={**v.details, "route": "surgery", "framings": ours})
 
 

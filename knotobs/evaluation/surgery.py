@@ -635,8 +635,8 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
 
 def _orientation_text(b, fibers, genus: int = 0) -> str:
     e = -(Fraction(b) + sum(Fraction(bb, a) for a, bb in fibers))
-    fs = ", ".join(f"({a},{bb})" for a, bb in fibers)
-    return f"M({genus}; {b}; {fs}) with e = -(b + sum b_i/a_i) = {e} (Neumann-Raymond)"
+    fs = "".join(f"; ({a},{bb})" if i == 0 else f", ({a},{bb})" for i, (a, bb) in enumerate(fibers))
+    return f"M({genus}; {b}{fs}) with e = -(b + sum b_i/a_i) = {e} (Neumann-Raymond)"
 
 
 def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
@@ -744,7 +744,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
         with working_precision(digits):
             numeric = +numeric
     fr_text = ("0-framing of the surgery-diagram meridian (regular fibers: fiber framing);"
-               f" self-linking in M: {[str(f) for f in framings]}") if framing == "fiber" \
+               f" self-linking in M: {', '.join(str(f) for f in framings)}") if framing == "fiber" \
         else "zero (Seifert) framing"
     return FiniteLevelValue(
         exact=value, numeric=numeric, digits=digits,

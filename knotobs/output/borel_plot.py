@@ -14,20 +14,23 @@ def plot_borel(space, out, order: int = 40, count: int = 5, K: float = 10.0):
 
     >>> import tempfile, os
     >>> f = os.path.join(tempfile.mkdtemp(), "b.png")
-    >>> plot_borel("Sigma(2,3,5)", f, order=16, count=2).name
-    'b.png'
+    >>> fig = plot_borel("Sigma(2,3,5)", f, order=16, count=2)
+    >>> fig.name, fig.kind
+    ('b.png', 'borel')
 
     References
     ----------
     S. Gukov, M. Mariño and P. Putrov, arXiv:1605.07615 (the Borel plane of Brieskorn spheres).
     """
-    from knotobs.continuation.plots import _out, _plt
+    from knotobs.output.plots import Figure, _out, _plt, _save
     from knotobs.resurgence.analysis import borel_analysis
     from knotobs.resurgence.pade import pade_poles
     from knotobs.resurgence.series import borel_series
     from knotobs.numerics import local_mp
 
     p = _out(out)
+    if p is None:
+        raise ValueError("plot_borel needs an output file")
     rep = borel_analysis(space, order=order, count=count, digits=10)
     ctx = local_mp(2 * order + 40)
     poles = pade_poles(list(borel_series(space, order).b), ctx)
@@ -56,6 +59,9 @@ def plot_borel(space, out, order: int = 40, count: int = 5, K: float = 10.0):
     ax.set_ylabel(r"Im $\zeta$")
     ax.set_title(f"Borel plane of {space}: {order + 1} exact coefficients", fontsize=10)
     ax.legend(fontsize=7, loc="upper left")
-    fig.savefig(p)
-    plt.close(fig)
-    return p
+    _save(fig, p, plt)
+    data = {"space": str(space), "order": order,
+            "poles": [[z.real, z.imag] for z in shown],
+            "predicted": [{"m": r.m, "cs": str(r.cs), "zeta": [complex(r.predicted).real, complex(r.predicted).imag],
+                           "real_forms": sorted({f for f, _ in r.connections})} for r in rep.rows]}
+    return Figure(p, "borel", data)

@@ -70,8 +70,9 @@ def fibered_knot_json(F: FiberedKnot, inputs: dict[str, Any] | None = None) -> d
         "components": F.components,
         "fiber_framing": _fr(F.fiber_framing),
         "seifert_unnormalised": seifert_json(F.manifold),
+        "fiber_numbering": "exceptional fibers are numbered 1..n in the order of seifert_unnormalised (as --fiber)",
         "exceptional_fibers": [
-            {"index": c.index, "order": c.order, "invariant": list(c.invariant),
+            {"index": c.index + 1, "order": c.order, "invariant": list(c.invariant),
              "knot_type": c.knot_type or None, "homology_class": c.homology_class}
             for c in F.cores
         ],
@@ -103,7 +104,7 @@ def fibered_knot_text(F: FiberedKnot) -> str:
     """Readable table for ``knotobs fibers``."""
     N = F.manifold.normal_form()
     rec = N.classify()
-    what = {"regular": "regular fibre", "exceptional": "exceptional fibre", "core": "core (order 1)"}
+    what = {"regular": "regular fiber", "exceptional": "exceptional fiber", "core": "core (order 1)"}
     role = what[F.role] + (f" x {F.components} (parallel)" if F.components > 1 else "")
     rows = [
         ("knot", F.knot),
@@ -116,17 +117,17 @@ def fibered_knot_text(F: FiberedKnot) -> str:
         ("recognised", rec.name or f"({rec.kind})"),
     ]
     if F.fiber_framing is not None:
-        kind = "fibre framing (nearby fibre)" if F.role == "regular" else "framing of gluing matrix"
+        kind = "fiber framing (nearby fiber)" if F.role == "regular" else "framing of gluing matrix"
         rows.append((kind, str(F.fiber_framing)))
     if F.homology_class is not None:
         rows.append(("class in H_1", f"{F.homology_class} mod {N.h1_order} (order {F.class_order})"))
     if F.self_linking_mod_one is not None:
         rows.append(("self-linking mod 1", str(F.self_linking_mod_one)))
-    out = [_table(rows), "", "cores (exceptional when order > 1):"]
+    out = [_table(rows), "", "cores (numbered 1..n as in --fiber; exceptional when order > 1):"]
     for c in F.cores:
         extra = f", class {c.homology_class}" if c.homology_class is not None else ""
         kt = f", {c.knot_type}" if c.knot_type else ""
-        out.append(f"  core {c.index}: order {c.order}, invariant {c.invariant}{kt}{extra}")
+        out.append(f"  core {c.index + 1}: order {c.order}, invariant {c.invariant}{kt}{extra}")
     if F.linking is not None:
         out += ["", "linking numbers (diagonal: framings):", _matrix(F.linking_labels, F.linking)]
     return "\n".join(out)
@@ -167,8 +168,8 @@ def space_text(R: SpaceReport) -> str:
     if R.surgery_result is not None:
         S = R.surgery_result
         rows += [("surgery", f"{S.slope} on {S.knot} (Seifert framing)"),
-                 ("knot as fibre of", str(S.ambient)),
-                 ("new fibre", str(S.new_fiber))]
+                 ("knot as fiber of", str(S.ambient)),
+                 ("new fiber", str(S.new_fiber))]
     else:
         rows.append(("space", str(R.space)))
     if R.manifold is not None:

@@ -36,13 +36,14 @@ def finite_text(value: FiniteLevelValue, title: str) -> str:
     lines.append(f"  numeric   {mpmath.nstr(value.numeric, value.digits)}   ({value.digits} digits, checked at higher precision)")
     if value.exact is not None:
         lines.append(f"  exact     {value.exact}")
-        lines.append(f"            with {value.root_of_unity}")
+        if value.root_of_unity:
+            lines.append(f"            with {value.root_of_unity}")
     else:
         lines.append("  exact     (not computed at this size; numeric only)")
     lines.append("")
     lines.append(f"framing:       {value.framing}")
     lines.append(f"orientation:   {value.orientation}")
-    lines.append(f"normalisation: {value.normalisation}")
+    lines.append(f"normalization: {value.normalisation}")
     if "route" in value.details:
         lines.append(f"route:         {value.details['route']}")
     if "agreement" in value.details:

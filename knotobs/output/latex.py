@@ -15,7 +15,7 @@ from typing import Iterable, Sequence
 from knotobs.polynomials._format import format_terms
 
 __all__ = ["latex_polynomial", "mpoly_latex", "latex_result", "latex_comparison", "latex_table", "terminal_table",
-           "grid_table_rows", "GRID_HEADERS"]
+           "grid_table_rows", "GRID_HEADERS", "plain_to_latex", "latex_longtable"]
 
 _LATEX_SPECIAL = {"&": r"\&", "%": r"\%", "$": r"\$", "#": r"\#", "_": r"\_", "{": r"\{", "}": r"\}",
                   "~": r"\textasciitilde{}", "^": r"\textasciicircum{}", "\\": r"\textbackslash{}"}
@@ -82,7 +82,7 @@ def latex_result(result) -> str:
 
     >>> from knotobs import jones
     >>> print(latex_result(jones("T(2,3)")).splitlines()[0])
-    % jones of T(2,3), SU(2); variables t (t = q^-1); normalised (unknot = 1); framing [0]
+    % jones of T(2,3), SU(2); variables t (t = q^-1); normalized (unknot = 1); framing [0]
     """
     import sympy
 
@@ -144,7 +144,7 @@ def latex_table(headers: Sequence[str], rows: Iterable[Sequence[str]], caption: 
 
 
 #: Columns of a table of grid rows.
-GRID_HEADERS = ("knot", "group", "colour", "level", "framing", "exact", "numeric")
+GRID_HEADERS = ("knot", "group", "color", "level", "framing", "exact", "numeric")
 
 
 def grid_table_rows(rows: Iterable[dict]) -> list[list[str]]:
@@ -188,3 +188,95 @@ def terminal_table(headers: Sequence[str], rows: Sequence[Sequence[str]], title:
     buf = io.StringIO()
     Console(file=buf, width=200, force_terminal=False, color_system=None).print(table)
     return buf.getvalue().rstrip("\n")
+
+
+_TERM_SPLIT = None
+
+
+def plain_to_latex(text: str) -> str:
+    """LaTeX of a polynomial in the plain notation knotobs prints, term by term in one pass.
+
+    The terms keep their printed order; no algebra is done (compare :func:`latex_polynomial`,
+    which parses), so the cost is linear in the length.  Text that is not in the printed
+    notation is escaped and set as text.
+
+    >>> plain_to_latex("-q**-4 + q**-3 + q**(1/2)")
+    '-q^{-4} + q^{-3} + q^{\\\\frac{1}{2}}'
+    >>> plain_to_latex("2*a^-2 + a^-2*z^2 - (1/2)*a^-4")
+    '2 a^{-2} + a^{-2} z^{2} - \\\\frac{1}{2} a^{-4}'
+    """
+    import re
+
+    global _TERM_SPLIT
+    if _TERM_SPLIT is None:
+        _TERM_SPLIT = (re.compile(r" ([+-]) "), re.compile(r"^([A-Za-z]\w*)(?:\^(?:\((-?\d+)/(\d+)\)|(-?\d+)))?$"),
+                       re.compile(r"^\(?(\d+)(?:/(\d+))?\)?$"))
+    split, factor_re, coeff_re = _TERM_SPLIT
+    s = text.strip().replace("**", "^")
+    if not s:
+        return ""
+    sign0 = ""
+    if s.startswith("-"):
+        sign0, s = "-", s[1:]
+    pieces = split.split(s)
+    out = [sign0]
+    for k, piece in enumerate(pieces):
+        if k % 2 == 1:
+            out.append(f" {piece} ")
+            continue
+        factors = []
+        for f in piece.split("*"):
+            m = factor_re.match(f)
+            if m:
+                v, num, den, e = m.groups()
+                if num is not None:
+                    n = int(num)
+                    factors.append(f"{v}^{{{'-' if n < 0 else ''}\\frac{{{abs(n)}}}{{{den}}}}}")
+                elif e is not None:
+                    factors.append(f"{v}^{{{e}}}")
+                else:
+                    factors.append(v)
+                continue
+            c = coeff_re.match(f)
+            if c:
+                factors.append(c.group(1) if c.group(2) is None else f"\\frac{{{c.group(1)}}}{{{c.group(2)}}}")
+                continue
+            return "\\text{" + _esc(text) + "}"
+        out.append(" ".join(factors))
+    return "".join(out)
+
+
+def latex_longtable(headers: Sequence[str], rows: Iterable[Sequence[str]], caption: str | None = None,
+                    math_columns: Sequence[int] = (), wide_column: int | None = None) -> str:
+    """A multi-page ``longtable`` (package ``longtable``); cells in ``math_columns`` are polynomials.
+
+    The ``wide_column`` is a paragraph column, so long polynomials break across lines (TeX
+    breaks inline math after ``+`` and ``-``); the header repeats on every page.  Linear in
+    the size of the table.
+
+    >>> tex = latex_longtable(["knot", "V"], [["T(2,3)", "t + t^3 - t^4"]], math_columns=[1], wide_column=1)
+    >>> print(tex.splitlines()[1])
+    \\begin{longtable}{lp{0.62\\textwidth}}
+    >>> "$t + t^{3} - t^{4}$ \\\\\\\\" in tex
+    True
+    """
+    headers = list(headers)
+    spec = "".join("p{0.62\\textwidth}" if i == wide_column else "l" for i in range(len(headers)))
+    head = " & ".join(_esc(h) for h in headers) + " \\\\"
+    lines = ["% needs \\usepackage{longtable}", f"\\begin{{longtable}}{{{spec}}}"]
+    if caption:
+        lines.append(f"\\caption{{{_esc(caption)}}}\\\\")
+    lines += ["\\hline", head, "\\hline", "\\endfirsthead",
+              f"\\multicolumn{{{len(headers)}}}{{l}}{{\\emph{{(continued)}}}}\\\\", "\\hline", head, "\\hline", "\\endhead",
+              "\\hline", "\\endfoot"]
+    math = set(math_columns)
+    for r in rows:
+        cells = []
+        for i, cell in enumerate(r):
+            if i in math and cell not in (None, ""):
+                cells.append(f"${plain_to_latex(str(cell))}$")
+            else:
+                cells.append(_esc("" if cell is None else cell))
+        lines.append(" & ".join(cells) + " \\\\")
+    lines.append("\\end{longtable}")
+    return "\n".join(lines)

@@ -342,7 +342,7 @@ def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
     >>> path = os.path.join(tempfile.mkdtemp(), "g.sqlite")
     >>> _ = run_grid(GridSpec(["T(2,3)"], "SU(2)", [[1]]), path, workers=0, progress=False)
     >>> print(export_grid(path, "csv").splitlines()[1])
-    "T(2,3)",S^3,SU(2),[1],[0],,generic,q,-q**-4 + q**-3 + q**-1,,,normalised (unknot = 1),wilson-loop,0.1.0
+    "T(2,3)",S^3,SU(2),[1],[0],,generic,q,-q**-4 + q**-3 + q**-1,,,normalized (unknot = 1),wilson-loop,0.1.0
 
     References
     ----------
@@ -372,8 +372,10 @@ def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
                         d["profile"]["normalisation"], d["quantity"], d["version"]])
         text = buf.getvalue()
     elif f == "latex":
-        text = latex_table(GRID_HEADERS, grid_table_rows(rows), caption=f"knotobs results ({len(rows)} rows)",
-                           math_columns=[5]) + "\n"
+        from knotobs.output.latex import latex_longtable
+
+        text = latex_longtable(GRID_HEADERS, grid_table_rows(rows), caption=f"knotobs results ({len(rows)} rows)",
+                               math_columns=[5], wide_column=5) + "\n"
     else:
         text = terminal_table(GRID_HEADERS, grid_table_rows(rows), title=f"{store} ({len(rows)} rows)") + "\n"
     if out:

@@ -9,7 +9,7 @@ __all__ = ["render_polynomial"]
 _TITLES = {
     "wilson-loop": "Wilson loop",
     "jones": "Jones polynomial V(t)",
-    "colored-jones": "coloured Jones polynomial J_n(t)",
+    "colored-jones": "colored Jones polynomial J_n(t)",
     "homfly": "HOMFLY-PT polynomial P(a, z)",
     "alexander": "Alexander polynomial Delta(t)",
     "superpolynomial": "reduced superpolynomial P(a, q, t)",
@@ -24,7 +24,10 @@ def render_polynomial(result: PolynomialResult) -> str:
     title = _TITLES.get(result.quantity, result.quantity)
     if result.quantity == "homfly":
         title = "HOMFLY-PT polynomial P(" + ", ".join(result.profile.variables) + ")"
-    head = f"{title} of {result.knot}, {result.group}, colour {cols}"
+    head = f"{title} of {result.knot}, {result.group}, color {cols}"
     body = result.exact_string()
-    return "\n".join([head, "", "  " + body, "", result.profile.describe(),
-                      f"route:         {result.route}   ({result.num_terms()} terms)"])
+    lines = [head, "", "  " + body, "", result.profile.describe(),
+             f"route:         {result.route}   ({result.num_terms()} terms)"]
+    if result.route == "both":
+        lines.append("check:         Rosso-Jones sum and Seifert weight sum agree exactly")
+    return "\n".join(lines)

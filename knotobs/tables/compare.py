@@ -2,7 +2,7 @@
 
 A practitioner meets the same invariant written in many ways.  :func:`compare`
 computes the invariant of a torus knot or link in knotobs' standard profile
-(CONVENTIONS §1, §3) and tries the convention maps one meets in the literature
+(docs/CONVENTIONS.md §1, §3) and tries the convention maps one meets in the literature
 and in tables:
 
 * the variable: ``t = q^-1`` or ``t = q`` (the latter is the mirror image),
@@ -35,6 +35,7 @@ from knotobs.representations.groups import Group, casimir, homfly_unknot, parse_
 from knotobs.representations.partitions import kappa
 from knotobs.tables.polyparse import KNOWN_VARIABLES, parse_polynomial
 from knotobs.tables.sparse import MPoly
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["ConventionMap", "Comparison", "compare", "compare_knotinfo", "INVARIANTS"]
 
@@ -130,8 +131,8 @@ class ConventionMap:
         }
 
 
-@dataclass(frozen=True)
-class Comparison:
+@dataclass(frozen=True, repr=False)
+class Comparison(NotebookMixin):
     """Outcome of :func:`compare`.
 
     Attributes
@@ -187,7 +188,7 @@ class Comparison:
         }
 
     def describe(self) -> str:
-        lines = [f"{self.invariant} of {self.knot}, {self.group}, colour {_colours_text(self.representation)}"
+        lines = [f"{self.invariant} of {self.knot}, {self.group}, color {_colours_text(self.representation)}"
                  + (f"  [{self.source}]" if self.source else ""),
                  f"  target:   {self.target}",
                  f"  computed: {self.computed}"]
@@ -255,17 +256,17 @@ def _knot_and_cols(knot, rep):
 
 def _quantum_family(k: TorusLink, group: Group, cols, tvar: str) -> _Family:
     res = wilson_loop(k, group, list(cols) if len(cols) > 1 else cols[0], 0, False)
-    forms = [("unnormalised (unknot = dim_q)", MPoly.from_laurent(res.value, "q"))]
+    forms = [("unnormalized (unknot = dim_q)", MPoly.from_laurent(res.value, "q"))]
     try:
         nres = wilson_loop(k, group, list(cols) if len(cols) > 1 else cols[0], 0, True)
-        forms.append(("normalised (unknot = 1)", MPoly.from_laurent(nres.value, "q")))
+        forms.append(("normalized (unknot = 1)", MPoly.from_laurent(nres.value, "q")))
     except InexactDivisionError:  # pragma: no cover - links with a non-dividing colour
         pass
     theta = None
     if all(c == cols[0] for c in cols):
         theta = MPoly({(casimir(group, cols[0]),): 1}, ("q",))
     fam = _Family("quantum", str(group), [list(c) for c in cols], res.profile.to_dict(),
-                  f"{res.exact_string()}   (q, zero framing, unnormalised)", forms, theta)
+                  f"{res.exact_string()}   (q, zero framing, unnormalized)", forms, theta)
     fam.var_maps = _q_maps(tvar)
     return fam
 
@@ -276,18 +277,18 @@ def _homfly_family(k: TorusLink, cols, avar: str, second: str | None, form: str)
         P = MPoly.from_az(res.value, "a", "z")
     else:
         P = MPoly.from_aq(res.value, "a", "q")
-    forms = [("normalised (unknot = 1)", P)]
+    forms = [("normalized (unknot = 1)", P)]
     lam = cols[0]
     same = all(c == lam for c in cols)
     if same and form == "az" and lam == (1,):
         u = (MPoly.var("a") - MPoly.var("a") ** -1) * MPoly.var("z") ** -1
-        forms.append(("unnormalised (unknot = (a - a^-1)/z)", P * u))
+        forms.append(("unnormalized (unknot = (a - a^-1)/z)", P * u))
     elif same and form == "aq":
         num, den = homfly_unknot(lam)
         nump = MPoly.from_aq(num, "a", "q")
         denp = MPoly.from_laurent(den.subs_power(2).rename("q"), "q")  # s = q^(1/2)
         if denp.is_monomial():  # pragma: no cover - never for a nonempty partition
-            forms.append(("unnormalised (unknot = dim_q)", (P * nump).monomial_div(denp)))
+            forms.append(("unnormalized (unknot = dim_q)", (P * nump).monomial_div(denp)))
     theta = None
     if same:
         kap = kappa(lam)
@@ -296,7 +297,7 @@ def _homfly_family(k: TorusLink, cols, avar: str, second: str | None, form: str)
         else:
             theta = MPoly({(sum(lam), Fraction(kap, 2)): 1}, ("a", "q"))
     fam = _Family("homfly", "U(N), generic N", [list(c) for c in cols], res.profile.to_dict(),
-                  f"{res.exact_string()}   ({'a, z' if form == 'az' else 'a, q'}, a = q^(N/2), zero framing, normalised)",
+                  f"{res.exact_string()}   ({'a, z' if form == 'az' else 'a, q'}, a = q^(N/2), zero framing, normalized)",
                   forms, theta)
     if form == "az":
         zs = [("z", {"z": ("z", Fraction(1), 1)}, "z", False), ("z", {"z": ("z", Fraction(1), -1)}, "-z", False)]
@@ -318,7 +319,7 @@ def _conway_family(k: TorusLink) -> _Family:
         terms[(j,)] = terms.get((j,), 0) + c
     nabla = MPoly(terms, ("z",))
     fam = _Family("conway", "HOMFLY-PT at a = 1", [[1]] * k.components, res.profile.to_dict(),
-                  f"{nabla}   (Conway: nabla(z) = P(a = 1, z))", [("Conway normalised (unknot = 1)", nabla)], None)
+                  f"{nabla}   (Conway: nabla(z) = P(a = 1, z))", [("Conway normalized (unknot = 1)", nabla)], None)
     fam.var_maps = [_VarMap({"z": ("z", Fraction(1), 1)}, (("z", "z"),), None, False),
                     _VarMap({"z": ("z", Fraction(1), -1)}, (("z", "-z"),), None, False)]
     return fam
@@ -340,7 +341,7 @@ def _alexander_family(k: TorusLink, tvar: str) -> _Family:
     res = alexander(k)
     d = MPoly.from_laurent(res.value, "t")
     fam = _Family("alexander", "HOMFLY-PT at a = 1", [[1]] * k.components, res.profile.to_dict(),
-                  f"{res.exact_string()}   (symmetric, Conway normalised)", [("Conway normalised (Delta(t) = Delta(1/t))", d)], None)
+                  f"{res.exact_string()}   (symmetric, Conway normalized)", [("Conway normalized (Delta(t) = Delta(1/t))", d)], None)
     fam.var_maps = []
     for r in (Fraction(1), Fraction(-1), Fraction(1, 2), Fraction(-1, 2)):
         std = Fraction(1) if tvar == "t" else Fraction(1, 2)
@@ -553,11 +554,11 @@ def compare(knot, target, group="SU(2)", rep=(1,), invariant: str = "auto",
     --------
     >>> c = compare("T(2,3)", "t + t^3 - t^4")
     >>> c.equal, c.map.describe()
-    (True, 't = q^-1; normalised (unknot = 1)')
+    (True, 't = q^-1; normalized (unknot = 1)')
     >>> compare("T(2,3)", "t^-1 + t^-3 - t^-4").map.mirror
     True
     >>> compare("T(2,2)", "-x - x^5").map.describe()     # Hopf link, link-table style
-    'x = q^(-1/2); normalised (unknot = 1); framing changed by -2 (factor theta^-2); overall sign -1'
+    'x = q^(-1/2); normalized (unknot = 1); framing changed by -2 (factor theta^-2); overall sign -1'
     >>> compare("T(2,3)", "t + t^3 - 2*t^4").equal
     False
 

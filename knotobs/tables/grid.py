@@ -59,6 +59,7 @@ from knotobs.fibrations.torus import TorusLink, parse_knot
 from knotobs.representations.groups import parse_group
 from knotobs.representations.partitions import as_partition
 from knotobs.tables.store import GridStore, canonical_json, description_key, point_key, store_write_error
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["GridSpec", "GridReport", "run_grid", "resume_grid", "grid_status", "compute_row", "torus_knots",
            "QUANTITIES", "MAX_GRID_POINTS", "MAX_GRID_LEVEL", "max_workers", "torus_knot_count",
@@ -438,8 +439,8 @@ def compute_batch(descs: list[dict], run_id: str = "") -> list[dict]:
 # ------------------------------------------------------------------ running
 
 
-@dataclass
-class GridReport:
+@dataclass(repr=False)
+class GridReport(NotebookMixin):
     """What :func:`run_grid` did."""
 
     store: str
@@ -713,7 +714,7 @@ def resume_grid(store: str, workers: int = 2, progress: bool = True, scheduler: 
     with GridStore(store) as st:
         specs = [GridSpec.from_stored(s, st.path) for s in st.specs()]
     if not specs:
-        raise KnotobsError(f"the store {store!r} records no grid to resume; start one with run_grid / 'knotobs grid run'")
+        raise KnotobsError(f"the store {store!r} records no grid to resume; start one with 'knotobs grid run --store ...' (Python: knotobs.run_grid)")
     return [run_grid(s, store, workers, progress, scheduler) for s in specs]
 
 

@@ -6,7 +6,7 @@ to the given size, and returns the candidates for which some convention map make
 polynomials equal.  Cheap necessary conditions (number of terms, which is unchanged by
 every convention map) prune the search before any map is tried.
 
-Polynomials do not determine a knot in general (CONVENTIONS §8: 10_132 shares
+Polynomials do not determine a knot in general (docs/CONVENTIONS.md §8: 10_132 shares
 HOMFLY-PT, Jones and Alexander with the mirror of 5_1); the answer is a list of torus
 candidates, not a proof that the knot is a torus knot.
 """
@@ -24,6 +24,7 @@ from knotobs.representations.partitions import partitions_of
 from knotobs.tables.compare import _colours_text
 from knotobs.tables.compare import INVARIANTS, Comparison, ConventionMap, compare, _target_mpoly
 from knotobs.tables.sparse import MPoly
+from knotobs._notebook import NotebookMixin
 
 __all__ = ["Candidate", "Identification", "identify", "MAX_CANDIDATES"]
 
@@ -52,8 +53,8 @@ class Candidate:
                 "group": self.group, "chirality": self.chirality, "map": self.map.to_json()}
 
 
-@dataclass(frozen=True)
-class Identification:
+@dataclass(frozen=True, repr=False)
+class Identification(NotebookMixin):
     """Outcome of :func:`identify`."""
 
     target: str

@@ -332,9 +332,9 @@ def test_cli_plot(tmp_path):
     from knotobs.cli import app
 
     f = tmp_path / "zeros.png"
-    r = CliRunner().invoke(app, ["plot", "zeros", "T(3,5)", "--out", str(f)])
+    r = CliRunner().invoke(app, ["plot", "zeros", "T(3,5)", "-o", str(f)])
     assert r.exit_code == 0 and f.stat().st_size > 1000
-    r = CliRunner().invoke(app, ["plot", "zeros", "T(3,5)", "--out", str(tmp_path / "z.txt")])
+    r = CliRunner().invoke(app, ["plot", "zeros", "T(3,5)", "-o", str(tmp_path / "z.txt")])
     assert r.exit_code == 2 and "suffix" in r.output
 
 

@@ -38,7 +38,7 @@ LIB_CASES = [
     ("partition-increasing", lambda: wilson_loop("T(2,3)", "SU(3)", [1, 2]), InvalidRepresentationError, ["[1, 2]", "non-increasing"]),
     ("partition-negative", lambda: wilson_loop("T(2,3)", "SU(3)", [2, -1]), InvalidRepresentationError, ["[2, -1]"]),
     ("partition-float", lambda: wilson_loop("T(2,3)", "SU(3)", [1.5]), InvalidRepresentationError, ["1.5"]),
-    ("partition-not-iterable", lambda: wilson_loop("T(2,3)", "SU(3)", 5), InvalidRepresentationError, ["5"]),
+    ("partition-not-iterable", lambda: wilson_loop("T(2,3)", "SU(3)", rep=5), InvalidRepresentationError, ["5"]),
     ("partition-none", lambda: rosso_jones(TorusLink(2, 3), SU(2), None), InvalidRepresentationError, ["None"]),
     ("partition-text", lambda: parse_partition("[2,x]"), ParseError, ["[2,x]", "[2,1]"]),
     ("partition-bool", lambda: wilson_loop("T(2,3)", "SU(2)", [True]), InvalidRepresentationError, ["True"]),

@@ -145,7 +145,7 @@ def test_cli_exceptional_fiber_matches_library():
     from knotobs.cli import app
     from knotobs.fibrations.seifert import parse_space
 
-    r = CliRunner().invoke(app, ["loop", "--group", "SO(3)", "--level", "5", "--in", "Sigma(2,3,5)", "--fiber", "0",
+    r = CliRunner().invoke(app, ["loop", "--group", "SO(3)", "--level", "5", "--in", "Sigma(2,3,5)", "--fiber", "1",
                                  "--rep", "[1]", "--json"])
     assert r.exit_code == 0, r.output
     got = json.loads(r.stdout)["numeric"]

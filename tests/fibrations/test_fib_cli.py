@@ -36,7 +36,7 @@ def test_fibers_trefoil_json():
 def test_fibers_text_table():
     res = run("fibers", "T(3,4)")
     assert res.exit_code == 0
-    assert "fibre framing" in res.output and "12" in res.output
+    assert "fiber framing" in res.output and "12" in res.output
     assert "linking numbers" in res.output
 
 
@@ -91,7 +91,8 @@ def test_space_surgery_fraction_and_reducible():
         (("fibers", "T(5,-2)", "--in", "L(5,2)"), "T(5,-2)"),
         (("fibers", "T(2,3)", "--in", "Sigma(2,3,5)"), "T(2,3)"),
         (("fibers", "K(2,3)"), "'K(2,3)'"),
-        (("fibers", "T(2,3)", "--core", "5"), "5"),
+        (("fibers", "T(2,3)", "--fiber", "5"), "cores 1..2"),
+        (("fibers", "T(2,3)", "--core", "2"), "--fiber"),
     ],
 )
 def test_cli_errors_are_clear(args, needle):

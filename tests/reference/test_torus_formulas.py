@@ -80,7 +80,7 @@ def test_jones_closed_formula_mirror_and_swap(p, q):
 
 # ================================================================ Morton (1995)
 def _morton_times_denominator(p: int, q: int, n: int) -> dict:
-    """``(q^(1/2) - q^(-1/2)) * W_n(T(p,q))`` with ``W_n`` the unnormalised (unknot = [n]) value.
+    """``(q^(1/2) - q^(-1/2)) * W_n(T(p,q))`` with ``W_n`` the unnormalized (unknot = [n]) value.
 
     Morton (1995), quoted from memory, in the variable ``q`` with ``t = q^-1``::
 
@@ -112,7 +112,7 @@ MORTON_PAIRS = [(p, q) for (p, q) in _coprime_pairs(2, 9) if p * q <= 40]
 def test_colored_jones_morton(p, q, n):
     """Morton, Math. Proc. Camb. Phil. Soc. 117 (1995): coloured Jones of torus knots, colours 1..10.
 
-    knotobs returns ``J_n(t)`` normalised (unknot = 1) with ``t = q^-1``; multiply by
+    knotobs returns ``J_n(t)`` normalized (unknot = 1) with ``t = q^-1``; multiply by
     ``(q^(n/2) - q^(-n/2))`` = ``(q^(1/2) - q^(-1/2)) [n]`` and compare in ``q``.
     """
     jn = colored_jones(TorusLink(p, q), n).value.terms()
@@ -162,7 +162,7 @@ ALEX_PAIRS = _coprime_pairs(2, 15)
 def test_alexander_classical(p, q):
     """Delta(t) (t^p - 1)(t^q - 1) = +-t^k (t^(pq) - 1)(t - 1) (classical; Rolfsen 1976, Lickorish 1997).
 
-    knotobs' Delta is Conway-normalised (symmetric, Delta(1) = 1), which fixes the unit: the
+    knotobs' Delta is Conway-normalized (symmetric, Delta(1) = 1), which fixes the unit: the
     shift is ``k = -(p-1)(q-1)/2`` and the sign ``+1``.
     """
     d = alexander(TorusLink(p, q)).value.terms()

@@ -29,11 +29,12 @@ def test_text_states_the_grading():
     assert "Dunfield-Gukov-Rasmussen" in r.output and "reduced (unknot = 1)" in r.output
 
 
-@pytest.mark.parametrize("extra", [["--color", "2"], ["--N", "3"], ["--form", "aq"], ["--unnormalized"], ["--t", "q"]])
+@pytest.mark.parametrize("extra", [["--color", "2"], ["--group", "SU(3)"], ["--form", "aq"], ["--unnormalized"],
+                                   ["--t", "q"]])
 def test_options_that_do_not_apply_are_refused(extra):
     r = runner.invoke(app, ["poly", "T(2,3)", "--family", "superpolynomial", *extra])
     assert r.exit_code == 2
-    assert "does not apply" in r.output
+    assert "does not apply" in r.output and extra[0] in r.output
 
 
 def test_a_link_is_one_error_line():

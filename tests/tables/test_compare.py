@@ -40,7 +40,7 @@ def test_jones_map_and_chirality(entry):
     target = parse_polynomial(entry.jones, (entry.jones_variable,))
     c = compare(k, target, "SU(2)", (1,), "jones")
     assert c.equal, c.describe()
-    expect = dict(mirror=entry.stored_mirror, normalisation="normalised (unknot = 1)",
+    expect = dict(mirror=entry.stored_mirror, normalisation="normalized (unknot = 1)",
                   framing=-2 * total_linking(k), sign=(-1) ** (k.components - 1), monomial=None)
     hits = [m for m in c.maps if all(getattr(m, a) == v for a, v in expect.items())]
     assert hits, c.describe()
@@ -107,7 +107,7 @@ def test_published_jones_forms():
     assert compare("T(2,3)", "t^-1 + t^-3 - t^-4").map.mirror is True
     # unnormalised Jones (unknot = t^(1/2) + t^(-1/2)); a framing change theta^3 = q^(9/4) in q
     c = compare("T(2,3)", jones("T(2,3)", normalized=False).value)
-    assert c.map.normalisation.startswith("unnormalised")
+    assert c.map.normalisation.startswith("unnormalized")
     c = compare("T(2,3)", "q^(9/4)*(q^-1 + q^-3 - q^-4)")
     assert c.equal and c.map.framing == 3 and c.map.monomial is None
     c = compare("T(2,3)", "-t^5*(t + t^3 - t^4)")

@@ -47,7 +47,10 @@ def test_exports(tmp_path):
     gen = [r for r in rows if r["knot"] == "T(2,3)" and r["representation"] == "[1]" and r["level"] == ""][0]
     assert gen["exact"] == "-q**-4 + q**-3 + q**-1"
     tex = export_grid(db, "latex")
-    assert tex.count("\\\\") == 9 and "\\begin{tabular}" in tex
+    # a multi-page longtable: one line per row, header repeated on every page
+    assert "\\begin{longtable}" in tex and "\\endhead" in tex
+    assert sum(1 for ln in tex.splitlines() if ln.startswith("T(") and ln.endswith("\\\\")) == 8
+    assert "$-q^{-4} + q^{-3} + q^{-1}$" in tex
     assert "T(2,5)" in export_grid(db, "table")
     assert latex_table(["a"], [["x_1"]]) .count("x\\_1") == 1
 
@@ -78,7 +81,7 @@ def test_match_cli_knotinfo():
     (["match", "T(2,3)"], "give a polynomial"),
     (["match", "knot", "--poly", "t"], "cannot read knot"),
     (["grid", "run", "--knots", "T(2,3),trefoil", "--store", "/nonexistent/x.sqlite"], "cannot read knots"),
-    (["grid", "run", "--knots", "T(2,3)", "--levels", "generic,x"], "cannot read level"),
+    (["grid", "run", "--knots", "T(2,3)", "--level", "generic,x"], "cannot read the level"),
     (["grid", "export", "--store", "/nonexistent/none.sqlite"], "does not exist"),
 ])
 def test_cli_bad_input_is_one_line(args, msg):
@@ -89,7 +92,7 @@ def test_cli_bad_input_is_one_line(args, msg):
 
 def test_grid_cli_run_resume_export(tmp_path):
     db = str(tmp_path / "g.sqlite")
-    r = runner.invoke(app, ["grid", "run", "--knots", "T(2,3),T(3,4)", "--reps", "[1];[2]", "--levels", "generic,1",
+    r = runner.invoke(app, ["grid", "run", "--knots", "T(2,3),T(3,4)", "--rep", "[1];[2]", "--level", "generic,1", "--normalized",
                             "--store", db, "--workers", "0", "--no-progress", "--json"])
     assert r.exit_code == 0, r.output
     rep = json.loads(r.stdout)

@@ -192,8 +192,8 @@ def test_max_pq_refused_by_estimate_quickly():
         one_error(res, f"--max-pq {m}", "--max-pq <=")
         assert "q=" not in res.stderr
         assert time.time() - t < 2
-    one_error(runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "--levels", "1000000000000"]), "1000000000000")
-    one_error(runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "--levels", ","]), "--levels")
+    one_error(runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "--level", "1000000000000"]), "1000000000000")
+    one_error(runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "--level", ","]), "--level")
     one_error(runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "--reps", "[1;2]"]), "--reps")
     one_error(runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "--reps", ""]), "--reps")
 

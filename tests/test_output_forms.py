@@ -1,0 +1,69 @@
+"""Printed forms: no Python lists or empty fiber lists, rational values without a root of
+unity, zeros printed as 0, one normal form for a space in every command, one labelling of
+the S-matrix (S_00), agreement lines for ``--route both``, ``--json`` never builds the text.
+
+Values: L(7,2) = M(0; 3; (2,1)) in Seifert normal form (P. Orlik, Seifert Manifolds, Springer
+LNM 291 (1972)); Z_k(S^3) = S_00 = sqrt(2/K) sin(pi/K), which is 1/2 at k = 2 (common practice).
+"""
+
+from __future__ import annotations
+
+import json
+
+from typer.testing import CliRunner
+
+from knotobs.cli import app
+
+runner = CliRunner()
+
+
+def run(*args):
+    r = runner.invoke(app, list(args))
+    assert r.exit_code == 0, (args, r.output)
+    return r.output
+
+
+def test_rational_value_has_no_root_of_unity_and_empty_fibration_prints_cleanly():
+    out = run("space", "M(0; 1)", "-k", "2")
+    assert "exact     1/2\n" in out and "z1" not in out
+    assert "M(0; 1) with e" in out and "M(0; 1; )" not in out
+
+
+def test_self_linking_is_not_a_python_list():
+    out = run("loop", "--in", "L(7,2)", "--fiber", "1", "-k", "2")
+    assert "self-linking in M: -3/7" in out and "['" not in out
+
+
+def test_trivial_phase_prints_zero():
+    out = run("flat", "Sigma(2,3,7)")
+    trivial = [ln for ln in out.splitlines() if ln.startswith("trivial")][0]
+    assert trivial.split()[-1] == "0" and "e-" not in trivial
+
+
+def test_one_normal_form_everywhere():
+    normal = "M(0; 3; (2,1))"
+    assert normal in run("space", "L(7,2)")
+    assert f"on {normal}" in run("flat", "L(7,2)")
+    assert f"Z({normal})" in run("continue", "L(7,2)", "-k", "3.5", "-d", "10")
+
+
+def test_s_matrix_labels_agree():
+    assert "S_00" in run("space", "S^3", "-k", "2")
+    cont = run("continue", "Sigma(2,3,5)", "-k", "3.5", "-d", "10")
+    assert "S_00" in cont and "S_11" not in cont
+
+
+def test_route_both_prints_its_agreement():
+    assert "agree" in run("loop", "T(3,4)", "-g", "SU(3)", "--route", "both")
+    assert "agree" in run("loop", "T(3,4)", "-k", "2", "--route", "both")
+
+
+def test_json_does_not_build_the_text(monkeypatch):
+    import knotobs.output.text as text
+
+    def boom(*a, **k):
+        raise AssertionError("the text form was built under --json")
+
+    monkeypatch.setattr(text, "render_polynomial", boom)
+    out = json.loads(run("poly", "T(3,4)", "--family", "colored-jones", "-c", "5", "--json"))
+    assert out["quantity"] == "colored-jones"
