@@ -67,7 +67,7 @@ class FiniteLevelValue:
         if self.exact is None:
             return False
         c = getattr(self.exact, "coefficient", self.exact)
-        return c.is_rational() and getattr(self.exact, "radicand", 1) == 1
+        return c.is_rational() and (getattr(self.exact, "radicand", 1) == 1 or c.is_zero())
 
     # ------------------------------------------------------------ notebook forms
     def to_sympy(self):

@@ -13,6 +13,8 @@ _TITLES = {
     "homfly": "HOMFLY-PT polynomial P(a, z)",
     "alexander": "Alexander polynomial Delta(t)",
     "superpolynomial": "reduced superpolynomial P(a, q, t)",
+    "kauffman": "Kauffman polynomial F(a, z)",
+    "dubrovnik": "Dubrovnik polynomial D(a, z)",
 }
 
 

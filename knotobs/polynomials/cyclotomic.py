@@ -641,9 +641,14 @@ class CyclotomicSurd:
         return acb_to_mpc_checked(lambda prec: self.to_acb(prec), digits)
 
     def __str__(self) -> str:
+        """``sqrt(r) * (c)``; an exact zero prints as ``0``.
+
+        >>> str(CyclotomicSurd(CyclotomicField(5)(0), Fraction(10)))
+        '0'
+        """
         c = str(self.coefficient)
-        if self.radicand == 1:
-            return c
+        if self.radicand == 1 or self.is_zero():
+            return "0" if self.is_zero() else c
         return f"sqrt({self.radicand}) * ({c})"
 
     def __repr__(self) -> str:
