@@ -34,7 +34,7 @@ from knotobs.evaluation.estimates import guard_dense, guard_fixed, guard_homfly,
 from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.fibrations.torus import TorusLink
 from knotobs.polynomials.bivariate import Laurent2
-from knotobs.polynomials.dense import Dense
+from knotobs.polynomials.dense import Dense, place
 from knotobs.polynomials.laurent import Laurent
 from knotobs.representations.groups import (
     Group,
@@ -155,15 +155,6 @@ def _sum_fixed(group: Group, mus: np.ndarray, c: np.ndarray, m: int, n: int) -> 
     return out
 
 
-def _place(pieces: list[tuple[Dense, Fraction]], var: str = "q") -> Dense:
-    """Sum of ``piece * q^offset`` (pieces in different classes never overlap; a common unit is found by ``add``)."""
-    total = None
-    for d, off in pieces:
-        d = d.times_monomial(off)
-        total = d if total is None else total.add(d)
-    return total if total is not None else Dense(np.zeros(0, dtype=np.int64), 0, 1, var)
-
-
 def _shifted(pieces, offset: Fraction, mirror: bool = False):
     if mirror:
         return [(d.mirror(), -off + offset) for d, off in pieces]
@@ -195,7 +186,7 @@ def rosso_jones_dense(knot: TorusLink, group: Group, colours, framing: FramingSp
     if knot.chirality < 0:
         pieces = _shifted(pieces, Fraction(0), mirror=True)
     extra = sum((f * casimir(group, lam) for f, lam in zip(frames, cols)), Fraction(0))
-    return _place(_shifted(pieces, extra))
+    return place(_shifted(pieces, extra))
 
 
 def rosso_jones(knot: TorusLink, group: Group, colours, framing: FramingSpec = 0) -> Laurent:

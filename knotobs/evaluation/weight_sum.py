@@ -38,7 +38,7 @@ from knotobs.evaluation.estimates import guard_dense, guard_fixed, user_label
 from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.evaluation.rosso_jones import colours_for
 from knotobs.fibrations.torus import TorusLink
-from knotobs.polynomials.dense import Dense
+from knotobs.polynomials.dense import Dense, place
 from knotobs.polynomials.laurent import Laurent
 from knotobs.representations.qdim_factors import binomial_product
 from knotobs.representations.weight_arrays import weight_array
@@ -156,15 +156,7 @@ def weight_sum_dense(knot: TorusLink, group: Group, colours, framing: FramingSpe
     if knot.chirality < 0:
         out = [(d.mirror(), -off) for d, off in out]
     extra = sum((f * casimir(group, lam) for f, lam in zip(frames, cols)), Fraction(0))
-    return _place([(d, off + extra) for d, off in out])
-
-
-def _place(pieces) -> Dense:
-    total = None
-    for d, off in pieces:
-        d = d.times_monomial(off)
-        total = d if total is None else total.add(d)
-    return total if total is not None else Dense(np.zeros(0, dtype=np.int64), 0, 1)
+    return place([(d, off + extra) for d, off in out])
 
 
 def weight_sum(knot: TorusLink, group: Group, colours, framing: FramingSpec = 0) -> Laurent:
