@@ -349,17 +349,32 @@ def _curly_factorial(k: int) -> Laurent:
 @lru_cache(maxsize=4096)
 def _cofactor(hook_list: tuple[int, ...], k: int) -> tuple[fmpz_poly, int]:
     """``prod_{i <= k} {i} / prod_h {h}`` (``{i} = s^i - s^-i``; a polynomial, the q-analogue of
-    ``k!/prod h``) as a FLINT polynomial in ``w = s^2`` and the ``s``-exponent of its first term."""
+    ``k!/prod h``) as a FLINT polynomial in ``w = s^2`` and the ``s``-exponent of its first term.
+
+    ``{i} = s^-i (w^i - 1)``: after cancelling equal factors the numerator binomials are
+    multiplied out and the denominator's product is divided out exactly, in FLINT.
+    """
     from collections import Counter
 
     num, den = Counter(range(1, k + 1)), Counter(hook_list)
     common = num & den
-    # in w = s^2, {i} = w^(i/2) - w^(-i/2): the curly bracket of the variable w
-    d = binomial_product(sorted((num - common).elements()), den=1, var="w")
-    for h in sorted((den - common).elements()):
-        d = d.div_curly(h)
-    d = d.trimmed()
-    return fmpz_poly(d.arr.tolist()), int(2 * Fraction(d.shift))
+    nums, dens = sorted((num - common).elements()), sorted((den - common).elements())
+    top = _binomial_prod(tuple(nums))
+    bottom = _binomial_prod(tuple(dens))
+    quo = top if not dens else top / bottom     # exact: the quotient is a polynomial
+    # s-exponent: -(sum of num) + (sum of den), and w = s^2 shifts by 2 per step
+    return quo, -sum(nums) + sum(dens)
+
+
+def _binomial_prod(exps: tuple[int, ...]) -> fmpz_poly:
+    """``prod_i (w^i - 1)``, multiplied pairwise (balanced) in FLINT."""
+    polys = [fmpz_poly([-1] + [0] * (e - 1) + [1]) for e in exps]
+    if not polys:
+        return fmpz_poly([1])
+    while len(polys) > 1:
+        polys = [polys[i] * polys[i + 1] for i in range(0, len(polys) - 1, 2)] + (
+            [polys[-1]] if len(polys) % 2 else [])
+    return polys[0]
 
 
 @lru_cache(maxsize=4096)
