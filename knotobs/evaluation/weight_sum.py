@@ -47,6 +47,10 @@ from knotobs.representations.weights import weight_multiplicities
 
 __all__ = ["weight_sum", "weight_sum_dense"]
 
+#: Kept for backward compatibility only: there is no fixed Weyl-order limit any more (beyond
+#: N = 7 the Weyl sum of each weight is taken in product form; sizes go through the guard).
+MAX_WEYL_ORDER = None
+
 
 def _perm_sign(p: tuple[int, ...]) -> int:
     inv = sum(1 for i in range(len(p)) for j in range(i + 1, len(p)) if p[i] > p[j])

@@ -32,6 +32,10 @@ from knotobs.representations.partitions import Partition, partitions_of
 __all__ = ["mn_character", "z_rho", "adams_generic", "littlewood_richardson", "tensor_generic",
            "empty_core_partitions"]
 
+#: Kept for backward compatibility only: the plethysm runs over the partitions with empty
+#: m-core and its cost is checked by :func:`knotobs.guard.require`, not by a fixed count.
+MAX_PLETHYSM_PARTITIONS = None
+
 
 @lru_cache(maxsize=None)
 def _partition_count(n: int) -> int:
