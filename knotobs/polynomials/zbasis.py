@@ -29,7 +29,7 @@ from __future__ import annotations
 
 from functools import lru_cache
 
-from flint import fmpz_poly
+from flint import fmpz, fmpz_poly
 
 from knotobs.errors import InexactDivisionError
 from knotobs.polynomials.laurent import Laurent
@@ -92,19 +92,27 @@ def _conv(F: fmpz_poly, d: int, mode: str = "z") -> list[int]:
     k = (d + 1) // 2
     M = d - k + 1
     low = F.truncate(M).mul_low(_inverse_series(k, M, mode), M)
-    lc = [int(x) for x in low.coeffs()] + [0] * M
-    lc = lc[:M]
+    lc = low.coeffs()
+    lc = (lc + [fmpz(0)] * M)[:M]
     D = d - k
     if mode == "z":
         full = lc + [(-lc[D - e] if e % 2 else lc[D - e]) for e in range(1, D + 1)]
     else:
         full = lc + lc[D - 1 :: -1] if D > 0 else lc
     F_hi = fmpz_poly(full)
-    rest = F - _phi_power(k, mode) * F_hi
+    # F_lo = (F - phi^k F_hi) / x^M has degree 2(k-1) and the same symmetry, so its low k
+    # coefficients (a truncated product) determine it
+    K = k - 1
+    rest = F.truncate(M + K + 1) - _phi_power(k, mode).mul_low(F_hi, M + K + 1)
     if not rest.truncate(M).is_zero():  # pragma: no cover - cannot happen for invariant input
         raise InexactDivisionError("not a polynomial in z = s - 1/s")
-    F_lo = rest.right_shift(M)
-    return _conv(F_lo, k - 1, mode) + _conv(F_hi, D, mode)
+    lo = rest.right_shift(M).coeffs()
+    lo = lo + [fmpz(0)] * (K + 1 - len(lo))
+    if mode == "z":
+        F_lo = fmpz_poly(lo + [(-lo[K - e] if e % 2 else lo[K - e]) for e in range(1, K + 1)])
+    else:
+        F_lo = fmpz_poly(lo + lo[K - 1 :: -1] if K > 0 else lo)
+    return _conv(F_lo, K, mode) + _conv(F_hi, D, mode)
 
 
 def is_z_invariant(f: Laurent) -> bool:
