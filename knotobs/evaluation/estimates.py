@@ -74,11 +74,14 @@ def guard_fixed(knot, group, cols, route: str = "Rosso-Jones") -> None:
         k = comb(total + N - 1, N - 1)
         irreps = min(k, _partitions_at_most(total, N))
         py = 0
-        acc = 1
+        done = 0
         for c in cols:
-            py += 10 * acc * weight_count(c, N)
-            acc = min(acc * weight_count(c, N), k)
-        npy = (irreps if route == "Rosso-Jones" else 1) * k * N * N * 10
+            # Brauer-Klimyk: every irreducible piece so far against every weight of the next colour
+            # (the weight sum multiplies weight tables instead)
+            pieces = _partitions_at_most(done, N) if route == "Rosso-Jones" else comb(done + N - 1, N - 1)
+            py += 10 * pieces * weight_count(c, N)
+            done += sum(c)
+        npy = (irreps if route == "Rosso-Jones" else 1) * k * N * 10
     # output span: twists q^(C(mu) n/m) with C(mu) up to about |mu|^2/2, |mu| = m |lam|
     boxes = sum(sum(c) for c in cols)
     length = knot.P * knot.Q * boxes * boxes // 2 + N ** 3
@@ -139,8 +142,8 @@ def homfly_estimate(m: int, n: int, cols, with_z: bool = True) -> dict:
 
     The steps: the plethysm (character values, pure Python), one product per power of ``a``
     and group of terms, the divisions, and (``with_z``) the change to ``z``, whose cost is
-    the empirical ``5.2e-12 rows span k^4`` seconds (fitted on a 2-core machine:
-    ``T(25,26)`` 0.14 s, ``T(40,41)`` 3.5 s).
+    the empirical ``4.3e-13 rows span k^4`` seconds (fitted on a 2-core machine, whole
+    evaluation in ``(a, z)``: ``T(30,31)`` 0.22 s, ``T(40,41)`` 0.88 s, ``T(60,61)`` 7.1 s).
 
     >>> e = homfly_estimate(25, 26, ((1,),))
     >>> e["terms"], e["rows"]
@@ -161,7 +164,7 @@ def homfly_estimate(m: int, n: int, cols, with_z: bool = True) -> dict:
     py += rows * span * 2                               # reading coefficients back
     sec = seconds_for(py, "python") + seconds_for(c_ops, "numpy")
     if with_z:
-        sec += 5.2e-12 * rows * span * k ** 4 + seconds_for(rows * span * words, "python")
+        sec += 4.3e-13 * rows * span * k ** 4 + seconds_for(rows * span * words, "python")
     mem = 6 * rows * span * (8 * words + 32) / 2**20
     return {"terms": terms, "rows": rows, "span": span, "bits": bits, "seconds": sec, "memory_mb": mem}
 
@@ -170,7 +173,11 @@ def guard_homfly(knot, cols, with_z: bool = False) -> None:
     """Refuse a generic-N HOMFLY-PT evaluation of ``knot`` whose estimate exceeds the limits.
 
     >>> from knotobs.fibrations.torus import TorusLink
-    >>> guard_homfly(TorusLink(25, 26), ((1,),))
+    >>> guard_homfly(TorusLink(60, 61), ((1,),), with_z=True)       # about 16 s: accepted
+    >>> guard_homfly(TorusLink(150, 151), ((1,),), with_z=True)
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.SizeLimitError: the HOMFLY-PT polynomial of T(150,151) coloured by [1] in (a, z): about 1.4e+07 coefficients of up to ~2614 bits from 150 plethysm terms: estimated 3.36e+03 s, above the limit of 60 s; choose a smaller knot or colour, the (a, q) form (--form aq), or a fixed N (--N, or the loop command with U(N)) (or raise the limit: --max-seconds, KNOTOBS_MAX_SECONDS)
     """
     m, n = min(knot.P, knot.Q), max(knot.P, knot.Q)
     e = homfly_estimate(m, n, cols, with_z)
