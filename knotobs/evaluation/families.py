@@ -24,16 +24,19 @@ All of them come from the same zero-framed Wilson loop ``W`` of docs/CONVENTIONS
 from __future__ import annotations
 
 from fractions import Fraction
+from math import gcd
 from typing import Sequence
 
 from knotobs.errors import InvalidRepresentationError, KnotobsError
 from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.evaluation.profiles import NORMALISED, UNNORMALISED, Profile
 from knotobs.evaluation.result import PolynomialResult
-from knotobs.evaluation.rosso_jones import colours_for, rosso_jones, rosso_jones_homfly
-from knotobs.evaluation.weight_sum import weight_sum
+from knotobs.evaluation.estimates import guard_homfly, labelled
+from knotobs.evaluation.rosso_jones import colours_for, rosso_jones, rosso_jones_dense, rosso_jones_homfly
+from knotobs.evaluation.weight_sum import weight_sum, weight_sum_dense
 from knotobs.fibrations.torus import TorusLink, parse_knot
 from knotobs.polynomials.bivariate import Laurent2
+from knotobs.polynomials.dense import Dense
 from knotobs.polynomials.laurent import Laurent
 from knotobs.representations.groups import (
     SU,
@@ -159,18 +162,42 @@ def _t_sign(t_is: str) -> int:
     return _T_MAPS[key]
 
 
+def _route_dense(knot, group, cols, framing, route) -> Dense:
+    if route not in ROUTES:
+        raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(ROUTES)}")
+    if route == "rosso-jones":
+        return rosso_jones_dense(knot, group, cols, framing)
+    if route == "weight-sum":
+        return weight_sum_dense(knot, group, cols, framing)
+    a = rosso_jones_dense(knot, group, cols, framing)
+    b = weight_sum_dense(knot, group, cols, framing)
+    if a != b:
+        raise RouteMismatchError(f"Rosso-Jones and weight-sum disagree for {knot}, {group}, {cols}")
+    return a
+
+
+def _divide_by_qinteger(w: Dense, n: int) -> Dense:
+    """``w / [n] = w {1} / {n}`` with ``{x} = q^(x/2) - q^(-x/2)``: one shifted subtraction, one prefix sum."""
+    return w.mul_curly(1).div_curly(n)
+
+
 def _jones_like(knot: TorusLink, n: int, t_is: str, mirror: bool, normalized: bool, route: str):
+    t_sign = _t_sign(t_is)
     if mirror:
         knot = knot.mirror()
     group = SU(2)
     lam = (n - 1,) if n > 1 else ()
-    w = _route_value(knot, group, (lam,) * knot.components, 0, route)
+    with labelled(f"the coloured Jones polynomial J_{n} of {knot}" if n != 2 else f"the Jones polynomial of {knot}"):
+        w = _route_dense(knot, group, (lam,) * knot.components, 0, route)
     c = knot.components
     lk = knot.linking_number * c * (c - 1) // 2
-    w = w.times_monomial(-2 * lk * casimir(group, lam), (-1) ** ((n - 1) * (c - 1)))
+    e = -2 * lk * casimir(group, lam)
+    w = w.times_monomial(e, (-1) ** ((n - 1) * (c - 1)))
     if normalized:
-        w = w.exact_div(quantum_integer(n))
-    return knot, w.subs_power(_t_sign(t_is)).rename("t").canonical()
+        w = _divide_by_qinteger(w, n)
+    if t_sign < 0:
+        w = w.mirror()
+    return knot, w.rename("t").to_laurent()
 
 
 def _chir(mirror: bool) -> str:
@@ -296,11 +323,14 @@ def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True, form: 
     k0 = parse_knot(knot)
     k = k0.mirror() if mirror else k0
     cols = colours_for(k, rep)
-    val = _homfly_value(k, cols, normalized)
+    col = [list(c) for c in cols]
     if form is None:
         form = "az" if all(c == (1,) for c in cols) else "aq"
     if form not in ("az", "aq"):
         raise KnotobsError(f"unknown HOMFLY-PT form {form!r}: use 'az' or 'aq'")
+    guard_homfly(k, cols, with_z=(form == "az"))
+    with labelled(f"the HOMFLY-PT polynomial of {k0} coloured by {col[0] if len(set(cols)) == 1 else col}"):
+        val = _homfly_value(k, cols, normalized)
     if form == "az":
         try:
             val.to_az()
@@ -335,7 +365,7 @@ def homfly_at(knot, N: int, rep=(1,), mirror: bool = False) -> PolynomialResult:
     ----------
     CONVENTIONS §1, §3.
     """
-    res = homfly(knot, rep, mirror=mirror, normalized=True)
+    res = homfly(knot, rep, mirror=mirror, normalized=True, form="aq")  # the z form is not needed here
     SU(N)  # validates N
     val = res.value.specialize(Fraction(N, 2))
     prof = Profile(

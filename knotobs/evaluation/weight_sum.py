@@ -28,25 +28,28 @@ CONVENTIONS §4.
 from __future__ import annotations
 
 from fractions import Fraction
-from functools import reduce
+from functools import lru_cache
 from itertools import permutations
-from math import gcd
+from math import factorial, gcd
 
 import numpy as np
-from flint import fmpz_poly
 
-from knotobs.errors import SizeLimitError
+from knotobs.evaluation.estimates import guard_dense, guard_fixed, user_label
 from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.evaluation.rosso_jones import colours_for
 from knotobs.fibrations.torus import TorusLink
+from knotobs.polynomials.dense import Dense, place
 from knotobs.polynomials.laurent import Laurent
+from knotobs.representations.qdim_factors import binomial_product
+from knotobs.representations.weight_arrays import weight_array
 from knotobs.representations.groups import Group, casimir
 from knotobs.representations.weights import weight_multiplicities
 
-__all__ = ["weight_sum", "MAX_WEYL_ORDER"]
+__all__ = ["weight_sum", "weight_sum_dense"]
 
-#: Largest Weyl group (N!) summed over explicitly.
-MAX_WEYL_ORDER = 40_320
+#: Kept for backward compatibility only: there is no fixed Weyl-order limit any more (beyond
+#: N = 7 the Weyl sum of each weight is taken in product form; sizes go through the guard).
+MAX_WEYL_ORDER = None
 
 
 def _perm_sign(p: tuple[int, ...]) -> int:
@@ -68,11 +71,106 @@ def _tensor_weights(cols, N: int) -> tuple[np.ndarray, np.ndarray]:
     return np.array(keys, dtype=np.int64).reshape(len(keys), N), np.array([acc[k] for k in keys], dtype=np.int64)
 
 
+def _tensor_arrays(cols, N: int) -> tuple[np.ndarray, np.ndarray]:
+    if len(cols) == 1:
+        return weight_array(tuple(cols[0]), N)
+    return _tensor_weights(cols, N)
+
+
+@lru_cache(maxsize=16)
+def _weyl_table(N: int) -> tuple[np.ndarray, np.ndarray]:
+    """Rows ``w(2 rho)`` for every permutation ``w`` and their signs."""
+    two_rho = np.array([N - 1 - 2 * i for i in range(N)], dtype=np.int64)
+    perms = list(permutations(range(N)))
+    W = np.array([two_rho[list(p)] for p in perms], dtype=np.int64).reshape(len(perms), N)
+    sign = np.array([_perm_sign(p) for p in perms], dtype=np.int64)
+    return W, sign
+
+
+def _gaussian_pieces(knot: TorusLink, group: Group, nus: np.ndarray, mults: np.ndarray):
+    """The numerator sum of CONVENTIONS §4 as dense pieces in ``s = q^(1/2)`` with offsets.
+
+    Exponents are integers in ``y = q^(1/(4N))`` (the ``w``-independent constant
+    ``(Q/2P + P/2Q)|rho|^2`` dropped: it is common to numerator and denominator).  Terms are
+    grouped by their class modulo ``s = y^(2N)``.  For ``N! <= 5040`` the sum over the Weyl
+    group is written out term by term; beyond, the inner sum of each weight is the Weyl
+    denominator formula ``sum_w eps(w) q^(P <nu + rho/P, w rho>) = prod_{i<j} {P(nu_i - nu_j) + j - i}``
+    (``{a} = q^(a/2) - q^(-a/2)``), multiplied out on integer arrays.
+    """
+    N = group.N
+    P, Q = knot.P, knot.Q
+    two_rho = np.array([N - 1 - 2 * i for i in range(N)], dtype=np.int64)
+    tot = nus.sum(axis=1)
+    base = 2 * N * P * Q * (nus * nus).sum(axis=1) + 2 * N * Q * (nus @ two_rho)
+    if group.kind == "SU":
+        base = base - 2 * P * Q * tot * tot
+    label = user_label(f"{knot} for {group}")
+    pieces = []
+    if factorial(N) <= 5040:
+        W, sign = _weyl_table(N)
+        ex = base[:, None] + 2 * N * P * (nus @ W.T) + (N * (two_rho @ W.T))[None, :]
+        co = mults[:, None] * sign[None, :]
+        cls = np.mod(ex, 2 * N)
+        guard_dense(f"{label} by the weight sum", int((ex.max() - ex.min()) // (2 * N)) + 1, ex.size)
+        for r in np.unique(cls).tolist():
+            sel = cls == r
+            pieces.append((Dense.from_half_terms(np.floor_divide(ex[sel], 2 * N), co[sel]), Fraction(r, 4 * N)))
+        return pieces
+    cls = np.mod(base, 2 * N)
+    b = np.floor_divide(base, 2 * N)
+    span = int(np.abs(nus).max() if nus.size else 0) * P * N * N + N ** 3
+    guard_dense(f"{label} by the weight sum", span, 0, passes=len(nus) * N * N // 2)
+    for r in np.unique(cls).tolist():
+        acc = Dense(np.zeros(0, dtype=np.int64), 0, 2)
+        for nu, mult, bb in zip(nus[cls == r].tolist(), mults[cls == r].tolist(), b[cls == r].tolist()):
+            factors = [P * (nu[i] - nu[j]) + (j - i) for i in range(N) for j in range(i + 1, N)]
+            if 0 in factors:
+                continue
+            sgn = 1
+            for a in factors:
+                if a < 0:
+                    sgn = -sgn
+            acc = acc.add(binomial_product([abs(a) for a in factors]).times_monomial(Fraction(bb, 2), sgn * mult))
+        pieces.append((acc, Fraction(r, 4 * N)))
+    return pieces
+
+
+def weight_sum_dense(knot: TorusLink, group: Group, colours, framing: FramingSpec = 0) -> Dense:
+    """:func:`weight_sum` as a :class:`~knotobs.polynomials.dense.Dense` (no conversion to FLINT).
+
+    >>> from knotobs.representations.groups import SU
+    >>> weight_sum_dense(TorusLink(2, 3), SU(2), (1,)).to_laurent()
+    Laurent('-q^(-9/2) + q^(-5/2) + q^(-3/2) + q^(-1/2)')
+    """
+    cols = tuple(group.check(c) for c in colours_for(knot, colours))
+    frames = resolve_framing(knot, framing)
+    N = group.N
+    guard_fixed(knot, group, cols, route="weight-sum")
+    nus, mults = _tensor_arrays(cols, N)
+    pieces = _gaussian_pieces(knot, group, nus, mults)
+    # divide by the denominator sum_w eps(w) q^<rho, w rho> = prod_{i<j} {j - i} (Weyl denominator formula)
+    out = []
+    for d, off in pieces:
+        for dd in range(1, N):
+            for _ in range(N - dd):
+                d = d.div_curly(dd)
+        out.append((d, off))
+    shift = -knot.P * knot.Q * sum((casimir(group, lam) for lam in cols), Fraction(0))
+    out = [(d, off + shift) for d, off in out]  # fiber framing -> zero framing
+    if knot.chirality < 0:
+        out = [(d.mirror(), -off) for d, off in out]
+    extra = sum((f * casimir(group, lam) for f, lam in zip(frames, cols)), Fraction(0))
+    return place([(d, off + extra) for d, off in out])
+
+
 def weight_sum(knot: TorusLink, group: Group, colours, framing: FramingSpec = 0) -> Laurent:
     """Unnormalised Wilson loop of ``T(p, q)`` by the weight-insertion Gaussian sum.
 
     Same conventions and output as :func:`knotobs.evaluation.rosso_jones.rosso_jones`
-    (zero framing by default, unknot = ``dim_q``), computed independently.
+    (zero framing by default, unknot = ``dim_q``), computed independently: weights of the
+    colour and the Weyl group only, no Adams operation.  The sums run on integer arrays
+    (:mod:`knotobs.polynomials.dense`); the division by the Gaussian sum without insertion
+    is a sequence of strided prefix sums, one per factor of the Weyl denominator.
 
     Examples
     --------
@@ -86,51 +184,4 @@ def weight_sum(knot: TorusLink, group: Group, colours, framing: FramingSpec = 0)
     ----------
     Lawrence–Rozansky (1999); Mariño (2005); CONVENTIONS §4.
     """
-    cols = tuple(group.check(c) for c in colours_for(knot, colours))
-    frames = resolve_framing(knot, framing)
-    N = group.N
-    order = 1
-    for i in range(2, N + 1):
-        order *= i
-    if order > MAX_WEYL_ORDER:
-        raise SizeLimitError(
-            f"the weight sum runs over the {order} elements of the Weyl group of {group};"
-            f" use the Rosso-Jones route for N > 8"
-        )
-    P, Q = knot.P, knot.Q
-    nus, mults = _tensor_weights(cols, N)
-    two_rho = np.array([N - 1 - 2 * i for i in range(N)], dtype=np.int64)
-    tot = nus.sum(axis=1)
-    # 4N * exponent, with the w-independent constant (Q/2P + P/2Q)|rho|^2 dropped
-    base = 2 * N * P * Q * (nus * nus).sum(axis=1) + 2 * N * Q * (nus @ two_rho)
-    if group.kind == "SU":
-        base = base - 2 * P * Q * tot * tot
-    num_e, num_c, den_e, den_c = [], [], [], []
-    for perm in permutations(range(N)):
-        sign = _perm_sign(perm)
-        w_rho = two_rho[list(perm)]
-        rr = int(N * (two_rho @ w_rho))
-        num_e.append(base + 2 * N * P * (nus @ w_rho) + rr)
-        num_c.append(sign * mults)
-        den_e.append(rr)
-        den_c.append(sign)
-    ne = np.concatenate(num_e)
-    nc = np.concatenate(num_c)
-    de = np.array(den_e, dtype=np.int64)
-    dc = np.array(den_c, dtype=np.int64)
-    lo_n, lo_d = int(ne.min()), int(de.min())
-    g = reduce(gcd, [int(x) for x in np.unique(ne - lo_n)] + [int(x) for x in np.unique(de - lo_d)], 0) or 1
-    num = np.zeros((int(ne.max()) - lo_n) // g + 1, dtype=np.int64)
-    np.add.at(num, (ne - lo_n) // g, nc)
-    den = np.zeros((int(de.max()) - lo_d) // g + 1, dtype=np.int64)
-    np.add.at(den, (de - lo_d) // g, dc)
-    # exponents are (lo + g*i)/(4N); write lo as a multiple of g plus a remainder class
-    unit = Fraction(g, 4 * N)
-    numer = Laurent(fmpz_poly(num.tolist()), 0, 1).subs_power(unit).times_monomial(Fraction(lo_n, 4 * N))
-    denom = Laurent(fmpz_poly(den.tolist()), 0, 1).subs_power(unit).times_monomial(Fraction(lo_d, 4 * N))
-    w = numer.exact_div(denom)  # fiber framing, positive chirality
-    w = w.times_monomial(-P * Q * sum(casimir(group, lam) for lam in cols))
-    if knot.chirality < 0:
-        w = w.mirror()
-    extra = sum(f * casimir(group, lam) for f, lam in zip(frames, cols))
-    return w.times_monomial(extra).canonical()
+    return weight_sum_dense(knot, group, colours, framing).to_laurent()

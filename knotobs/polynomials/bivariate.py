@@ -41,13 +41,14 @@ class Laurent2:
     Bull. Amer. Math. Soc. 12 (1985) 239; J. Przytycki, P. Traczyk, Kobe J. Math. 4 (1987) 115.
     """
 
-    __slots__ = ("c", "avar", "svar", "zpow")
+    __slots__ = ("c", "avar", "svar", "zpow", "_az")
 
     def __init__(self, coeffs: Mapping[int, Laurent] | None = None, avar: str = "a", svar: str = "s", zpow: int = 0):
         self.avar = avar
         self.svar = svar
         #: the element is ``z^zpow * sum_i a^i f_i(s)`` (links need negative powers of z)
         self.zpow = int(zpow)
+        self._az = None
         self.c: dict[int, Laurent] = {}
         for i, f in (coeffs or {}).items():
             if f.var != svar:
@@ -212,13 +213,18 @@ class Laurent2:
         """Rewrite in ``z = s - 1/s``: ``{(i, j): c}`` for ``c a^i z^j`` (``j`` may be negative for links).
 
         Raises :class:`InexactDivisionError` if some coefficient is not a
-        Laurent polynomial in ``z`` (it must be invariant under ``s -> -1/s``).
+        Laurent polynomial in ``z`` (it must be invariant under ``s -> -1/s``).  The
+        conversion is :func:`knotobs.polynomials.zbasis.to_z` (divide and conquer, no
+        quadratic basis change); the result is kept, so asking twice costs nothing.
         """
+        if self._az is not None:
+            return dict(self._az)
         out: dict[tuple[int, int], int] = {}
         for i, f in sorted(self.c.items()):
             for j, c in _to_z(f, max_inverse_z).items():
                 out[(i, j + self.zpow)] = c
-        return out
+        self._az = out
+        return dict(out)
 
     def to_az_string(self, avar: str = "a", zvar: str = "z") -> str:
         """Plain text of the ``(a, z)`` form, highest ``a`` power first."""
@@ -290,11 +296,14 @@ def z_power(j: int, var: str = "s") -> Laurent:
 
 def _to_z(f: Laurent, max_inverse_z: int) -> dict[int, int]:
     """Write ``f(s)`` as ``sum_j c_j z^j``, ``z = s - 1/s``, allowing ``z^-m``."""
+    from knotobs.polynomials.zbasis import is_z_invariant, to_z
+
+    z = z_power(1, f.var)
+    g = f
     for m in range(0, max_inverse_z + 1):
-        g = f * z_power(m, f.var)
-        res = _to_z_poly(g)
-        if res is not None:
-            return {j - m: c for j, c in res.items()}
+        if is_z_invariant(g):
+            return {j - m: c for j, c in to_z(g).items()}
+        g = g * z
     raise InexactDivisionError(f"{f} is not a Laurent polynomial in z = s - 1/s")
 
 

@@ -14,7 +14,7 @@ import re
 from functools import lru_cache
 from typing import Iterable, Iterator, Sequence
 
-from knotobs.errors import InvalidRepresentationError, ParseError, SizeLimitError
+from knotobs.errors import InvalidRepresentationError, ParseError
 
 __all__ = [
     "Partition",
@@ -32,9 +32,9 @@ __all__ = [
 
 Partition = tuple[int, ...]
 
-#: Largest number of boxes accepted from a user.  (The coloured Jones
-#: polynomial of colour n uses a one-row partition with n - 1 boxes.)
-MAX_PARTITION_SIZE = 2000
+#: Kept for backward compatibility only: partitions have no fixed size limit any more; each
+#: route estimates its own time and memory (:mod:`knotobs.evaluation.estimates`).
+MAX_PARTITION_SIZE = None
 
 
 def as_partition(parts: Iterable[int] | str) -> Partition:
@@ -66,12 +66,7 @@ def as_partition(parts: Iterable[int] | str) -> Partition:
             f"{raw!r} is not a partition: parts must be non-increasing non-negative integers,"
             " e.g. [2,1]"
         )
-    lam = tuple(x for x in raw if x > 0)
-    if sum(lam) > MAX_PARTITION_SIZE:
-        raise SizeLimitError(
-            f"partition {list(lam)} has {sum(lam)} boxes; at most {MAX_PARTITION_SIZE} are supported"
-        )
-    return lam
+    return tuple(x for x in raw if x > 0)
 
 
 _BODY_RE = re.compile(r"^\s*-?\d+(\s*,\s*-?\d+)*\s*,?\s*$")

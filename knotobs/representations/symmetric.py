@@ -25,14 +25,16 @@ from functools import lru_cache
 from math import factorial
 from typing import Sequence
 
-from knotobs.errors import SizeLimitError
+from knotobs.guard import require, seconds_for
+from knotobs.labels import user_label
 from knotobs.representations.partitions import Partition, partitions_of
 
 __all__ = ["mn_character", "z_rho", "adams_generic", "littlewood_richardson", "tensor_generic",
-           "MAX_PLETHYSM_PARTITIONS"]
+           "empty_core_partitions"]
 
-#: Largest number of partitions of ``m |lam|`` that the generic-N Adams operation runs over.
-MAX_PLETHYSM_PARTITIONS = 60_000
+#: Kept for backward compatibility only: the plethysm runs over the partitions with empty
+#: m-core and its cost is checked by :func:`knotobs.guard.require`, not by a fixed count.
+MAX_PLETHYSM_PARTITIONS = None
 
 
 @lru_cache(maxsize=None)
@@ -139,27 +141,75 @@ def adams_generic(lam: Partition, m: int) -> tuple[tuple[Partition, int], ...]:
     if lam == (1,):
         # p_m = sum_r (-1)^r s_(m-r, 1^r)  (Macdonald (1995), ch. I §3, ex. 11)
         return tuple((tuple([m - r] + [1] * r), (-1) ** r) for r in range(m))
-    count = _partition_count(m * n)
-    if count > MAX_PLETHYSM_PARTITIONS:
-        raise SizeLimitError(
-            f"the Adams operation psi^{m} of {list(lam)} runs over the {count} partitions of {m * n};"
-            f" at most {MAX_PLETHYSM_PARTITIONS} are handled for generic N. Use a fixed N"
-            " (e.g. the U(N) Wilson loop), whose route needs only the weights of the representation"
-        )
+    # Only mu with empty m-core can occur: chi^mu vanishes on classes whose cycles all have
+    # length divisible by m unless mu is built from m-rim hooks (James–Kerber (1981) 2.7.32).
+    # They are enumerated from their m-quotients on the m-runner abacus.
+    candidates = empty_core_partitions(m, n)
+    count = len(candidates)
     rhos = partitions_of(n)
+    require(f"{user_label(f'the Adams operation psi^{m} of {list(lam)}')}: {count} partitions of {m * n}"
+            f" with empty {m}-core, {len(rhos)} classes",
+            seconds=seconds_for(count * len(rhos) * 40, "python"),
+            memory_mb=count * (m * n) * 80 / 2**20,
+            accepted="choose a smaller colour or knot, or a fixed N (the U(N) Wilson loop)")
     weights = [(rho, Fraction(mn_character(lam, rho), z_rho(rho))) for rho in rhos]
     weights = [(rho, w) for rho, w in weights if w != 0]
+    scaled = [(tuple(sorted((m * r for r in rho), reverse=True)), w) for rho, w in weights]
     out = []
-    for mu in partitions_of(m * n):
+    for mu in candidates:
         beta = frozenset(_beta(mu, len(mu)))
         c = Fraction(0)
-        for rho, w in weights:
-            c += w * _mn(beta, tuple(sorted((m * r for r in rho), reverse=True)))
+        for mrho, w in scaled:
+            c += w * _mn(beta, mrho)
         if c != 0:
             if c.denominator != 1:  # pragma: no cover - would be a bug in the character table
                 raise ArithmeticError(f"non-integral plethysm coefficient {c} for {lam}, {mu}")
             out.append((mu, int(c)))
+    out.sort(key=lambda t: t[0], reverse=True)
     return tuple(out)
+
+
+def _multipartitions(m: int, n: int):
+    """All m-tuples of partitions with total size n."""
+    if m == 0:
+        if n == 0:
+            yield ()
+        return
+    for k in range(n, -1, -1):
+        for first in partitions_of(k):
+            for rest in _multipartitions(m - 1, n - k):
+                yield (first,) + rest
+
+
+@lru_cache(maxsize=256)
+def empty_core_partitions(m: int, n: int) -> tuple[Partition, ...]:
+    """Partitions of ``m n`` with empty ``m``-core (one for each m-quotient of total size n).
+
+    On the abacus with ``m t`` beads (``t`` at least the longest quotient part count), runner
+    ``i`` carries the beads ``m (nu^(i)_j + t - 1 - j) + i``; the empty core is the case of
+    ``t`` beads on every runner.  The count is the number of m-multipartitions of n.
+
+    >>> empty_core_partitions(2, 2)
+    ((4,), (3, 1), (2, 2), (2, 1, 1), (1, 1, 1, 1))
+    >>> len(empty_core_partitions(7, 5))      # 7-multipartitions of 5: [x^5] (prod 1/(1-x^i))^7
+    1547
+
+    References
+    ----------
+    G. James, A. Kerber, *The Representation Theory of the Symmetric Group* (1981), §2.7;
+    Macdonald (1995), ch. I §1 ex. 8.
+    """
+    if m == 1:
+        return partitions_of(n)
+    t = n
+    out = set()
+    for quot in _multipartitions(m, n):
+        beads = []
+        for i, nu in enumerate(quot):
+            nu = tuple(nu) + (0,) * (t - len(nu))
+            beads.extend(m * (nu[j] + t - 1 - j) + i for j in range(t))
+        out.add(_from_beta(beads))
+    return tuple(sorted(out, reverse=True))
 
 
 def _kostka_weights(mu: Partition, nvars: int):

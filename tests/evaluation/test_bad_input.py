@@ -63,7 +63,8 @@ LIB_CASES = [
     ("colour-zero", lambda: colored_jones("T(2,3)", 0), InvalidRepresentationError, ["n=0", "positive"]),
     ("colour-negative", lambda: colored_jones("T(2,3)", -2), InvalidRepresentationError, ["n=-2"]),
     ("homfly-unnormalised-coloured", lambda: homfly("T(2,3)", (2,), normalized=False), InvalidRepresentationError, ["normalised"]),
-    ("weight-sum-huge-weyl", lambda: weight_sum(TorusLink(2, 3), SU(9), (1,)), SizeLimitError, ["SU(9)", "Rosso-Jones"]),
+    ("weight-sum-huge-colour", lambda: weight_sum(TorusLink(2, 3), SU(9), (400,)), SizeLimitError, ["T(2,3)", "SU(9)", "[400]", "estimated"]),
+    ("colored-jones-huge", lambda: colored_jones("T(3,4)", 10**6), SizeLimitError, ["J_1000000", "T(3,4)", "estimated"]),
 ]
 
 
