@@ -31,7 +31,7 @@ knotobs.errors.InvalidGroupError: group 3: give the group as a string such as 'S
 
 References
 ----------
-docs/interface.md (§15) and docs/CONVENTIONS.md for the conventions of every value.
+docs/interface.md (§15) and docs/conventions.md for the conventions of every value.
 """
 
 from __future__ import annotations
@@ -244,7 +244,7 @@ def wilson_loop(knot, group="SU(2)", level=None, rep=None, *, color=None, framin
 
     References
     ----------
-    M. Rosso, V. F. R. Jones, J. Knot Theory Ramifications 2 (1993) 97–112; docs/CONVENTIONS.md §3, §4.
+    M. Rosso, V. F. R. Jones, J. Knot Theory Ramifications 2 (1993) 97–112; docs/conventions.md §3, §4.
     """
     if level is not None and not _is_int(level) and _looks_like_rep(level):
         if rep is not None:
@@ -306,7 +306,7 @@ def level_loop(knot=None, group="SU(2)", level=None, rep=None, *, color=None, sp
 
     References
     ----------
-    docs/CONVENTIONS.md §5, §7; N. Reshetikhin, V. Turaev, Invent. Math. 103 (1991).
+    docs/conventions.md §5, §7; N. Reshetikhin, V. Turaev, Invent. Math. 103 (1991).
     """
     if _is_int(group) and (level is None or not _is_int(level)):
         # older order: level_loop(knot, level, group, rep)
@@ -358,7 +358,7 @@ def partition_function(space, group="SU(2)", level=None, digits: int = 30, exact
 
     References
     ----------
-    L. Jeffrey, Commun. Math. Phys. 147 (1992) 563–604; docs/CONVENTIONS.md §9.
+    L. Jeffrey, Commun. Math. Phys. 147 (1992) 563–604; docs/conventions.md §9.
     """
     g = _group_text(group, "partition_function(space, 'SU(2)', k)")
     if level is None:
@@ -405,7 +405,7 @@ def fiber_wilson_loop(space, group="SU(2)", level=None, rep=None, *, fiber: Opti
 
     References
     ----------
-    docs/CONVENTIONS.md §7; L. Rozansky, Commun. Math. Phys. 178 (1996) 27–60.
+    docs/conventions.md §7; L. Rozansky, Commun. Math. Phys. 178 (1996) 27–60.
     """
     offset = 1
     if _is_int(group) and (level is None or not _is_int(level)):

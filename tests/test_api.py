@@ -2,7 +2,7 @@
 
 Values: the trefoil's unnormalized SU(2) loop ``(t + t^3 - t^4)(t^1/2 + t^-1/2)`` at ``t = 1/q``
 (V. F. R. Jones, Ann. of Math. 126 (1987) 335); the equality of the gluing route and the
-polynomial route at a level is the two-route check of docs/CONVENTIONS.md §7 (common practice).
+polynomial route at a level is the two-route check of docs/conventions.md §7 (common practice).
 """
 
 from __future__ import annotations

@@ -4,7 +4,7 @@ Values printed are checked against outside references, not only against the libr
 the Jones polynomial of the trefoil ``t + t^3 - t^4`` (V. F. R. Jones, Ann. of Math. 126
 (1987) 335; also KnotInfo 3_1), the positive Hopf link ``-t^(1/2) - t^(5/2)`` (LinkInfo
 L2a1{1}), the HOMFLY-PT of the trefoil ``2a^-2 - a^-4 + a^-2 z^2`` (KnotInfo 3_1 with
-``v = a^-1``, docs/CONVENTIONS.md §3/§8), the quantum dimension of the unknot (hook–content,
+``v = a^-1``, docs/conventions.md §3/§8), the quantum dimension of the unknot (hook–content,
 Macdonald (1995) I.3 ex. 1), and the framing rule ``W^fiber = theta^(PQ) W^0`` (CONVENTIONS §4).
 """
 

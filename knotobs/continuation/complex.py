@@ -24,7 +24,7 @@ the observable factorises),
     ``W_(lam, lamt)(t, tt) = W_lam(q) * W_lamt(qt)``
 
 with ``W_lam`` the compact polynomial of :func:`knotobs.evaluation.families.wilson_loop`
-(unnormalised, unknot = ``dim_q``, zero framing unless asked; docs/CONVENTIONS.md §3).  With
+(unnormalised, unknot = ``dim_q``, zero framing unless asked; docs/conventions.md §3).  With
 ``lamt`` trivial this is the compact polynomial at ``q = exp(4 pi i/t)``; at ``t = 2K``
 (``K = k + N``) it is the SU(N) level-``k`` value.  Exchanging the labels and the
 couplings and conjugating them is complex conjugation,

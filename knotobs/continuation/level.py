@@ -4,7 +4,7 @@ continuation in ``K`` of SU(2) partition functions of Seifert manifolds.
 Conventions
 -----------
 SU(2) at level ``k`` has shifted level ``K = k + 2`` and ``q = exp(2 pi i/K)``
-(docs/CONVENTIONS.md §1).  Functions take either ``level=k`` or ``K=``; a complex
+(docs/conventions.md §1).  Functions take either ``level=k`` or ``K=``; a complex
 ``level`` means ``K = level + 2``.  Partition functions are normalised by
 ``Z(S^3) = S_11``, ``Z(S^2 x S^1) = 1`` in the canonical 2-framing, exactly as the
 finite-level routes of :mod:`knotobs.evaluation` (CONVENTIONS §9).

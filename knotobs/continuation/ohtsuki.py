@@ -20,7 +20,7 @@ the Gaussian moments ``int z^(2k+2) exp(-pi K |H| z^2/(2P)) dz`` give, after div
 Casson invariant normalised so that ``lambda(Sigma(2,3,5)) = -1`` for the Poincaré
 sphere oriented as the link of ``x^2 + y^3 + z^5 = 0`` (H. Murakami, Math. Proc.
 Camb. Phil. Soc. 115 (1994) 253–281; T. Ohtsuki, Math. Proc. Camb. Phil. Soc. 117
-(1995) 83–112; docs/CONVENTIONS.md §9).  The series is the asymptotic expansion of the
+(1995) 83–112; docs/conventions.md §9).  The series is the asymptotic expansion of the
 trivial-connection contribution only; it diverges factorially
 (L. Rozansky, Commun. Math. Phys. 171 (1995) 279–322).
 """

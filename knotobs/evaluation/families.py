@@ -1,6 +1,6 @@
 """Named invariants and the entry point that picks an evaluation route.
 
-All of them come from the same zero-framed Wilson loop ``W`` of docs/CONVENTIONS.md §3
+All of them come from the same zero-framed Wilson loop ``W`` of docs/conventions.md §3
 (unknot = ``dim_q``, ``q = exp(2 pi i/(k+N))`` at level ``k``):
 
 * :func:`wilson_loop` — ``W`` itself for SU(N) or U(N), any framing, optionally

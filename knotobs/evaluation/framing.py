@@ -4,7 +4,7 @@ A framing is an integer per component, measured against the Seifert (zero)
 framing of that component.  Names accepted: ``"zero"`` (or ``"seifert"``) and
 ``"fiber"`` (the framing induced by the Seifert fibration of S^3 in which the
 link is a union of regular fibers: ``P*Q`` on every component of ``T(dP, dQ)``,
-with the sign of the chirality; docs/CONVENTIONS.md §4–§5).
+with the sign of the chirality; docs/conventions.md §4–§5).
 """
 
 from __future__ import annotations

@@ -1,7 +1,7 @@
 """SU(2) partition functions of Seifert manifolds by the Lawrence–Rozansky Gauss sum.
 
 R. Lawrence & L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314, with the phases of
-docs/CONVENTIONS.md §9 (pinned against the surgery route).  For ``X(p_1/q_1, ..., p_n/q_n)``
+docs/conventions.md §9 (pinned against the surgery route).  For ``X(p_1/q_1, ..., p_n/q_n)``
 (surgery on a 0-framed unknot and ``n`` meridians), ``P = prod p_j``,
 ``H = P sum q_j/p_j``, ``K = k + 2``:
 

@@ -2,7 +2,7 @@
 
 This joins the refibration (:func:`knotobs.fibrations.refibration.fibration_of`) to the
 finite-level gluing formula (:func:`knotobs.evaluation.surgery.fiber_wilson_loop`,
-docs/CONVENTIONS.md §7) and, in S^3, to the exact polynomial of the foundation (CONVENTIONS §3),
+docs/conventions.md §7) and, in S^3, to the exact polynomial of the foundation (CONVENTIONS §3),
 which is evaluated at ``q = exp(2 pi i/K)`` as a second, independent route.
 
 Defaults are those of the polynomial ``loop``: zero framing where the knot is

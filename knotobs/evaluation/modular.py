@@ -1,6 +1,6 @@
 """Modular data of SU(N) at level k: alcove, S (Kac–Peterson), T, C, c, fusion.
 
-Conventions (CONVENTIONS.md §1, §2, §6): shifted level ``K = k + N``; weights are
+Conventions (docs/conventions.md §1, §2, §6): shifted level ``K = k + N``; weights are
 partitions with at most ``N - 1`` rows and ``lam_1 <= k`` (the level-k alcove),
 the trivial weight ``()`` first.  In the orthonormal basis of R^N a weight
 ``lam`` plus ``rho`` is ``x_i = lam_i + N - i`` (any common shift drops out after

@@ -1,6 +1,6 @@
 """The gauge groups SU(N) and U(N) and the data of their irreducible representations.
 
-Conventions (docs/CONVENTIONS.md §1–§2):
+Conventions (docs/conventions.md §1–§2):
 
 * A representation is labelled by a partition ``lam`` with at most N rows
   (its highest weight in the basis ``e_1..e_N``); for SU(N), columns of height

@@ -2,7 +2,7 @@
 
 A practitioner meets the same invariant written in many ways.  :func:`compare`
 computes the invariant of a torus knot or link in knotobs' standard profile
-(docs/CONVENTIONS.md §1, §3) and tries the convention maps one meets in the literature
+(docs/conventions.md §1, §3) and tries the convention maps one meets in the literature
 and in tables:
 
 * the variable: ``t = q^-1`` or ``t = q`` (the latter is the mirror image),

@@ -6,7 +6,7 @@ to the given size, and returns the candidates for which some convention map make
 polynomials equal.  Cheap necessary conditions (number of terms, which is unchanged by
 every convention map) prune the search before any map is tried.
 
-Polynomials do not determine a knot in general (docs/CONVENTIONS.md §8: 10_132 shares
+Polynomials do not determine a knot in general (docs/conventions.md §8: 10_132 shares
 HOMFLY-PT, Jones and Alexander with the mirror of 5_1); the answer is a list of torus
 candidates, not a proof that the knot is a torus knot.
 """

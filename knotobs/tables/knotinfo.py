@@ -12,7 +12,7 @@ How torus entries are recognised (no list of names is hard-coded):
   or its inverse up to a cyclic rotation.  Its closure is ``T(b, +-n)`` with the braid
   (parallel) orientation, which fixes the orientation class ``{...}`` of the entry.
 
-Storage conventions of the dataset (docs/CONVENTIONS.md §8): the knot table writes the Jones
+Storage conventions of the dataset (docs/conventions.md §8): the knot table writes the Jones
 polynomial in ``t``, the link table in ``x = t^(1/2)``; HOMFLY-PT in ``(v, z)`` with
 ``v = a^-1``; the Alexander string's normalisation varies, the Conway polynomial is
 in ``z``.
