@@ -23,9 +23,13 @@ import sys
 import traceback
 from typing import Any, Callable, Optional
 
-import click
 import typer
 from typer.core import TyperGroup
+
+try:  # a standalone click is not a dependency of recent typer (which carries its own copy)
+    import click
+except ImportError:  # pragma: no cover - depends on what else is installed
+    click = None
 
 try:  # typer >= 0.20 carries its own copy of click; catch the exceptions of both
     from typer import _click as _typer_click
@@ -35,7 +39,7 @@ except ImportError:  # pragma: no cover - older typer uses click itself
 
 def _exc(name: str) -> tuple[type, ...]:
     found = set()
-    for mod in (click, _typer_click, typer):
+    for mod in (m for m in (click, _typer_click, typer) if m is not None):
         for where in (mod, getattr(mod, "exceptions", None)):
             cls = getattr(where, name, None)
             if isinstance(cls, type):
