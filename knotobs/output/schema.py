@@ -342,7 +342,7 @@ def export_grid(store: str, fmt: str = "csv", out: str | None = None) -> str:
     >>> path = os.path.join(tempfile.mkdtemp(), "g.sqlite")
     >>> _ = run_grid(GridSpec(["T(2,3)"], "SU(2)", [[1]]), path, workers=0, progress=False)
     >>> print(export_grid(path, "csv").splitlines()[1])
-    "T(2,3)",S^3,SU(2),[1],[0],,generic,q,-q**-4 + q**-3 + q**-1,,,normalized (unknot = 1),wilson-loop,0.1.0
+    "T(2,3)",S^3,SU(2),[1],[0],,generic,q,-q**-4 + q**-3 + q**-1,,,normalized (unknot = 1),wilson-loop,0.2.0
 
     References
     ----------
