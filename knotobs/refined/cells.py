@@ -20,7 +20,7 @@ from typing import Iterator, NamedTuple, Sequence
 
 from knotobs.representations.partitions import conjugate, partitions_of
 
-__all__ = ["Cell", "cells", "n_of", "conjugate", "partitions_of"]
+__all__ = ["Cell", "cells", "n_of", "conjugate", "partitions_of", "partition_count"]
 
 
 class Cell(NamedTuple):
@@ -44,3 +44,37 @@ def cells(mu: Sequence[int]) -> Iterator[Cell]:
 def n_of(mu: Sequence[int]) -> int:
     """``n(mu) = sum_i i mu_i`` (rows counted from 0)."""
     return sum(i * x for i, x in enumerate(mu))
+
+
+def partition_count(n: int) -> float:
+    """The number ``p(n)`` of partitions of ``n``, without listing them.
+
+    Exact (Euler's pentagonal recurrence) for ``n <= 400``; above, the Hardy–Ramanujan
+    asymptotic ``exp(pi sqrt(2n/3)) / (4 n sqrt 3)`` (G. H. Hardy, S. Ramanujan, Proc. London
+    Math. Soc. 17 (1918)), which is all an estimate needs.
+
+    >>> partition_count(7), partition_count(100)
+    (15, 190569292)
+    >>> partition_count(9999) > 1e100
+    True
+    """
+    import math
+
+    if n < 0:
+        return 0
+    if n <= 400:
+        p = [1] + [0] * n
+        for m in range(1, n + 1):
+            total, k = 0, 1
+            while True:
+                g1, g2 = k * (3 * k - 1) // 2, k * (3 * k + 1) // 2
+                if g1 > m:
+                    break
+                sign = 1 if k % 2 else -1
+                total += sign * p[m - g1]
+                if g2 <= m:
+                    total += sign * p[m - g2]
+                k += 1
+            p[m] = total
+        return p[n]
+    return math.exp(math.pi * math.sqrt(2 * n / 3)) / (4 * n * math.sqrt(3))
