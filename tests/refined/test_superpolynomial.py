@@ -144,3 +144,16 @@ def test_refusals_name_the_value(knot, rep, err):
 def test_nabla_route_refuses_knots_outside_its_family():
     with pytest.raises(InvalidKnotError, match=r"T\(3,5\)"):
         superpolynomial("T(3,5)", route="nabla")
+
+
+def test_huge_knot_is_refused_at_once():
+    """The guard estimates from n and k alone: T(9999,10000) would need p(9999) ~ 3.6e106
+    partitions (Hardy-Ramanujan 1918), and is refused before anything is enumerated."""
+    import time
+
+    from knotobs.errors import SizeLimitError
+
+    t = time.time()
+    with pytest.raises(SizeLimitError, match="T\\(9999,10000\\)|e_9999"):
+        superpolynomial("T(9999,10000)")
+    assert time.time() - t < 2
