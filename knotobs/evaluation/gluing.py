@@ -45,6 +45,7 @@ from flint import acb, arb, ctx, fmpq
 from knotobs.errors import PrecisionError, SizeLimitError
 from knotobs.evaluation.lattice_fourier import WeightLatticeFourier
 from knotobs.evaluation.sl2z_words import shortest_word, word_to_matrix
+from knotobs.evaluation.surgery import _ExactBackend
 from knotobs.guard import require, seconds_for
 from knotobs.numerics import working_precision
 from knotobs.polynomials.cyclotomic import CyclotomicField, acb_to_mpc, root_of_unity
@@ -234,31 +235,8 @@ def _use_exact(N, k, n, apps, exact) -> bool:
 # backends
 
 
-class _Exact:
-    exact = True
-
-    def __init__(self, md):
-        self.md = md
-        N, K = md.N, md.K
-        self.M = math.lcm(2 * N * K, 8 * K)
-        self.F = CyclotomicField(self.M)
-        self.h_exp = [int(h * self.M) for h in md.twist_exponents()]
-        self._St = None
-
-    def stilde(self):
-        if self._St is None:
-            n = self.md.size
-            self._St = [[self.md.stilde(i, j).to_field(self.M) for j in range(n)] for i in range(n)]
-        return self._St
-
-    def column(self, j):
-        St = self.stilde()
-        return [St[i][j] for i in range(self.md.size)]
-
-    def theta_pow(self, v, c):
-        if c == 0:
-            return v
-        return [x * self.F.zeta(c * h) for x, h in zip(v, self.h_exp)]
+class _Exact(_ExactBackend):
+    """The exact cyclotomic backend of the surgery route, applying ``S`` to several vectors at once."""
 
     def apply_S(self, vs):
         St = self.stilde()
@@ -278,9 +256,6 @@ class _Exact:
 
     def power(self, x, e):
         return x ** e
-
-    def zero(self):
-        return self.F.zero
 
 
 class _Balls:
