@@ -30,7 +30,6 @@ orients them against the convention ``h ~ a_i c_i``).
 from __future__ import annotations
 
 import dataclasses
-import math
 from fractions import Fraction
 from typing import Mapping, Sequence
 
@@ -41,8 +40,9 @@ from knotobs.evaluation.families import RouteMismatchError
 from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.guard import current_limits, require, seconds_for
 from knotobs.localisation.formula import LocalisationSum, exact_cost
-from knotobs.localisation.lattice import alcove_size, reduce_colour
+from knotobs.localisation.lattice import alcove_size
 from knotobs.localisation.values import (
+    check_fiber_lines,
     EXACT_COST_LIMIT,
     as_manifold,
     localisation_fiber_wilson_loop,
@@ -393,17 +393,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
         raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(LOOP_ROUTES)}")
     M = as_manifold(space)
     N, k = _group_level(group, level)
-    exceptional = dict(exceptional or {})
-    for j in exceptional:
-        if isinstance(j, bool) or not isinstance(j, int) or not 0 <= j < len(M.fibers):
-            raise InvalidSeifertDataError(
-                f"fiber index {j!r} does not exist: valid indices are 0..{len(M.fibers) - 1}"
-                if M.fibers else f"fiber index {j!r} does not exist: the space has no exceptional fibers"
-            )
-    regular = [reduce_colour(nu, N, k) for nu in regular]
-    exceptional = {j: reduce_colour(mu, N, k) for j, mu in exceptional.items()}
-    if framing not in ("fiber", "zero"):
-        raise KnotobsError(f"framing {framing!r} is not known: use 'fiber' or 'zero'")
+    regular, exceptional = check_fiber_lines(M, N, k, regular, exceptional, framing)
     factor = 2 if normalized else 1
     ests = []
     s = _surgery_estimate(M, N, k, lines=len(regular) + len(exceptional))

@@ -26,7 +26,7 @@ from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.fibrations.seifert import SeifertManifold, parse_space
 from knotobs.guard import require, seconds_for
 from knotobs.localisation.formula import LocalisationSum, exact_cost
-from knotobs.localisation.lattice import alcove_size, reduce_colour
+from knotobs.localisation.lattice import reduce_colour
 from knotobs.numerics import working_precision
 from knotobs.polynomials.cyclotomic import root_of_unity
 from knotobs.representations.groups import parse_group
@@ -69,6 +69,23 @@ def as_manifold(space) -> SeifertManifold:
         f"{space!r} is not a Seifert manifold: give 'M(g; b; (a1,b1), ...)', a SeifertManifold,"
         " (b, [(a1, b1), ...]) or (g, b, [(a1, b1), ...])"
     )
+
+
+def check_fiber_lines(M, N: int, k: int, regular, exceptional, framing: str):
+    """Validate the Wilson lines of a fiber loop: exceptional fibers by index ``0..n-1``, the
+    framing word, and every colour reduced into the level-``k`` alcove.  Returns
+    ``(regular, exceptional)`` as reduced partitions (one check for every route)."""
+    exceptional = dict(exceptional or {})
+    for j in exceptional:
+        if isinstance(j, bool) or not isinstance(j, int) or not 0 <= j < len(M.fibers):
+            raise InvalidSeifertDataError(
+                f"fiber index {j!r} does not exist: valid indices are 0..{len(M.fibers) - 1}"
+                if M.fibers else f"fiber index {j!r} does not exist: the space has no exceptional fibers"
+            )
+    if framing not in ("fiber", "zero"):
+        raise KnotobsError(f"framing {framing!r} is not known: use 'fiber' or 'zero'")
+    return ([reduce_colour(nu, N, k) for nu in regular],
+            {j: reduce_colour(mu, N, k) for j, mu in exceptional.items()})
 
 
 def _group_level(group, level) -> tuple[int, int]:
@@ -220,17 +237,7 @@ def localisation_fiber_wilson_loop(space, level: int, group="SU(2)", regular: Se
     """
     M = as_manifold(space)
     N, k = _group_level(group, level)
-    exceptional = dict(exceptional or {})
-    for j in exceptional:
-        if isinstance(j, bool) or not isinstance(j, int) or not 0 <= j < len(M.fibers):
-            raise InvalidSeifertDataError(
-                f"fiber index {j!r} does not exist: valid indices are 0..{len(M.fibers) - 1}"
-                if M.fibers else f"fiber index {j!r} does not exist: the space has no exceptional fibers"
-            )
-    if framing not in ("fiber", "zero"):
-        raise KnotobsError(f"framing {framing!r} is not known: use 'fiber' or 'zero'")
-    regular = [reduce_colour(nu, N, k) for nu in regular]
-    exceptional = {j: reduce_colour(mu, N, k) for j, mu in exceptional.items()}
+    regular, exceptional = check_fiber_lines(M, N, k, regular, exceptional, framing)
     framings, null_hom = _framings(M, regular, exceptional)
     K = k + N
     shift = Fraction(0)
