@@ -323,6 +323,25 @@ class StarPlumbing:
     leaves: tuple[int, ...]
 
 
+def negative_normal_form(b: int, fibers) -> tuple[int, list[tuple[int, int]], Fraction]:
+    """Seifert invariants with every ``-a_i < b_i < 0`` (fibers of order 1 folded into ``b``),
+    and the Euler number ``e = -(b + sum b_i/a_i)``, which this move keeps.
+
+    >>> negative_normal_form(-1, [(2, 1), (3, 1), (5, 1)])
+    (2, [(2, -1), (3, -2), (5, -4)], Fraction(-1, 30))
+    """
+    nb = b
+    norm: list[tuple[int, int]] = []
+    for a, c in fibers:
+        if a == 1:
+            nb += c
+            continue
+        c2 = c % a - a
+        nb += (c - c2) // a
+        norm.append((a, c2))
+    return nb, norm, -(Fraction(nb) + sum(Fraction(c, a) for a, c in norm))
+
+
 def star_plumbing(space) -> StarPlumbing:
     """The negative definite star plumbing of ``M(0; b; (a_i,b_i))`` with ``e < 0`` (module docstring).
 
@@ -356,16 +375,7 @@ def star_plumbing(space) -> StarPlumbing:
             f"{space}: base genus {genus}; the q-series here need base S^2 (b_1 = 0 requires genus 0)")
     b, fibers = seifert_data(space)
     text = f"M(0; {b}; {', '.join(f'({a},{c})' for a, c in fibers)})"
-    nb = b
-    norm: list[tuple[int, int]] = []
-    for a, c in fibers:
-        if a == 1:
-            nb += c
-            continue
-        c2 = c % a - a
-        nb += (c - c2) // a
-        norm.append((a, c2))
-    e = -(Fraction(nb) + sum(Fraction(c, a) for a, c in norm))
+    nb, norm, e = negative_normal_form(b, fibers)
     if e == 0:
         raise InvalidSeifertDataError(
             f"{text} has Euler number e = 0, so b_1 = 1; the q-series here need b_1 = 0")

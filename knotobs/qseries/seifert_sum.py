@@ -41,21 +41,13 @@ __all__ = ["SeifertSum", "seifert_sum"]
 
 def _normalise(space):
     from knotobs.evaluation.surgery import seifert_data
+    from knotobs.qseries.plumbing import negative_normal_form
     from knotobs.fibrations.seifert import parse_space
 
     if isinstance(space, str):
         space = parse_space(space)
     b, fibers = seifert_data(space)
-    nb = b
-    out = []
-    for a, c in fibers:
-        if a == 1:
-            nb += c
-            continue
-        c2 = c % a - a
-        nb += (c - c2) // a
-        out.append((a, c2))
-    e = -(Fraction(nb) + sum(Fraction(c, a) for a, c in out))
+    nb, out, e = negative_normal_form(b, fibers)
     if e >= 0:
         raise InvalidSeifertDataError(
             f"Euler number e = {e}: the Seifert sum needs e < 0 (b_1 = 0, negative definite orientation)")
