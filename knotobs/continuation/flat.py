@@ -45,7 +45,7 @@ from fractions import Fraction
 from typing import Any
 
 import mpmath
-from flint import acb, arb, ctx
+from flint import acb, arb
 
 from knotobs.continuation._num import to_mpc
 from knotobs.continuation.asymptotics import Contribution, _saddle_terms, _sector_value, contributions
@@ -233,22 +233,15 @@ class FlatTable(NotebookMixin):
             "casson": None if self.casson is None else (int(self.casson) if Fraction(self.casson).denominator == 1 else str(self.casson)),
             "casson_normalisation": "lambda(Sigma(2,3,5)) = -1 (link-of-singularity orientation)",
             "ohtsuki": [str(c) for c in self.ohtsuki],
-            "ohtsuki_variable": f"Z_trivial/Z(S^3) = |H_1|^(-3/2) sum_n c_n (q - 1)^n",
+            "ohtsuki_variable": "Z_trivial/Z(S^3) = |H_1|^(-3/2) sum_n c_n (q - 1)^n",
             "notes": list(self.notes),
         }
 
     def text(self) -> str:
-        lines = [f"flat SU(2) connections on {self.space}   (|H_1| = {abs(self.H)})",
-                 f"{'kind':<12} {'cs mod 1':>10} {'mult':>4}  {'K^p':>5}  {'|A|':>18}  {'phase/2pi':>10}  rotation numbers"]
-        for c in self.connections:
-            rot = "; ".join(str(r[1]) for r in c.rotation) if c.rotation else ""
-            lines.append(f"{c.kind:<12} {str(c.cs):>10} {c.multiplicity:>4}  {str(c.K_power):>5}  "
-                         f"{mpmath.nstr(abs(c.amplitude), 12):>18}  {mpmath.nstr(c.phase, 6):>10}  {rot}")
-        if self.casson is not None:
-            lines.append(f"Casson invariant: {self.casson}   (normalised so that lambda(Sigma(2,3,5)) = -1)")
-        lines.append("Ohtsuki series c_n (tau_0 = |H|^-3/2 sum c_n (q-1)^n): " + ", ".join(str(c) for c in self.ohtsuki))
-        lines.extend(f"note: {n}" for n in self.notes)
-        return "\n".join(lines)
+        """The readable table (the one ``knotobs flat`` prints; :func:`knotobs.output.continuation_text.flat_text`)."""
+        from knotobs.output.continuation_text import flat_text
+
+        return flat_text(self)
 
 
 def _amplitude(d: LRData, c: Contribution) -> tuple[mpmath.mpc, Fraction]:
