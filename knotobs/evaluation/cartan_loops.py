@@ -10,7 +10,6 @@ of long roots of length^2 = 2, ``q = exp(2 pi i/(k + h^vee))`` at level ``k``.
 
 from __future__ import annotations
 
-from knotobs.errors import KnotobsError
 from knotobs.evaluation.cartan_colours import labels_for
 from knotobs.evaluation.cartan_rosso_jones import rosso_jones_cartan
 from knotobs.evaluation.cartan_weight_sum import weight_sum_cartan
@@ -20,30 +19,19 @@ from knotobs.evaluation.result import PolynomialResult
 from knotobs.fibrations.torus import parse_knot
 from knotobs.representations.cartan.characters import quantum_dimension
 from knotobs.representations.cartan.group import simple_group
+from knotobs.evaluation.two_routes import ROUTES, run_routes
 
 __all__ = ["simple_wilson_loop", "CARTAN_ROUTES"]
 
-CARTAN_ROUTES = ("rosso-jones", "weight-sum", "both")
+CARTAN_ROUTES = ROUTES
 
 
 def _value(knot, group, labels, framing, route):
-    from knotobs.evaluation.families import RouteMismatchError
-
-    if route not in CARTAN_ROUTES:
-        raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(CARTAN_ROUTES)}")
-    reps = list(labels)
     from knotobs.representations.cartan.group import Dynkin
 
-    reps = [Dynkin(x) for x in reps]
-    if route == "rosso-jones":
-        return rosso_jones_cartan(knot, group, reps, framing)
-    if route == "weight-sum":
-        return weight_sum_cartan(knot, group, reps, framing)
-    a = rosso_jones_cartan(knot, group, reps, framing)
-    b = weight_sum_cartan(knot, group, reps, framing)
-    if a != b:
-        raise RouteMismatchError(f"Rosso-Jones and weight-sum disagree for {knot}, {group}, {reps}")
-    return a
+    reps = [Dynkin(x) for x in labels]
+    return run_routes(route, lambda: rosso_jones_cartan(knot, group, reps, framing),
+                      lambda: weight_sum_cartan(knot, group, reps, framing), f"{knot}, {group}, {reps}")
 
 
 def simple_wilson_loop(knot, group, rep="[1]", framing: FramingSpec = 0, normalized: bool = False,

@@ -24,10 +24,9 @@ All of them come from the same zero-framed Wilson loop ``W`` of docs/conventions
 from __future__ import annotations
 
 from fractions import Fraction
-from math import gcd
-from typing import Sequence
 
 from knotobs.errors import InvalidRepresentationError, KnotobsError
+from knotobs.evaluation.two_routes import ROUTES, RouteMismatchError, run_routes
 from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.evaluation.profiles import NORMALISED, UNNORMALISED, Profile
 from knotobs.evaluation.result import PolynomialResult
@@ -45,20 +44,16 @@ from knotobs.representations.groups import (
     homfly_unknot,
     parse_group,
     quantum_dimension,
-    quantum_integer,
 )
 from knotobs.representations.cartan.group import is_simple_group_name
 from knotobs.representations.partitions import as_partition, contents
 
 __all__ = ["wilson_loop", "jones", "colored_jones", "homfly", "homfly_at", "alexander", "ROUTES", "RouteMismatchError"]
 
-ROUTES = ("rosso-jones", "weight-sum", "both")
 
 _T_MAPS = {"q^-1": -1, "1/q": -1, "q": 1}
 
 
-class RouteMismatchError(KnotobsError, ArithmeticError):
-    """The two independent routes disagreed (a bug; please report it with the inputs)."""
 
 
 def _framing_note(knot: TorusLink, framing: FramingSpec, frames: tuple[int, ...]) -> str:
@@ -70,17 +65,8 @@ def _framing_note(knot: TorusLink, framing: FramingSpec, frames: tuple[int, ...]
 
 
 def _route_value(knot, group, cols, framing, route):
-    if route not in ROUTES:
-        raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(ROUTES)}")
-    if route == "rosso-jones":
-        return rosso_jones(knot, group, cols, framing)
-    if route == "weight-sum":
-        return weight_sum(knot, group, cols, framing)
-    a = rosso_jones(knot, group, cols, framing)
-    b = weight_sum(knot, group, cols, framing)
-    if a != b:
-        raise RouteMismatchError(f"Rosso-Jones and weight-sum disagree for {knot}, {group}, {cols}")
-    return a
+    return run_routes(route, lambda: rosso_jones(knot, group, cols, framing),
+                      lambda: weight_sum(knot, group, cols, framing), f"{knot}, {group}, {cols}")
 
 
 def wilson_loop(
@@ -163,17 +149,8 @@ def _t_sign(t_is: str) -> int:
 
 
 def _route_dense(knot, group, cols, framing, route) -> Dense:
-    if route not in ROUTES:
-        raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(ROUTES)}")
-    if route == "rosso-jones":
-        return rosso_jones_dense(knot, group, cols, framing)
-    if route == "weight-sum":
-        return weight_sum_dense(knot, group, cols, framing)
-    a = rosso_jones_dense(knot, group, cols, framing)
-    b = weight_sum_dense(knot, group, cols, framing)
-    if a != b:
-        raise RouteMismatchError(f"Rosso-Jones and weight-sum disagree for {knot}, {group}, {cols}")
-    return a
+    return run_routes(route, lambda: rosso_jones_dense(knot, group, cols, framing),
+                      lambda: weight_sum_dense(knot, group, cols, framing), f"{knot}, {group}, {cols}")
 
 
 def _divide_by_qinteger(w: Dense, n: int) -> Dense:

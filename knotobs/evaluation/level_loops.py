@@ -19,7 +19,7 @@ import mpmath
 from knotobs.numerics import working_precision
 
 from knotobs.errors import InexactDivisionError, InvalidKnotError, KnotobsError, SizeLimitError
-from knotobs.evaluation.families import RouteMismatchError
+from knotobs.evaluation.two_routes import RouteMismatchError
 from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.evaluation.framing import resolve_framing
 from knotobs.evaluation.rosso_jones import colours_for, rosso_jones

@@ -36,7 +36,7 @@ from typing import Mapping, Sequence
 import mpmath
 
 from knotobs.errors import InvalidSeifertDataError, KnotobsError, NotIntegrableError, SizeLimitError
-from knotobs.evaluation.families import RouteMismatchError
+from knotobs.evaluation.two_routes import RouteMismatchError
 from knotobs.evaluation.finite_value import FiniteLevelValue
 from knotobs.guard import current_limits, require, seconds_for
 from knotobs.localisation.formula import LocalisationSum, exact_cost

@@ -378,7 +378,7 @@ def so3_level_loop(knot: Optional[str], level: int, rep="[1]", space: str = "S^3
         diff = abs(ctx.make_mpc((check.real._mpf_, check.imag._mpf_)) - ctx.make_mpc((num.real._mpf_, num.imag._mpf_)))
         details["polynomial_check"] = float(diff)
         if diff > ctx.mpf(10) ** (3 - digits) * max(1, abs(num)):
-            from knotobs.evaluation.families import RouteMismatchError
+            from knotobs.evaluation.two_routes import RouteMismatchError
 
             raise RouteMismatchError(f"SO(3) gluing and the Rosso-Jones polynomial disagree for {k} at level {level}")
     if ex is not None:
