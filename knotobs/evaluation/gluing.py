@@ -48,7 +48,8 @@ from knotobs.evaluation.sl2z_words import shortest_word, word_to_matrix
 from knotobs.evaluation.surgery import _ExactBackend
 from knotobs.guard import require, seconds_for
 from knotobs.numerics import working_precision
-from knotobs.polynomials.cyclotomic import CyclotomicField, acb_to_mpc, root_of_unity
+from knotobs.polynomials.cyclotomic import acb_to_mpc, root_of_unity
+from knotobs.representations.permutations import permutation_sign
 
 __all__ = ["GluingPlan", "plan_gluing", "evaluate_gluing", "surgery_cost", "surgery_route_cost",
            "EXACT_COST_LIMIT"]
@@ -289,7 +290,7 @@ class _Balls:
         y = x[j]
         out = [acb(0)] * md.size
         for p in itertools.permutations(range(N)):
-            sgn = _perm_sign(p)
+            sgn = permutation_sign(p)
             E = ((X * X[j] - N * (x[:, list(p)] @ y)) % self.NK).tolist()
             roots = self.roots
             if sgn > 0:
@@ -311,16 +312,6 @@ class _Balls:
 
     def zero(self):
         return acb(0)
-
-
-def _perm_sign(p) -> int:
-    sign, p = 1, list(p)
-    for i in range(len(p)):
-        while p[i] != i:
-            j = p[i]
-            p[i], p[j] = p[j], p[i]
-            sign = -sign
-    return sign
 
 
 def _dual_perm(md) -> list[int]:

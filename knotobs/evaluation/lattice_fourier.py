@@ -48,6 +48,7 @@ from typing import Sequence
 import numpy as np
 from flint import acb, acb_mat, arb, ctx
 from knotobs.numerics import working_precision
+from knotobs.representations.permutations import permutation_sign
 
 __all__ = ["WeightLatticeFourier", "smith_normal_form", "DENSE_AXIS_MAX"]
 
@@ -120,16 +121,6 @@ def smith_normal_form(A: Sequence[Sequence[int]]) -> tuple[list[list[int]], list
     return U, V, [M[i][i] for i in range(n)]
 
 
-def _perm_sign(p: Sequence[int]) -> int:
-    sign, p = 1, list(p)
-    for i in range(len(p)):
-        while p[i] != i:
-            j = p[i]
-            p[i], p[j] = p[j], p[i]
-            sign = -sign
-    return sign
-
-
 @lru_cache(maxsize=64)
 def _twiddle(d: int, prec: int) -> acb_mat:
     """``exp(-2 pi i j k/d)`` as a ``d x d`` ball matrix at ``prec`` bits."""
@@ -185,7 +176,7 @@ class WeightLatticeFourier:
 
         self.out_index = flat(x, Vt)                             # xhat(x_lam)
         perms = list(itertools.permutations(range(N)))
-        self.signs = [_perm_sign(p) for p in perms]
+        self.signs = [permutation_sign(p) for p in perms]
         self.in_index = np.stack([flat(x[:, list(p)], U) for p in perms], axis=1)  # (n, N!)
         if len(np.unique(self.in_index)) != self.n * len(perms):  # pragma: no cover - defensive
             raise AssertionError("Weyl images of alcove points collide in P/KQ")

@@ -36,7 +36,6 @@ from knotobs.errors import (
     InvalidGroupError,
     InvalidRepresentationError,
     NotIntegrableError,
-    ParseError,
 )
 from knotobs.guard import require, seconds_for
 from knotobs.polynomials.cyclotomic import (
@@ -46,6 +45,7 @@ from knotobs.polynomials.cyclotomic import (
 )
 from knotobs.representations.partitions import Partition, as_partition, kappa
 from knotobs.numerics import working_precision
+from knotobs.representations.permutations import permutation_sign
 
 __all__ = [
     "parse_group",
@@ -177,17 +177,6 @@ def _rho_coords(lam: Sequence[int], N: int) -> tuple[int, ...]:
     return tuple(lam[i] + N - 1 - i for i in range(N))
 
 
-def _perm_sign(p: Sequence[int]) -> int:
-    sign = 1
-    p = list(p)
-    for i in range(len(p)):
-        while p[i] != i:
-            j = p[i]
-            p[i], p[j] = p[j], p[i]
-            sign = -sign
-    return sign
-
-
 def kac_walton_reduce(x: Sequence[int], N: int, K: int) -> tuple[int, Partition | None]:
     """Reduce a shifted weight ``x = lam + rho`` (R^N coordinates) into the level-``K`` alcove.
 
@@ -209,7 +198,7 @@ def kac_walton_reduce(x: Sequence[int], N: int, K: int) -> tuple[int, Partition 
     sign = 1
     for _ in range(10_000):
         order = sorted(range(N), key=lambda i: -x[i])
-        sign *= _perm_sign(order)
+        sign *= permutation_sign(order)
         x = [x[i] for i in order]
         if any(x[i] == x[i + 1] for i in range(N - 1)):
             return 0, None
@@ -363,7 +352,7 @@ class ModularData:
         for a, p in enumerate(perms):
             dot = x[:, list(p)] @ x.T
             E[a] = (np.outer(X, X) - N * dot) % (N * K)
-            eps[a] = _perm_sign(p)
+            eps[a] = permutation_sign(p)
         return E, eps
 
     def S_numeric(self) -> np.ndarray:

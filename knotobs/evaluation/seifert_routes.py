@@ -114,22 +114,6 @@ def _surgery_estimate(M, N: int, k: int, lines: int = 0) -> RouteEstimate:
                          " Fourier transform over the weight lattice")
 
 
-def _ncf(p: int, q: int) -> list[int]:
-    """Length of the negative continued fraction of p/q (the chain of the surgery route)."""
-    if q == 0:
-        return []
-    if q < 0:
-        p, q = -p, -q
-    out = []
-    while True:
-        c = -((-p) // q)
-        out.append(c)
-        r = c * q - p
-        if r == 0 or len(out) > 200:
-            return out
-        p, q = q, r
-
-
 def _gauss_estimate(M, N: int, k: int) -> RouteEstimate:
     if N != 2:
         return RouteEstimate("gauss-sum", None, None, "the Lawrence-Rozansky Gauss sum is SU(2) only;"

@@ -28,6 +28,7 @@ import numpy as np
 
 from knotobs.errors import InvalidRepresentationError, NotIntegrableError
 from knotobs.representations.partitions import as_partition
+from knotobs.representations.permutations import permutation_sign
 
 __all__ = [
     "alcove_size",
@@ -113,19 +114,8 @@ def weyl_group(N: int) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """
     perms = np.array(list(itertools.permutations(range(N))), dtype=np.int64)
     inv = np.argsort(perms, axis=1)
-    signs = np.array([_sign(p) for p in perms.tolist()], dtype=np.int64)
+    signs = np.array([permutation_sign(p) for p in perms.tolist()], dtype=np.int64)
     return perms, inv, signs
-
-
-def _sign(p: Sequence[int]) -> int:
-    p = list(p)
-    s = 1
-    for i in range(len(p)):
-        while p[i] != i:
-            j = p[i]
-            p[i], p[j] = p[j], p[i]
-            s = -s
-    return s
 
 
 def cartan_matrix(N: int) -> np.ndarray:
