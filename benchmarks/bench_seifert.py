@@ -1,4 +1,4 @@
-"""Speed table of the Seifert-manifold routes (issue #9): localisation, surgery, Gauss sum.
+"""Speed table of the Seifert-manifold routes (issue #9): localisation, surgery, Gauss sum, integral form.
 
 For every case the in-process time of each applicable route (minimum of 3 runs, caches
 cleared before each run, 30 certified digits) and the time of the ``knotobs`` command with
@@ -80,7 +80,7 @@ def main() -> None:
     ap.add_argument("--runs", type=int, default=3)
     ap.add_argument("--no-cli", action="store_true")
     args = ap.parse_args()
-    routes = ("localisation", "surgery", "gauss-sum")
+    routes = ("localisation", "surgery", "gauss-sum", "integral")
     print(f"{'case':46s} {'target':>14s} " + " ".join(f"{r:>13s}" for r in routes) + f" {'CLI auto':>9s}  value")
     for label, space, group, level, colour, target in CASES:
         cells = []
@@ -111,7 +111,7 @@ def main() -> None:
         print(f"{label:46s} {target:>14s} " + " ".join(f"{c:>13s}" for c in cells) + f" {cli:>9s}  {value}")
     print("\nseconds; in-process: min of %d runs with caches cleared; CLI: min of %d fresh processes"
           " (start-up included), --route auto; '(est Ns)': estimate above --max-route, not run" % (args.runs, args.runs))
-    print("not in this table: SU(3) continuation in K (issue #9 item 4) is not implemented")
+    print("the SU(N) continuation in K has its own table: benchmarks/bench_continuation_sun.py")
 
 
 if __name__ == "__main__":

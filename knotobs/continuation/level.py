@@ -47,33 +47,37 @@ the requested digits.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass, field
 from fractions import Fraction
-from typing import Any, Sequence
+from typing import Any
 
 import mpmath
-from flint import acb, arb
+from flint import acb
 
-from knotobs.continuation._num import (
-    bernoulli_plus,
-    bits,
-    checked,
-    parse_complex,
-    ser_exp,
-    ser_inv,
-    ser_mul,
-    ser_sin,
-    to_acb,
-    to_mpc,
-    ball_seconds,
-    working_bits,
+from knotobs.ball_series import bits, checked, parse_complex, to_acb, to_mpc, working_bits
+from knotobs.errors import KnotobsError, PrecisionError
+from knotobs.evaluation.lr_integral import (  # noqa: F401  (the integral form; re-exported)
+    DomainError,
+    LRData,
+    ResidueTerm,
+    _B,
+    _G,
+    _G_series,
+    _Z_acb,
+    _angle,
+    _phase,
+    _quadrature,
+    _residue_value,
+    _saddle_integral,
+    _sectors_acb,
+    _sym,
+    continuation_cost,
+    require_continuation,
+    residue_terms,
 )
-from knotobs.errors import InvalidSeifertDataError, KnotobsError, PrecisionError, SizeLimitError
-from knotobs.guard import require
 from knotobs.numerics import working_precision
 from knotobs.precision import certified_parts, check_digits
-from knotobs.fibrations.seifert import SeifertManifold, parse_space
+from knotobs.fibrations.seifert import parse_space
 from knotobs.polynomials.laurent import Laurent
 from knotobs._notebook import NotebookMixin
 
@@ -93,10 +97,6 @@ __all__ = [
 ]
 
 
-class DomainError(KnotobsError, ValueError):
-    """A complex level outside the region where the continuation formula is set up."""
-
-
 # ---------------------------------------------------------------------------
 # levels
 
@@ -113,7 +113,7 @@ def resolve_K(level=None, K=None, N: int = 2) -> mpmath.mpc:
     >>> resolve_K()
     Traceback (most recent call last):
     ...
-    knotobs.continuation.level.DomainError: give the level k (K = k + 2) or the shifted level K
+    knotobs.evaluation.lr_integral.DomainError: give the level k (K = k + 2) or the shifted level K
     """
     if (level is None) == (K is None):
         raise DomainError(f"give the level k (K = k + {N}) or the shifted level K" if level is None
@@ -190,396 +190,6 @@ def evaluate_polynomial(poly: Laurent, *, K=None, level=None, q=None, N: int = 2
             raise PrecisionError(f"polynomial value not stable to {digits} digits; request fewer digits")
     with working_precision(digits):
         return +z2
-
-
-# ---------------------------------------------------------------------------
-# Lawrence–Rozansky data
-
-
-@dataclass(frozen=True)
-class LRData:
-    """``X(p_1/q_1, ..., p_n/q_n)`` data of a Seifert rational homology sphere.
-
-    Attributes
-    ----------
-    space : SeifertManifold
-    pq : tuple of (p_j, q_j)
-        ``p_j >= 1``; entries ``1/0`` dropped.
-    P, H : int
-        ``P = prod p_j``, ``H = P sum q_j/p_j`` (``|H| = |H_1(M)|``, ``H != 0``).
-    phi : Fraction
-        ``3 sign(H) + sum_j (12 s(q_j, p_j) - q_j/p_j)`` (CONVENTIONS §9).
-
-    Examples
-    --------
-    >>> d = LRData.from_space("Sigma(2,3,5)")
-    >>> d.P, d.H, d.n
-    (30, 1, 4)
-    >>> LRData.from_space("S^2xS^1")
-    Traceback (most recent call last):
-    ...
-    knotobs.errors.InvalidSeifertDataError: M(0; 0) has H = 0 (infinite H_1): the Lawrence-Rozansky continuation needs a rational homology sphere
-
-    References
-    ----------
-    Lawrence & Rozansky, Commun. Math. Phys. 205 (1999) 287–314.
-    """
-
-    space: SeifertManifold
-    pq: tuple[tuple[int, int], ...]
-    P: int
-    H: int
-    phi: Fraction
-
-    @classmethod
-    def from_space(cls, space) -> "LRData":
-        from knotobs.evaluation.gauss_sum import lr_data
-
-        M = parse_space(space)
-        raw = list(M.surgery_presentation())
-        pq, P, H, phi = lr_data(raw) if raw else ([], 1, 0, Fraction(0))
-        if H == 0:
-            raise InvalidSeifertDataError(
-                f"{M} has H = 0 (infinite H_1): the Lawrence-Rozansky continuation needs a"
-                " rational homology sphere"
-            )
-        return cls(M, tuple(pq), P, H, phi)
-
-    @property
-    def n(self) -> int:
-        return len(self.pq)
-
-    @property
-    def sigma(self) -> int:
-        return 1 if self.H > 0 else -1
-
-    @property
-    def ps(self) -> tuple[int, ...]:
-        return tuple(p for p, _ in self.pq)
-
-    def pole_order(self, m: int) -> int:
-        """Order of the pole of ``G`` at the integer ``m`` (``<= 0``: regular)."""
-        return (self.n - 2) - sum(1 for p in self.ps if m % p == 0)
-
-    def saddle(self, r: int) -> Fraction:
-        """Centre ``-2 P r/|H|`` of the ``r``-th Gaussian."""
-        return Fraction(-2 * self.P * r, abs(self.H))
-
-
-# ---------------------------------------------------------------------------
-# the pieces
-
-
-def _B(d: LRData, K: acb) -> acb:
-    pi = arb.pi()
-    ph = acb(d.phi.numerator) / d.phi.denominator
-    return (-1 / (4 * arb(d.P).sqrt())) * (acb(0, 3 * d.sigma) * pi / 4).exp() * (acb(0, -1) * pi * ph / (2 * K)).exp()
-
-
-def _G(d: LRData, z: acb) -> acb:
-    ipz = acb(0, 1) * arb.pi() * z
-    num = acb(1)
-    for p in d.ps:
-        e = (ipz / p).exp()
-        num *= e - 1 / e
-    m = d.n - 2
-    if m == 0:
-        return num
-    e = ipz.exp()
-    den = e - 1 / e
-    return num / den ** m if m > 0 else num * den ** (-m)
-
-
-def _G_series(d: LRData, m: int, length: int) -> tuple[list[acb], int]:
-    """``G(m + w) = w^-(n-2) * F(w)``; returns the first ``length`` coefficients of ``F``."""
-    pi = arb.pi()
-    num = [acb(1)] + [acb(0)] * (length - 1)
-    for p in d.ps:
-        s = ser_sin(acb(pi * m / p), acb(pi / p), length)
-        num = ser_mul(num, [acb(0, 2) * c for c in s], length)
-    k = d.n - 2
-    # sin(pi(m+w)) = (-1)^m pi w S(w),  S(w) = sum (-1)^j (pi w)^(2j)/(2j+1)!
-    S = [acb(0)] * length
-    fact = 1
-    for j in range(0, length):
-        if j > 0:
-            fact *= j
-        if j % 2 == 0:
-            S[j] = acb((-1) ** (j // 2)) * pi ** j / (fact * (j + 1))
-    c = acb(0, 2) * ((-1) ** (m % 2)) * pi
-    if k > 0:
-        Sk = [acb(1)] + [acb(0)] * (length - 1)
-        for _ in range(k):
-            Sk = ser_mul(Sk, S, length)
-        F = ser_mul(num, ser_inv(Sk, length), length)
-        F = [x / c ** k for x in F]
-        return F, k
-    # k <= 0: G = num * (c w S)^|k| -> shift into F with w^-(k) = w^|k|
-    Sk = [acb(1)] + [acb(0)] * (length - 1)
-    for _ in range(-k):
-        Sk = ser_mul(Sk, S, length)
-    F = ser_mul(num, Sk, length)
-    F = [x * c ** (-k) for x in F]
-    # G = w^{|k|} F = w^{-(k)} F : same convention with exponent k (negative)
-    return F, k
-
-
-def _gauss_series(d: LRData, m: int, K: acb, extra_lin: acb, length: int) -> list[acb]:
-    """Series of ``exp(-i pi K H (2 m w + w^2)/(2P) + extra_lin * w)``."""
-    c = acb(0, -1) * arb.pi() * K * d.H / (2 * d.P)
-    return ser_exp([acb(0), c * 2 * m + extra_lin, c], length)
-
-
-@dataclass(frozen=True)
-class ResidueTerm:
-    """One exact (residue) contribution ``exp(2 pi i K cs) * A(K)`` to ``Z(K)/B(K)``.
-
-    ``kind`` is ``"period"`` (a pole ``z = m`` of ``h/(1 - e^{-2 pi i sigma K (z-m)})``,
-    ``0 < m < 2P``) or ``"shift"`` (a pole of ``G`` passed when the ``r``-th Gaussian
-    contour is moved to its centre).  ``cs = -H m^2/(4P) mod 1`` in both cases.
-    """
-
-    kind: str
-    m: int
-    r: int
-    pole_order: int
-    cs: Fraction
-
-
-def residue_terms(data: LRData) -> list[ResidueTerm]:
-    """The exact residue contributions of the Lawrence–Rozansky representation.
-
-    >>> terms = residue_terms(LRData.from_space("Sigma(2,3,5)"))
-    >>> sorted({t.cs for t in terms})[-2:]        # among them -49/120 and -1/120 mod 1
-    [Fraction(29, 30), Fraction(119, 120)]
-    """
-    out = []
-    if data.n >= 3:
-        for m in range(1, 2 * data.P):
-            o = data.pole_order(m)
-            if o >= 0:
-                out.append(ResidueTerm("period", m, 0, o + 1, _cs(data, m)))
-        for r in range(1, abs(data.H)):
-            c = -data.saddle(r)        # saddle at -c, c > 0
-            for m in range(-math.ceil(c) + 1 if c.denominator == 1 else -math.floor(c), 0):
-                o = data.pole_order(m)
-                if o >= 1:
-                    out.append(ResidueTerm("shift", m, r, o, _cs(data, m)))
-            if c.denominator == 1 and data.pole_order(-int(c)) >= 1:
-                # saddle on a pole: the contour is moved to -c - 1/2, passing that pole too
-                m = -int(c)
-                out.append(ResidueTerm("shift", m, r, data.pole_order(m), _cs(data, m)))
-    return out
-
-
-def _cs(d: LRData, m: int) -> Fraction:
-    return Fraction(-d.H * m * m, 4 * d.P) % 1
-
-
-def _sym(x: Fraction) -> Fraction:
-    """Representative of ``x mod 1`` in ``(-1/2, 1/2]``."""
-    y = x % 1
-    return y - 1 if y > Fraction(1, 2) else y
-
-
-def _phase(K: acb, x: Fraction) -> acb:
-    """``exp(2 pi i K x)`` for a rational ``x``."""
-    return (acb(0, 2) * arb.pi() * K * x.numerator / x.denominator).exp()
-
-
-def _residue_value(d: LRData, t: ResidueTerm, K: acb, reduced: bool = False) -> acb:
-    """Value of the residue (without the factor ``-2 pi i sigma``), full phase included.
-
-    With ``reduced`` the phase ``exp(2 pi i K x)`` uses the representative of ``x mod 1``
-    in ``(-1/2, 1/2]``; the two agree at every integer ``K``.
-    """
-    n2 = d.n - 2
-    length = max(n2 + 2, 2)
-    F, k = _G_series(d, t.m, length)
-    two_pi_i = acb(0, 2) * arb.pi()
-    if t.kind == "period":
-        gs = _gauss_series(d, t.m, K, acb(0), length)
-        bern = [acb(x.numerator) / x.denominator * (two_pi_i * d.sigma * K) ** j
-                for j, x in enumerate(bernoulli_plus(length))]
-        ser = ser_mul(ser_mul(F, gs, length), bern, length)
-        # Phi = w^-(k) F gs * (1/(2 pi i sigma K w)) bern -> coefficient of w^k
-        val = ser[k] / (two_pi_i * d.sigma * K) if 0 <= k < length else acb(0)
-        x = Fraction(-d.H * t.m * t.m, 4 * d.P)
-        return (_phase(K, _sym(x)) if reduced else _phase(K, x)) * val
-    # shift: residue of exp(-i pi K H z^2/(2P)) exp(-2 pi i sigma K r z) G(z) at z = m
-    lin = -two_pi_i * d.sigma * K * t.r
-    gs = _gauss_series(d, t.m, K, lin, length)
-    ser = ser_mul(F, gs, length)
-    val = ser[k - 1] if 1 <= k <= length else acb(0)
-    x = Fraction(-d.H * t.m * t.m, 4 * d.P) - d.sigma * t.r * t.m
-    return (_phase(K, _sym(x)) if reduced else _phase(K, x)) * val
-
-
-def _angle(d: LRData, K: acb) -> tuple[acb, float]:
-    """Contour direction ``u = exp(i theta)`` and ``|sin theta|``."""
-    alpha = float(mpmath.arg(mpmath.mpc(float(K.real.mid()), float(K.imag.mid()))))
-    theta = -d.sigma * math.pi / 4 - alpha / 2
-    if d.sigma == 1 and not (-math.pi / 2 < alpha < math.pi):
-        theta -= math.pi          # arg K in (-pi, -pi/2]: same line reached the other way round
-    if d.sigma == -1 and not (-math.pi < alpha < math.pi / 2):
-        theta += math.pi
-    st = abs(math.sin(theta))
-    if st < 0.02:
-        raise DomainError(
-            f"K = {mpmath.nstr(to_mpc(K, 10), 8)} lies on (or too close to) the cut arg K ="
-            f" {'-' if d.sigma > 0 else '+'}pi/2 of the continuation of {d.space}; move K off that ray"
-        )
-    # theta from the arb value of arg K to full precision
-    argK = K.arg() if hasattr(K, "arg") else arb(alpha)
-    th = -d.sigma * arb.pi() / 4 - argK / 2
-    if d.sigma == 1 and not (-math.pi / 2 < alpha < math.pi):
-        th -= arb.pi()
-    if d.sigma == -1 and not (-math.pi < alpha < math.pi / 2):
-        th += arb.pi()
-    return (acb(0, 1) * th).exp(), st
-
-
-MAX_NODES = 2_000_000
-# measured speed-ups over knotobs.guard's generic ball-operation cost (2-core machine, 2026): the
-# trapezoid loop runs geometric recurrences (cheap products), the residue series are short
-QUADRATURE_SPEED = 60.0
-RESIDUE_SPEED = 3.0
-
-
-def _nodes_message(d: "LRData", Kv, N: int) -> str:
-    K = mpmath.nstr(Kv, 15)
-    why = ("|K| is large: the Gaussian is narrow, and the nodes grow like sqrt|K|; use a smaller |K|"
-           if abs(Kv) > 100 else "|K| is small or K is close to the cut; move K away from 0 and from the cut")
-    return f"K = {K} on {d.space}: the quadrature needs {2 * N} nodes per integral (at most {2 * MAX_NODES}); {why}"
-
-
-def _quadrature(d: "LRData", r: int, absK: float, st: float, digits: int):
-    """Centre shift ``c``, start ``x0``, step ``h`` and half-count ``N`` of the ``r``-th trapezoid rule."""
-    c = -d.saddle(r)                         # Fraction >= 0
-    x0 = -c
-    if d.n >= 3 and c.denominator == 1 and d.pole_order(-int(c)) >= 1:
-        x0 = -c - Fraction(1, 2)             # saddle on a pole: pass beside it
-    a = math.pi * absK * abs(d.H) / (2 * d.P)
-    # distance from the line to the nearest pole of G
-    if d.n >= 3:
-        near = [abs(m - float(x0)) for m in range(int(math.floor(x0)) - 2 * d.P, int(math.ceil(x0)) + 2 * d.P + 1)
-                if d.pole_order(m) >= 1]
-        dist = max(min(near) if near else 1.0, 1e-3) * st
-        strip = 0.8 * dist
-    else:
-        dist = strip = 1.0
-    if d.n >= 3:
-        growth = math.pi * st * max(0.0, sum(1.0 / p for p in d.ps) - (d.n - 2))
-    else:
-        growth = math.pi * st * (sum(1.0 / p for p in d.ps) + (2 - d.n))
-    T = math.log(10) * (digits + 5) + 10
-    shift = float(x0 + c)                    # offset of the line from the Gaussian centre
-    b = growth + 2 * a * abs(shift) + 1
-    smax = (b + math.sqrt(b * b + 4 * a * T)) / (2 * a) + abs(shift)
-    h = 2 * math.pi * strip / (T + a * strip * strip + b * strip + max(0.0, math.log(1 / max(dist - strip, 1e-6))) + 5)
-    N = int(math.ceil(smax / h))
-    return c, x0, h, N
-
-
-def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
-    """``int_{L_r} exp(-i pi K H (z + c_r)^2/(2P)) G(z) dz`` on the steepest line through the centre."""
-    u, st = _angle(d, K)
-    c, x0, h, N = _quadrature(d, r, float(abs(K).mid()), st, digits)
-    if N > MAX_NODES:
-        raise SizeLimitError(_nodes_message(d, to_mpc(K, 15), N))
-    ha = arb(h)
-    coef = acb(0, -1) * arb.pi() * K * d.H / (2 * d.P)
-    xa = acb(x0.numerator) / x0.denominator
-    ca = acb(c.numerator) / c.denominator
-    sym = (r == 0 and x0 == 0)
-    ipi = acb(0, 1) * arb.pi()
-    # nodes s_j = s0 + j h (j = 0..count-1); every factor is a geometric recurrence in j
-    if sym:
-        s0, count = ha, N            # even integrand, f(0) = 0 (double zero of G at 0)
-    else:
-        s0, count = -ha * (2 * N + 1) / 2, 2 * N + 2   # nodes at (j + 1/2) h: never on an integer
-    z0 = xa + u * s0
-    dz = u * ha
-    w0 = z0 + ca
-    # Gaussian exp(coef w^2), w = w0 + j dz: g_{j+1} = g_j * rho_j, rho_{j+1} = rho_j * exp(2 coef dz^2)
-    g = (coef * w0 * w0).exp()
-    rho = (coef * (2 * w0 * dz + dz * dz)).exp()
-    rr = (2 * coef * dz * dz).exp()
-    facs = []
-    for p in d.ps:
-        e0 = (ipi * z0 / p).exp()
-        st_ = (ipi * dz / p).exp()
-        facs.append([e0, 1 / e0, st_, 1 / st_])
-    m2 = d.n - 2
-    if m2 != 0:
-        e0 = (ipi * z0).exp()
-        st_ = (ipi * dz).exp()
-        den = [e0, 1 / e0, st_, 1 / st_]
-    total = acb(0)
-    for _ in range(count):
-        num = g
-        for f in facs:
-            num = num * (f[0] - f[1])
-            f[0] = f[0] * f[2]
-            f[1] = f[1] * f[3]
-        if m2 > 0:
-            num = num / (den[0] - den[1]) ** m2
-        elif m2 < 0:
-            num = num * (den[0] - den[1]) ** (-m2)
-        if m2 != 0:
-            den[0] = den[0] * den[2]
-            den[1] = den[1] * den[3]
-        total += num
-        g = g * rho
-        rho = rho * rr
-    if sym:
-        total = 2 * total
-    return total * ha * u
-
-
-def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True, tick=None) -> tuple[acb, dict[str, acb]]:
-    """``Z(K)`` as a ball (rounding only; discretisation checked by the caller, who sets the precision)."""
-    pieces: dict[str, acb] = {}
-    two_pi_i = acb(0, 2) * arb.pi()
-    bracket = acb(0)
-    integral_part = acb(0)
-    for r in range(abs(d.H)):
-        J = _saddle_integral(d, r, K, digits)
-        x = Fraction(d.P * r * r, d.H)
-        pref = _phase(K, _sym(x) if reduced else x)
-        integral_part += pref * J
-        if tick is not None:
-            tick()
-    residue_part = acb(0)
-    for t in residue_terms(d):
-        residue_part += _residue_value(d, t, K, reduced)
-    if tick is not None:
-        tick()
-    bracket = integral_part - two_pi_i * d.sigma * residue_part
-    B = _B(d, K)
-    pieces["integral"] = B * integral_part
-    pieces["residues"] = -B * two_pi_i * d.sigma * residue_part
-    return B * bracket, pieces
-
-
-def _sectors_acb(d: LRData, K: acb, digits: int, reduced: bool = True) -> dict[Fraction, acb]:
-    """``Z(K)`` split by Chern–Simons value: ``{cs mod 1 in [0, 1): value}`` (B included).
-
-    Gaussian pieces ``r`` carry ``cs = P r^2/H``; residues carry their own ``cs``.  The
-    values add up to :func:`_Z_acb`.  The caller sets the precision.
-    """
-    two_pi_i = acb(0, 2) * arb.pi()
-    B = _B(d, K)
-    out: dict[Fraction, acb] = {}
-    for r in range(abs(d.H)):
-        x = Fraction(d.P * r * r, d.H)
-        J = _saddle_integral(d, r, K, digits)
-        val = B * _phase(K, _sym(x) if reduced else x) * J
-        out[x % 1] = out.get(x % 1, acb(0)) + val
-    for term in residue_terms(d):
-        val = -B * two_pi_i * d.sigma * _residue_value(d, term, K, reduced)
-        out[term.cs] = out.get(term.cs, acb(0)) + val
-    return out
 
 
 def sector_values(space, K, digits: int = 30, phases: str = "reduced") -> dict[Fraction, mpmath.mpc]:
@@ -683,46 +293,6 @@ PHASES = ("reduced", "lawrence-rozansky")
 def _certified_json(z, digits: int) -> dict[str, str]:
     re_, im_ = certified_parts(z, digits)
     return {"re": re_, "im": im_}
-
-
-def require_continuation(d: LRData, Kv, digits: int) -> None:
-    """Refuse (CONVENTIONS §16) a continued ``Z(K)`` whose estimated cost is above the limits.
-
-    The work is two runs (at ``digits + 3`` and ``digits + 12`` digits) of: ``|H|`` trapezoid
-    rules of ``2 N`` nodes with ``n + 4`` ball products each, and about ``2P + P|H|`` residue
-    terms, each a product of ``n`` truncated series of length ``n``.
-
-    >>> require_continuation(LRData.from_space("Sigma(2,3,5)"), mpmath.mpc(7.5, 0.3), 30)
-    """
-    seconds, memory, what = continuation_cost(d, Kv, digits)
-    require(what, seconds=seconds, memory_mb=memory,
-            accepted="ask for fewer digits, or a manifold with fewer or smaller exceptional fibers")
-
-
-def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
-    """Estimated ``(seconds, memory_mb, description)`` of one continued ``Z(K)`` (see
-    :func:`require_continuation`); the residue count alone is checked against the limits first,
-    since the contour set-up itself is ``O(P)``."""
-    n = max(d.n, 1)
-    absK = float(abs(Kv))
-    alpha = float(mpmath.arg(Kv))
-    theta = -d.sigma * math.pi / 4 - alpha / 2
-    st = max(abs(math.sin(theta)), 0.02)
-    where = f"continued Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
-    terms = (2 * d.P + d.P * abs(d.H)) if d.n >= 3 else 0
-    accepted = "ask for fewer digits, or a manifold with fewer or smaller exceptional fibers"
-    # the residue terms alone (and the pole search of the contour, O(P)) come first
-    require(f"{where} ({terms} residue terms; {d.n} surgery coefficients, P = {d.P}, |H| = {abs(d.H)})",
-            seconds=ball_seconds(2 * terms * n * (n + 2) ** 2 + 4 * d.P, digits + 12) / RESIDUE_SPEED,
-            memory_mb=terms * 400 / 1e6, accepted=accepted)
-    N = _quadrature(d, 0, absK, st, digits + 12)[3]
-    if N > MAX_NODES:
-        raise SizeLimitError(f"{where}: " + _nodes_message(d, Kv, N))
-    seconds = (ball_seconds(2 * abs(d.H) * 2 * N * (n + 4), digits + 12) / QUADRATURE_SPEED
-               + ball_seconds(2 * terms * n * (n + 2) ** 2, digits + 12) / RESIDUE_SPEED)
-    memory = terms * 400 / 1e6 + abs(d.H) * (digits + 12) * 8 / 1e6
-    return seconds, memory, (f"{where} ({abs(d.H)} Gaussian integrals of {2 * N} nodes, {terms} residue terms;"
-                             f" {d.n} surgery coefficients, P = {d.P})")
 
 
 def continued_partition_function(space, level=None, *, K=None, digits: int = 30,

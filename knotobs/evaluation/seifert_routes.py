@@ -9,7 +9,10 @@ Three independent routes compute ``Z_k(M)`` of ``M(g; b; (a_1, b_1), ...)``:
 * ``localisation``: the SU(N) localisation formula for every base genus and any orders
   (CONVENTIONS §10; :mod:`knotobs.localisation`) -- the general form of the Gauss sum over
   the weight lattice; for SU(N), N >= 3, ``gauss-sum`` names the SU(2) closed formula only
-  and is refused, with a pointer to ``localisation``.
+  and is refused, with a pointer to ``localisation``;
+* ``integral``: the same SU(2) Gauss sum in its Lawrence–Rozansky integral form
+  (:mod:`knotobs.evaluation.lr_integral`): Gaussian integrals plus residues, numeric with
+  certified digits, at a cost that does not grow with the level (the way to ``K = 10^6``).
 
 ``auto`` estimates the cost of each applicable route from the input sizes (nothing is
 built before the route is chosen), keeps the surgery route when it is estimated below
@@ -61,12 +64,16 @@ __all__ = [
     "fiber_wilson_loop",
 ]
 
-PARTITION_ROUTES = ("auto", "surgery", "gauss-sum", "localisation", "both")
+PARTITION_ROUTES = ("auto", "surgery", "gauss-sum", "localisation", "integral", "both")
 LOOP_ROUTES = ("auto", "surgery", "localisation", "both")
 
 #: ``auto`` keeps the surgery route when it is estimated below this many seconds (small cases
 #: then print exactly as before the other routes existed).
 CHEAP_SURGERY = 0.25
+
+#: ``auto`` ranks the numeric-only ``integral`` route as if it cost this many seconds more, so
+#: that the exact routes answer whenever they are cheap.
+NUMERIC_ONLY_PENALTY = 0.3
 
 #: Largest alcove the surgery route builds (its dense S matrix).
 @dataclasses.dataclass(frozen=True)
@@ -132,8 +139,26 @@ def _gauss_estimate(M, N: int, k: int) -> RouteEstimate:
     K = k + 2
     n = len(pq2)
     terms = (2 ** n) * (2 * K) * abs(H)
-    sec = seconds_for(terms * 6, "numpy") + seconds_for(4 * abs(H) * K / 50 + 2 ** n * 50, "ball")
+    # calibrated on Sigma(2,3,7) at K = 10^3 .. 10^5 (2-core machine, 2026): ~0.27 us per term
+    sec = seconds_for(terms * 55, "numpy") + seconds_for(4 * abs(H) * K / 50 + 2 ** n * 50, "ball")
     return RouteEstimate("gauss-sum", sec, terms * 8 * 4 / 1e6, f"{terms} Gauss-sum terms (|H| = {abs(H)}, K = {K})")
+
+
+def _integral_estimate(M, N: int, k: int, digits: int, exact) -> RouteEstimate:
+    from knotobs.evaluation.lr_integral import LRData, continuation_cost
+
+    if N != 2:
+        return RouteEstimate("integral", None, None, "the integral form of the Gauss sum is SU(2) only")
+    if M.genus:
+        return RouteEstimate("integral", None, None, "the integral form needs base genus 0")
+    if exact:
+        return RouteEstimate("integral", None, None, "the integral form is numeric (no exact value)")
+    try:
+        d = LRData.from_space(M)
+        sec, mb, what = continuation_cost(d, mpmath.mpc(k + 2), digits)
+    except KnotobsError as exc:
+        return RouteEstimate("integral", None, None, str(exc))
+    return RouteEstimate("integral", sec, mb, what)
 
 
 def _loc_estimate(M, N: int, k: int, exceptional=None, regular=(), exact=None) -> RouteEstimate:
@@ -145,11 +170,11 @@ def _loc_estimate(M, N: int, k: int, exceptional=None, regular=(), exact=None) -
 
 
 def route_estimates(space, group="SU(2)", level: int = 1, loop: bool = False,
-                    exact: bool | None = None) -> list[RouteEstimate]:
+                    exact: bool | None = None, digits: int = 30) -> list[RouteEstimate]:
     """Cost estimates of every route for ``Z_k(M)`` (``loop=True``: the routes of fiber loops).
 
     >>> [e.route for e in route_estimates("Sigma(2,3,5)", "SU(2)", 9998) if e.applicable]
-    ['surgery', 'gauss-sum', 'localisation']
+    ['surgery', 'gauss-sum', 'localisation', 'integral']
     """
     M = as_manifold(space)
     N, k = _group_level(group, level)
@@ -157,6 +182,8 @@ def route_estimates(space, group="SU(2)", level: int = 1, loop: bool = False,
     if not loop:
         out.append(_gauss_estimate(M, N, k))
     out.append(_loc_estimate(M, N, k, exact=exact))
+    if not loop:
+        out.append(_integral_estimate(M, N, k, digits, exact))
     return out
 
 
@@ -178,6 +205,10 @@ def _run_partition(route: str, M, N: int, k: int, digits: int, exact):
         from knotobs.evaluation.gauss_sum import gauss_sum_partition_function
 
         return gauss_sum_partition_function(M, k, digits, exact)
+    if route == "integral":
+        from knotobs.evaluation.lr_integral import integral_partition_function
+
+        return integral_partition_function(M, k, digits)
     return localisation_partition_function(M, f"SU({N})", k, digits, exact)
 
 
@@ -208,12 +239,13 @@ def _dispatch(route: str, routes: tuple, ests: list[RouteEstimate], what: str, r
         e = by[route]
         if not e.applicable:
             raise (SizeLimitError if "weights" in e.reason and "at most" in e.reason else KnotobsError)(
-                f"{what}: the {route} route does not apply: {e.reason}")
+                f"{what}: the {route} route (--route {route}) does not apply: {e.reason}")
         require(f"{what} by the {route} route ({e.reason})", seconds=e.seconds, memory_mb=e.memory_mb,
                 accepted="choose another route (--route auto)")
         return _with(run(route), routes=[route])
     order = sorted((e for e in ests if e.fits()),
-                   key=lambda e: (not (e.route == "surgery" and e.seconds <= CHEAP_SURGERY), e.seconds))
+                   key=lambda e: (not (e.route == "surgery" and e.seconds <= CHEAP_SURGERY),
+                                  e.seconds + (NUMERIC_ONLY_PENALTY if e.route == "integral" else 0.0)))
     if route == "auto":
         tried = []
         for e in order:
@@ -252,7 +284,7 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
         Certified digits of the numeric value.
     exact : bool or None
         Force or skip the exact cyclotomic value.
-    route : {"auto", "surgery", "gauss-sum", "localisation", "both"}
+    route : {"auto", "surgery", "gauss-sum", "localisation", "integral", "both"}
         See the module docstring.
 
     Returns
@@ -279,7 +311,7 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
         raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(PARTITION_ROUTES)}")
     M = as_manifold(space)
     N, k = _group_level(group, level)
-    ests = route_estimates(M, f"SU({N})", k, exact=exact)
+    ests = route_estimates(M, f"SU({N})", k, exact=exact, digits=digits)
     what = f"Z of {M}, SU({N}) at level {k}"
     return _dispatch(route, PARTITION_ROUTES, ests, what,
                      lambda r: _run_partition(r, M, N, k, digits, exact), digits)

@@ -39,7 +39,9 @@ def finite_text(value: FiniteLevelValue, title: str) -> str:
         if value.root_of_unity:
             lines.append(f"            with {value.root_of_unity}")
     else:
-        lines.append("  exact     (not computed at this size; numeric only)")
+        numeric_route = value.details.get("routes") == ["integral"]
+        lines.append("  exact     (not computed: the integral route is numeric)" if numeric_route
+                     else "  exact     (not computed at this size; numeric only)")
     lines.append("")
     lines.append(f"framing:       {value.framing}")
     lines.append(f"orientation:   {value.orientation}")
