@@ -63,6 +63,13 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
         from knotobs.evaluation.so3_level import so3_partition_function
 
         return so3_partition_function(report.manifold, level, digits), report
+    if parse_group(group).kind == "U":
+        if route not in ("auto", "both"):
+            raise KnotobsError(f"U(N) at level k has the routes quotient and gauging (docs/groups.md):"
+                               f" --route {route} does not apply; use --route auto or both")
+        from knotobs.evaluation.unitary_mtc import unitary_partition_function
+
+        return unitary_partition_function(report.manifold, group, level, digits, route=route), report
     return partition_function(report.manifold, group, level, digits, route=route), report
 
 
@@ -136,10 +143,11 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         return so3_level_loop(knot, level, rep, space, fiber, framing, normalized, digits)
     g = parse_group(group)
     if g.kind == "U":
-        if route != "auto":
-            raise KnotobsError(f"route {route!r} does not apply to U(N) at finite level: it is the SU(N)"
-                               " value of the automatic route times the U(1) factor (use --route auto)")
-        return _unitary(knot, level, g.N, rep, space, fiber, framing, normalized, digits)
+        if route not in ("auto", "both"):
+            raise KnotobsError(f"route {route!r} does not apply to U(N) at finite level: its routes are the"
+                               " SU(N) value times the U(1) factor, the quotient category and the gauging sum"
+                               " (use --route auto or both)")
+        return _unitary(knot, level, g.N, rep, space, fiber, framing, normalized, digits, route)
     if g.kind != "SU":
         raise KnotobsError(f"finite-level values are computed for SU(N), U(N) and for SO(3) at odd level; got {g}")
     if knot is None:
@@ -222,7 +230,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
                             orientation=v.orientation, normalisation=v.normalisation, details=details)
 
 
-def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits) -> FiniteLevelValue:
+def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits, route="auto") -> FiniteLevelValue:
     """U(N)_k = (SU(N)_k x U(1)_{N(k+N)})/Z_N (:mod:`knotobs.evaluation.unitary_level`)."""
     from knotobs.evaluation.unitary_level import unitary_fiber_loop, unitary_level_loop
 
@@ -233,6 +241,9 @@ def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits) -> 
         if space.replace(" ", "").upper() not in ("S^3", "S3"):
             raise KnotobsError("U(N) torus knots at finite level are computed in S^3; in other spaces"
                                " colour a fiber (knot 'fiber' or --fiber i)")
+        if route != "auto":
+            raise KnotobsError("U(N) torus knots in S^3 have their two routes built in (the polynomial at"
+                               " q = exp(2 pi i/K) is always compared): drop --route")
         return unitary_level_loop(knot, N, level, rep, framing=framing, digits=digits)
     fr = "fiber" if framing in (None, "fiber") else framing
     if fr not in ("fiber", "zero"):
@@ -241,8 +252,8 @@ def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits) -> 
         if fiber is None:
             raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")
         return unitary_fiber_loop(space, N, level, exceptional={fiber: as_partition(one)}, framing=fr,
-                                  digits=digits)
-    return unitary_fiber_loop(space, N, level, regular=[as_partition(one)], framing=fr, digits=digits)
+                                  digits=digits, route=route)
+    return unitary_fiber_loop(space, N, level, regular=[as_partition(one)], framing=fr, digits=digits, route=route)
 
 
 def _is_integer_framing(framing) -> bool:

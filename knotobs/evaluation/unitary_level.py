@@ -36,6 +36,8 @@ Examples
 
 from __future__ import annotations
 
+import dataclasses
+
 from fractions import Fraction
 import mpmath
 
@@ -174,17 +176,22 @@ def unitary_level_loop(knot: str, group="U(2)", level: int = 1, rep=(1,), framin
 
 
 def unitary_fiber_loop(space, group="U(2)", level: int = 1, regular=(), exceptional=None,
-                       framing: str = "fiber", digits: int = 30) -> FiniteLevelValue:
+                       framing: str = "fiber", digits: int = 30, route: str = "auto") -> FiniteLevelValue:
     """U(N)_k Wilson loops along fibers of a Seifert integral homology sphere (or S^3), normalised.
 
     The SU(N) part comes from :func:`~knotobs.evaluation.surgery.fiber_wilson_loop`; the
     linking numbers and framings of the lines are read off the plumbing
     (``lk_uv = -(A^{-1})_{uv}`` for the meridians of vertices ``u, v``; Gompf & Stipsicz 1999, §5.1).
 
+    Where ``H_1(M) != 0`` the abelian factor is not a phase: the value comes from
+    :func:`knotobs.evaluation.unitary_mtc.unitary_seifert_loop` (the quotient category, and with
+    ``route="both"`` also the gauging sum), in the framing ``"fiber"`` and for odd ``k``.  In an
+    integral homology sphere ``route="both"`` compares the product formula with the quotient route.
+
     Raises
     ------
     KnotobsError
-        If ``|H_1(M)| != 1`` (the abelian factor is then a torsion Gauss sum; not implemented).
+        ``H_1(M) != 0`` with ``framing="zero"`` or an even level (a spin theory there).
 
     Examples
     --------
@@ -199,11 +206,19 @@ def unitary_fiber_loop(space, group="U(2)", level: int = 1, regular=(), exceptio
     pres = SurgeryPresentation.from_coefficients(e0, pq)
     A = pres.linking_matrix()
     Ainv = _inverse_matrix(A)
+    if route not in ("auto", "both"):
+        raise KnotobsError(f"route {route!r}: a U(N) fiber loop takes route 'auto' or 'both'")
     if Ainv is None or any(x.denominator != 1 for row in Ainv for x in row):
-        raise KnotobsError(
-            f"U(N) at finite level is computed on S^3 and integral homology spheres; {space} has"
-            " H_1 != 0 (the U(1) factor would be a Gauss sum over torsion): not implemented"
-        )
+        if framing != "fiber":
+            raise KnotobsError(
+                f"{space} has H_1 != 0: U(N) fiber loops there are computed in the framing 'fiber'"
+                " (a core is not null-homologous, so 'zero' is not defined)")
+        from knotobs.evaluation.unitary_mtc import unitary_seifert_loop
+
+        w = unitary_seifert_loop(M, f"U({N})", level, regular=list(regular), exceptional=dict(exceptional or {}),
+                                 digits=digits, route="quotient" if route == "auto" else "both")
+        return dataclasses.replace(w, details={**w.details, "U(1) level": N * (level + N), "quotient": "Z_N",
+                                               "convention": UNITARY_CONVENTION})
     exceptional = dict(exceptional or {})
     verts = [0] * len(regular) + [pres.vertex_of(j) for j in exceptional]
     cols = [as_partition(c) for c in regular] + [as_partition(c) for c in exceptional.values()]
@@ -217,4 +232,21 @@ def unitary_fiber_loop(space, group="U(2)", level: int = 1, regular=(), exceptio
     fr = [lk[a][a] if framing == "fiber" else 0 for a in range(d)]
     charges = [sum(c) for c in cols]
     turns = abelian_phase(charges, lk, fr, N, level + N)
-    return _profile(v, N, level, turns, {"charges": charges, "linking": lk})
+    out = _profile(v, N, level, turns, {"charges": charges, "linking": lk})
+    if route == "both":
+        if framing != "fiber" or level % 2 == 0:
+            raise KnotobsError("route 'both' for a U(N) fiber loop needs the framing 'fiber' and an odd level"
+                               " (the quotient category is bosonic only then)")
+        from knotobs.evaluation.unitary_mtc import unitary_seifert_loop
+
+        w = unitary_seifert_loop(M, f"U({N})", level, regular=list(regular), exceptional=exceptional,
+                                 digits=digits, route="quotient")
+        with working_precision(digits + 5):
+            if abs(w.numeric - out.numeric) > mpmath.mpf(10) ** (2 - digits) * max(1, abs(out.numeric)):
+                from knotobs.evaluation.two_routes import RouteMismatchError
+
+                raise RouteMismatchError(f"U({N}) fiber loop: product formula {out.numeric} vs quotient"
+                                         f" category {w.numeric}")
+        out = dataclasses.replace(out, details={**out.details, "route": "product formula = quotient category"
+                                                " (both computed)", "agreement": f"to {digits} digits"})
+    return out

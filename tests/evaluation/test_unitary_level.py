@@ -55,11 +55,14 @@ def test_fiber_loops_in_S3_presentation_agree_with_torus_knots():
     assert abs(a2.numeric - b2.numeric) < 1e-18
 
 
-def test_poincare_sphere_fiber_and_refusal_on_torsion():
+def test_poincare_sphere_fiber_and_torsion_cases():
     w = unitary_fiber_loop("Sigma(2,3,5)", "U(2)", 3, regular=[(1,)], digits=20)
     assert w.details["linking"] == [[30]]          # fiber framing -1/e = 30
-    with pytest.raises(KnotobsError, match="H_1"):
-        unitary_fiber_loop("L(5,1)", "U(2)", 3, regular=[(1,)])
+    # H_1 != 0: the quotient category (tests/evaluation/test_unitary_seifert.py); even k is a
+    # spin theory there and stays refused
+    assert unitary_fiber_loop("L(5,1)", "U(2)", 3, regular=[(1,)]).details["routes"] == ["quotient"]
+    with pytest.raises(KnotobsError, match="spin"):
+        unitary_fiber_loop("L(5,1)", "U(2)", 2, regular=[(1,)])
     with pytest.raises(KnotobsError, match="more than 2 rows"):
         unitary_level_loop("T(2,3)", "U(2)", 3, (1, 1, 1))
 
