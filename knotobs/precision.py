@@ -62,9 +62,11 @@ def _fixed(x, places: int) -> str:
     """``x`` rounded to ``places`` decimal places (negative: to tens, hundreds, ...)."""
     from knotobs.numerics import local_mp
 
-    x = mpmath.mpf(x)
+    if not isinstance(x, mpmath.mpf):
+        x = mpmath.mpf(x)
     top = 0 if x == 0 else int(mpmath.floor(mpmath.log10(abs(x))))
-    ctx = local_mp(max(top, 0) + abs(places) + 20)
+    # enough digits for the requested places and for every bit of x (no rounding on the way in)
+    ctx = local_mp(max(max(top, 0) + abs(places) + 20, int(_bits(x) / 3.32) + 10))
     if places < 0:
         q = int(ctx.nint(ctx.mpf(x) / ctx.mpf(10) ** (-places)))
         return str(q * 10 ** (-places))
@@ -78,11 +80,38 @@ def _fixed(x, places: int) -> str:
     return f"{sign}{head}.{tail}" if tail else f"{sign}{head}.0"
 
 
+def _parts(z) -> tuple:
+    """``(re, im)`` of ``z`` without rounding: mpmath numbers keep every bit they carry (a plain
+    ``mpmath.mpc(z)`` would round them to the caller's working precision, often 53 bits)."""
+    if isinstance(z, mpmath.mpc):
+        return z.real, z.imag
+    if isinstance(z, mpmath.mpf):
+        return z, mpmath.mpf(0)
+    if isinstance(z, complex):
+        return mpmath.mpf(z.real), mpmath.mpf(z.imag)
+    w = mpmath.mpmathify(z)
+    return (w.real, w.imag) if isinstance(w, mpmath.mpc) else (w, mpmath.mpf(0))
+
+
+def _bits(x) -> int:
+    """Bits of the mantissa of an mpmath real (53 for anything else)."""
+    return x._mpf_[3] if isinstance(x, mpmath.mpf) else 53
+
+
 def certified_parts(z, digits: int) -> tuple[str, str]:
-    """Real and imaginary parts of ``z`` as decimal strings, certified digits only."""
-    z = mpmath.mpc(z)
-    places = _decimal_places(z, digits)
-    return _fixed(z.real, places), _fixed(z.imag, places)
+    """Real and imaginary parts of ``z`` as decimal strings, certified digits only.
+
+    Every bit of ``z`` is used, whatever the precision of the caller:
+
+    >>> from knotobs.numerics import working_precision
+    >>> with working_precision(40):
+    ...     third = mpmath.mpf(1) / 3
+    >>> certified_parts(third, 30)[0]
+    '0.333333333333333333333333333333'
+    """
+    re_, im_ = _parts(z)
+    places = _decimal_places(mpmath.mpc(re_, im_), digits)
+    return _fixed(re_, places), _fixed(im_, places)
 
 
 def certified_str(z, digits: int) -> str:
@@ -93,7 +122,6 @@ def certified_str(z, digits: int) -> str:
     >>> certified_str(mpmath.mpc(0, 1) / 3, 5)
     '0.33333j'
     """
-    z = mpmath.mpc(z)
     re_, im_ = certified_parts(z, digits)
     if im_ in ("0.0", "-0.0", "0"):
         return re_

@@ -96,24 +96,37 @@ class LRData:
     P: int
     H: int
     phi: Fraction
+    genus: int = 0
 
     @classmethod
-    def from_space(cls, space) -> "LRData":
+    def from_space(cls, space, allow_genus: bool = False) -> "LRData":
+        """The data of ``space``; base genus ``g >= 1`` only with ``allow_genus`` (the partition
+        function and its continuation handle it; the flat-connection and series code built on
+        this class is for ``g = 0``)."""
         from knotobs.evaluation.gauss_sum import lr_data
 
         M = parse_space(space)
-        raw = list(M.surgery_presentation())
+        if M.genus and not allow_genus:
+            M.surgery_presentation()          # raises the genus-0 error with its explanation
+        # base genus g: the same surgery coefficients on the central curve (now a fiber over a
+        # surface); only the power of the torsion changes (CONVENTIONS §10)
+        raw = list(M.fibers) + ([(1, M.b)] if M.b else []) if M.genus else list(M.surgery_presentation())
         pq, P, H, phi = lr_data(raw) if raw else ([], 1, 0, Fraction(0))
         if H == 0:
             raise InvalidSeifertDataError(
                 f"{M} has H = 0 (infinite H_1): the Lawrence-Rozansky continuation needs a"
                 " rational homology sphere"
             )
-        return cls(M, tuple(pq), P, H, phi)
+        return cls(M, tuple(pq), P, H, phi, M.genus)
 
     @property
     def n(self) -> int:
         return len(self.pq)
+
+    @property
+    def deg(self) -> int:
+        """Power ``n - 2 + 2g`` of ``2i sin(pi z)`` in the denominator of ``G``."""
+        return self.n - 2 + 2 * self.genus
 
     @property
     def sigma(self) -> int:
@@ -125,7 +138,7 @@ class LRData:
 
     def pole_order(self, m: int) -> int:
         """Order of the pole of ``G`` at the integer ``m`` (``<= 0``: regular)."""
-        return (self.n - 2) - sum(1 for p in self.ps if m % p == 0)
+        return self.deg - sum(1 for p in self.ps if m % p == 0)
 
     def saddle(self, r: int) -> Fraction:
         """Centre ``-2 P r/|H|`` of the ``r``-th Gaussian."""
@@ -139,7 +152,9 @@ class LRData:
 def _B(d: LRData, K: acb) -> acb:
     pi = arb.pi()
     ph = acb(d.phi.numerator) / d.phi.denominator
-    return (-1 / (4 * arb(d.P).sqrt())) * (acb(0, 3 * d.sigma) * pi / 4).exp() * (acb(0, -1) * pi * ph / (2 * K)).exp()
+    B = (-1 / (4 * arb(d.P).sqrt())) * (acb(0, 3 * d.sigma) * pi / 4).exp() * (acb(0, -1) * pi * ph / (2 * K)).exp()
+    # base genus g: S_{0 lam}^(-2g) = (K/2)^g sin^(-2g) = (-2K)^g (2i sin)^(-2g)
+    return B * (-2 * K) ** d.genus if d.genus else B
 
 
 def _G(d: LRData, z: acb) -> acb:
@@ -148,7 +163,7 @@ def _G(d: LRData, z: acb) -> acb:
     for p in d.ps:
         e = (ipz / p).exp()
         num *= e - 1 / e
-    m = d.n - 2
+    m = d.deg
     if m == 0:
         return num
     e = ipz.exp()
@@ -157,13 +172,13 @@ def _G(d: LRData, z: acb) -> acb:
 
 
 def _G_series(d: LRData, m: int, length: int) -> tuple[list[acb], int]:
-    """``G(m + w) = w^-(n-2) * F(w)``; returns the first ``length`` coefficients of ``F``."""
+    """``G(m + w) = w^-(n-2+2g) * F(w)``; returns the first ``length`` coefficients of ``F``."""
     pi = arb.pi()
     num = [acb(1)] + [acb(0)] * (length - 1)
     for p in d.ps:
         s = ser_sin(acb(pi * m / p), acb(pi / p), length)
         num = ser_mul(num, [acb(0, 2) * c for c in s], length)
-    k = d.n - 2
+    k = d.deg
     # sin(pi(m+w)) = (-1)^m pi w S(w),  S(w) = sum (-1)^j (pi w)^(2j)/(2j+1)!
     S = [acb(0)] * length
     fact = 1
@@ -220,14 +235,16 @@ def residue_terms(data: LRData) -> list[ResidueTerm]:
     [Fraction(29, 30), Fraction(119, 120)]
     """
     out = []
-    if data.n >= 3:
-        for m in range(1, 2 * data.P):
+    if data.deg >= 1:
+        # the parallelogram between L + eps and L + eps + 2P (eps -> 0+): its poles are
+        # m = 1..2P (for g = 0 the ends m = 0, 2P are regular, h vanishing there)
+        for m in range(1, 2 * data.P + 1):
             o = data.pole_order(m)
             if o >= 0:
                 out.append(ResidueTerm("period", m, 0, o + 1, _cs(data, m)))
-        for r in range(1, abs(data.H)):
-            c = -data.saddle(r)        # saddle at -c, c > 0
-            for m in range(-math.ceil(c) + 1 if c.denominator == 1 else -math.floor(c), 0):
+        for r in range(0, abs(data.H)):
+            c = -data.saddle(r)        # saddle at -c, c >= 0; the line starts at 0+ (a pole at 0: g >= 2)
+            for m in range(-math.ceil(c) + 1 if c.denominator == 1 else -math.floor(c), 1):
                 o = data.pole_order(m)
                 if o >= 1:
                     out.append(ResidueTerm("shift", m, r, o, _cs(data, m)))
@@ -259,7 +276,7 @@ def _residue_value(d: LRData, t: ResidueTerm, K: acb, reduced: bool = False) -> 
     With ``reduced`` the phase ``exp(2 pi i K x)`` uses the representative of ``x mod 1``
     in ``(-1/2, 1/2]``; the two agree at every integer ``K``.
     """
-    n2 = d.n - 2
+    n2 = d.deg
     length = max(n2 + 2, 2)
     F, k = _G_series(d, t.m, length)
     two_pi_i = acb(0, 2) * arb.pi()
@@ -323,21 +340,24 @@ def _quadrature(d: "LRData", r: int, absK: float, st: float, digits: int):
     """Centre shift ``c``, start ``x0``, step ``h`` and half-count ``N`` of the ``r``-th trapezoid rule."""
     c = -d.saddle(r)                         # Fraction >= 0
     x0 = -c
-    if d.n >= 3 and c.denominator == 1 and d.pole_order(-int(c)) >= 1:
-        x0 = -c - Fraction(1, 2)             # saddle on a pole: pass beside it
     a = math.pi * absK * abs(d.H) / (2 * d.P)
+    if d.deg >= 1 and c.denominator == 1 and d.pole_order(-int(c)) >= 1:
+        # saddle on a pole: pass beside it, at about one Gaussian width (the integrand on a line
+        # offset by delta from its centre peaks near exp(a delta^2): delta = 1/2 would cost
+        # a/4 / ln 10 digits of cancellation at large |K|)
+        x0 = -c - Fraction(1, max(2, math.ceil(math.sqrt(a))))
     # distance from the line to the nearest pole of G
-    if d.n >= 3:
+    if d.deg >= 1:
         near = [abs(m - float(x0)) for m in range(int(math.floor(x0)) - 2 * d.P, int(math.ceil(x0)) + 2 * d.P + 1)
                 if d.pole_order(m) >= 1]
         dist = max(min(near) if near else 1.0, 1e-3) * st
         strip = 0.8 * dist
     else:
         dist = strip = 1.0
-    if d.n >= 3:
-        growth = math.pi * st * max(0.0, sum(1.0 / p for p in d.ps) - (d.n - 2))
+    if d.deg >= 1:
+        growth = math.pi * st * max(0.0, sum(1.0 / p for p in d.ps) - d.deg)
     else:
-        growth = math.pi * st * (sum(1.0 / p for p in d.ps) + (2 - d.n))
+        growth = math.pi * st * (sum(1.0 / p for p in d.ps) - d.deg)
     T = math.log(10) * (digits + 5) + 10
     shift = float(x0 + c)                    # offset of the line from the Gaussian centre
     b = growth + 2 * a * abs(shift) + 1
@@ -357,7 +377,7 @@ def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
     coef = acb(0, -1) * arb.pi() * K * d.H / (2 * d.P)
     xa = acb(x0.numerator) / x0.denominator
     ca = acb(c.numerator) / c.denominator
-    sym = (r == 0 and x0 == 0)
+    sym = (r == 0 and x0 == 0 and d.genus == 0)
     ipi = acb(0, 1) * arb.pi()
     # nodes s_j = s0 + j h (j = 0..count-1); every factor is a geometric recurrence in j
     if sym:
@@ -376,7 +396,7 @@ def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
         e0 = (ipi * z0 / p).exp()
         st_ = (ipi * dz / p).exp()
         facs.append([e0, 1 / e0, st_, 1 / st_])
-    m2 = d.n - 2
+    m2 = d.deg
     if m2 != 0:
         e0 = (ipi * z0).exp()
         st_ = (ipi * dz).exp()
@@ -472,7 +492,7 @@ def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
     theta = -d.sigma * math.pi / 4 - alpha / 2
     st = max(abs(math.sin(theta)), 0.02)
     where = f"continued Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
-    terms = (2 * d.P + d.P * abs(d.H)) if d.n >= 3 else 0
+    terms = (2 * d.P + d.P * abs(d.H)) if d.deg >= 1 else 0
     accepted = "ask for fewer digits, or a manifold with fewer or smaller exceptional fibers"
     # the residue terms alone (and the pole search of the contour, O(P)) come first
     require(f"{where} ({terms} residue terms; {d.n} surgery coefficients, P = {d.P}, |H| = {abs(d.H)})",
@@ -492,8 +512,9 @@ def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
 def integral_partition_function(space, level: int, digits: int = 30):
     """SU(2) ``Z_k(M)`` at an integer level by the integral form (the ``integral`` route).
 
-    ``M`` is a Seifert rational homology sphere over ``S^2`` with pairwise coprime orders
-    (the conditions of :class:`LRData`); the value is numeric with ``digits`` certified digits
+    ``M`` is ``M(g; b; (a_i, b_i))`` with ``e != 0`` and pairwise coprime orders (the
+    conditions of :class:`LRData`; base genus ``g`` enters through ``(-2K)^g`` and the power
+    ``n - 2 + 2g`` of the sines); the value is numeric with ``digits`` certified digits
     (two discretisations agree), in the normalisation and framing of the Gauss-sum route.
 
     Parameters
@@ -522,24 +543,23 @@ def integral_partition_function(space, level: int, digits: int = 30):
     R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314, §3; CONVENTIONS §9.
     """
     from knotobs.evaluation.finite_value import FiniteLevelValue
-    from knotobs.evaluation.gauss_sum import _orientation_text, seifert_data
+    from knotobs.evaluation.surgery import _orientation_text
 
     if isinstance(level, bool) or not isinstance(level, int) or level < 1:
         raise NotIntegrableError(f"level k = {level!r} is not allowed: use an integer k >= 1")
     digits = check_digits(digits)
-    d = LRData.from_space(space)
+    d = LRData.from_space(space, allow_genus=True)
     K = level + 2
     require_continuation(d, mpmath.mpc(K), digits)
     val = checked(lambda dg: _Z_at(d, K, dg), digits, f"Z({d.space}) at level {level}")
-    b, fibers = seifert_data(d.space)
     return FiniteLevelValue(
         exact=None, numeric=val, digits=digits,
         framing="canonical 2-framing (Atiyah)",
-        orientation=_orientation_text(b, fibers),
+        orientation=_orientation_text(d.space.b, tuple(d.space.fibers), d.space.genus),
         normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1",
         details={"route": "Lawrence-Rozansky integral form (Gaussian integrals + residues)",
                  "group": "SU(2)", "level": level,
-                 "terms": 2 * d.P + d.P * abs(d.H) if d.n >= 3 else abs(d.H)},
+                 "terms": 2 * d.P + d.P * abs(d.H) if d.deg >= 1 else abs(d.H)},
     )
 
 

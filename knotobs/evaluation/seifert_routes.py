@@ -149,12 +149,10 @@ def _integral_estimate(M, N: int, k: int, digits: int, exact) -> RouteEstimate:
 
     if N != 2:
         return RouteEstimate("integral", None, None, "the integral form of the Gauss sum is SU(2) only")
-    if M.genus:
-        return RouteEstimate("integral", None, None, "the integral form needs base genus 0")
     if exact:
         return RouteEstimate("integral", None, None, "the integral form is numeric (no exact value)")
     try:
-        d = LRData.from_space(M)
+        d = LRData.from_space(M, allow_genus=True)
         sec, mb, what = continuation_cost(d, mpmath.mpc(k + 2), digits)
     except KnotobsError as exc:
         return RouteEstimate("integral", None, None, str(exc))
