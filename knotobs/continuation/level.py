@@ -349,7 +349,7 @@ def continued_partition_function(space, level=None, *, K=None, digits: int = 30,
     if phases not in PHASES:
         raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
     digits = check_digits(digits)
-    d = LRData.from_space(space, allow_genus=True)
+    d = LRData.from_space(space, allow_genus=True, allow_shared=True)
     Kv = resolve_K(level, K)
     require_continuation(d, Kv, digits)
     holder = {}

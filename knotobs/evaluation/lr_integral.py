@@ -19,6 +19,7 @@ requested digits (CONVENTIONS §16).
 
 from __future__ import annotations
 
+import dataclasses
 import math
 from dataclasses import dataclass
 from fractions import Fraction
@@ -97,21 +98,30 @@ class LRData:
     H: int
     phi: Fraction
     genus: int = 0
+    # one sector of the sum when orders share factors (see :meth:`sectors`): shifts s_j of the
+    # fibers, linear and constant phases, period 2L of the sector (0: 2P) and H' = H L/P
+    shifts: tuple[int, ...] = ()
+    lin: Fraction = Fraction(0)
+    const: Fraction = Fraction(0)
+    period: int = 0
+    Hq: int = 0
 
     @classmethod
-    def from_space(cls, space, allow_genus: bool = False) -> "LRData":
-        """The data of ``space``; base genus ``g >= 1`` only with ``allow_genus`` (the partition
-        function and its continuation handle it; the flat-connection and series code built on
-        this class is for ``g = 0``)."""
+    def from_space(cls, space, allow_genus: bool = False, allow_shared: bool = False) -> "LRData":
+        """The data of ``space``; base genus ``g >= 1`` only with ``allow_genus``, orders that
+        share a factor only with ``allow_shared`` (the partition function and its continuation
+        handle both; the flat-connection and series code built on this class is for ``g = 0``
+        and pairwise coprime orders)."""
         from knotobs.evaluation.gauss_sum import lr_data
 
+        data_of = _general_data if allow_shared else lr_data
         M = parse_space(space)
         if M.genus and not allow_genus:
             M.surgery_presentation()          # raises the genus-0 error with its explanation
         # base genus g: the same surgery coefficients on the central curve (now a fiber over a
         # surface); only the power of the torsion changes (CONVENTIONS §10)
         raw = list(M.fibers) + ([(1, M.b)] if M.b else []) if M.genus else list(M.surgery_presentation())
-        pq, P, H, phi = lr_data(raw) if raw else ([], 1, 0, Fraction(0))
+        pq, P, H, phi = data_of(raw) if raw else ([], 1, 0, Fraction(0))
         if H == 0:
             raise InvalidSeifertDataError(
                 f"{M} has H = 0 (infinite H_1): the Lawrence-Rozansky continuation needs a"
@@ -122,6 +132,52 @@ class LRData:
     @property
     def n(self) -> int:
         return len(self.pq)
+
+    @property
+    def Lp(self) -> int:
+        """Half period ``L`` of the sum (``P`` for pairwise coprime orders, else ``lcm p_j``)."""
+        return self.period or self.P
+
+    @property
+    def Hs(self) -> int:
+        """``H L/P``: ``h(z + 2L) = exp(-2 pi i K Hs z) h(z)`` at integer ``K``."""
+        return self.Hq or self.H
+
+    @property
+    def shared(self) -> bool:
+        return math.lcm(*self.ps) != self.P if self.ps else False
+
+    def sectors(self) -> list["LRData"]:
+        """The sum split into ``P/L`` sectors (``L = lcm p_j``; one sector for coprime orders).
+
+        The tuples ``(n_j mod p_j)`` of the per-fiber Gauss sums
+        ``F_j(lam) = sum_{n_j} f_j(lam + 2K n_j)`` are cosets ``n_j = n + s_j`` of the
+        diagonal ``Z_L``; with ``beta = lam + 2K n`` (mod ``2KL``) the summand of the coset ``s`` is
+
+            exp(-i pi K H z^2/(2P)) exp(-2 pi i K lin z) exp(-2 pi i K const)
+              prod_j 2i sin(pi (z + 2 s_j)/p_j) / (2i sin(pi z))^(n-2+2g),   z = beta/K,
+
+        ``lin = sum q_j s_j/p_j`` (taken mod 1, allowed at integer ``K``), ``const = sum q_j
+        s_j^2/p_j``, of period ``2L`` with ``H L/P`` in place of ``H``.  Each sector is a
+        Lawrence–Rozansky sum of its own (CONVENTIONS §9).
+        """
+        if self.period or not self.shared:
+            return [self]
+        import itertools
+
+        L = math.lcm(*self.ps)
+        seen, out = set(), []
+        for t in itertools.product(*[range(p) for p in self.ps]):
+            key = min(tuple((x + k) % p for x, p in zip(t, self.ps)) for k in range(L))
+            if key in seen:
+                continue
+            seen.add(key)
+            lin = sum((Fraction(q * x, p) for (p, q), x in zip(self.pq, key)), Fraction(0))
+            const = sum((Fraction(q * x * x, p) for (p, q), x in zip(self.pq, key)), Fraction(0))
+            lin = lin - math.floor(lin) if self.sigma > 0 else lin - math.ceil(lin)   # sigma*lin in [0, 1)
+            out.append(dataclasses.replace(self, shifts=key, lin=lin, const=const, period=L,
+                                           Hq=self.H * L // self.P))
+        return out
 
     @property
     def deg(self) -> int:
@@ -138,11 +194,33 @@ class LRData:
 
     def pole_order(self, m: int) -> int:
         """Order of the pole of ``G`` at the integer ``m`` (``<= 0``: regular)."""
-        return self.deg - sum(1 for p in self.ps if m % p == 0)
+        sh = self.shifts or (0,) * self.n
+        return self.deg - sum(1 for p, s in zip(self.ps, sh) if (m + 2 * s) % p == 0)
 
     def saddle(self, r: int) -> Fraction:
-        """Centre ``-2 P r/|H|`` of the ``r``-th Gaussian."""
-        return Fraction(-2 * self.P * r, abs(self.H))
+        """Centre ``-2 L (r + sigma lin)/|Hs|`` of the ``r``-th Gaussian (``-2 P r/|H|`` for one sector)."""
+        return -2 * self.Lp * (r + self.sigma * self.lin) / abs(self.Hs)
+
+
+def _general_data(pq):
+    """``(pq, P, H, phi)`` as :func:`knotobs.evaluation.gauss_sum.lr_data`, for any orders (the
+    per-fiber constants of ``B`` do not care whether orders share factors)."""
+    from knotobs.evaluation.surgery import dedekind_sum
+
+    out = []
+    for p, q in pq:
+        if p == 0:
+            raise InvalidSeifertDataError(f"surgery coefficient {p}/{q} has p = 0")
+        if q == 0:
+            continue
+        if p < 0:
+            p, q = -p, -q
+        out.append((p, q))
+    P = math.prod(p for p, _ in out)
+    H = sum(P // p * q for p, q in out)
+    s = (1 if H > 0 else -1) if H else 1
+    phi = Fraction(3 * s) + sum((12 * dedekind_sum(q, p) - Fraction(q, p) for p, q in out), Fraction(0))
+    return out, P, H, phi
 
 
 # ---------------------------------------------------------------------------
@@ -160,8 +238,8 @@ def _B(d: LRData, K: acb) -> acb:
 def _G(d: LRData, z: acb) -> acb:
     ipz = acb(0, 1) * arb.pi() * z
     num = acb(1)
-    for p in d.ps:
-        e = (ipz / p).exp()
+    for p, sj in zip(d.ps, d.shifts or (0,) * d.n):
+        e = ((ipz + acb(0, 2 * sj) * arb.pi()) / p).exp()
         num *= e - 1 / e
     m = d.deg
     if m == 0:
@@ -175,8 +253,8 @@ def _G_series(d: LRData, m: int, length: int) -> tuple[list[acb], int]:
     """``G(m + w) = w^-(n-2+2g) * F(w)``; returns the first ``length`` coefficients of ``F``."""
     pi = arb.pi()
     num = [acb(1)] + [acb(0)] * (length - 1)
-    for p in d.ps:
-        s = ser_sin(acb(pi * m / p), acb(pi / p), length)
+    for p, sj in zip(d.ps, d.shifts or (0,) * d.n):
+        s = ser_sin(acb(pi * (m + 2 * sj) / p), acb(pi / p), length)
         num = ser_mul(num, [acb(0, 2) * c for c in s], length)
     k = d.deg
     # sin(pi(m+w)) = (-1)^m pi w S(w),  S(w) = sum (-1)^j (pi w)^(2j)/(2j+1)!
@@ -206,8 +284,10 @@ def _G_series(d: LRData, m: int, length: int) -> tuple[list[acb], int]:
 
 
 def _gauss_series(d: LRData, m: int, K: acb, extra_lin: acb, length: int) -> list[acb]:
-    """Series of ``exp(-i pi K H (2 m w + w^2)/(2P) + extra_lin * w)``."""
+    """Series of ``exp(-i pi K H (2 m w + w^2)/(2P) - 2 pi i K lin w + extra_lin * w)``."""
     c = acb(0, -1) * arb.pi() * K * d.H / (2 * d.P)
+    if d.lin:
+        extra_lin = extra_lin - acb(0, 2) * arb.pi() * K * d.lin.numerator / d.lin.denominator
     return ser_exp([acb(0), c * 2 * m + extra_lin, c], length)
 
 
@@ -238,11 +318,11 @@ def residue_terms(data: LRData) -> list[ResidueTerm]:
     if data.deg >= 1:
         # the parallelogram between L + eps and L + eps + 2P (eps -> 0+): its poles are
         # m = 1..2P (for g = 0 the ends m = 0, 2P are regular, h vanishing there)
-        for m in range(1, 2 * data.P + 1):
+        for m in range(1, 2 * data.Lp + 1):
             o = data.pole_order(m)
             if o >= 0:
                 out.append(ResidueTerm("period", m, 0, o + 1, _cs(data, m)))
-        for r in range(0, abs(data.H)):
+        for r in range(0, abs(data.Hs)):
             c = -data.saddle(r)        # saddle at -c, c >= 0; the line starts at 0+ (a pole at 0: g >= 2)
             for m in range(-math.ceil(c) + 1 if c.denominator == 1 else -math.floor(c), 1):
                 o = data.pole_order(m)
@@ -256,7 +336,7 @@ def residue_terms(data: LRData) -> list[ResidueTerm]:
 
 
 def _cs(d: LRData, m: int) -> Fraction:
-    return Fraction(-d.H * m * m, 4 * d.P) % 1
+    return (Fraction(-d.H * m * m, 4 * d.P) - d.lin * m - d.const) % 1
 
 
 def _sym(x: Fraction) -> Fraction:
@@ -287,14 +367,14 @@ def _residue_value(d: LRData, t: ResidueTerm, K: acb, reduced: bool = False) -> 
         ser = ser_mul(ser_mul(F, gs, length), bern, length)
         # Phi = w^-(k) F gs * (1/(2 pi i sigma K w)) bern -> coefficient of w^k
         val = ser[k] / (two_pi_i * d.sigma * K) if 0 <= k < length else acb(0)
-        x = Fraction(-d.H * t.m * t.m, 4 * d.P)
+        x = Fraction(-d.H * t.m * t.m, 4 * d.P) - d.lin * t.m - d.const
         return (_phase(K, _sym(x)) if reduced else _phase(K, x)) * val
     # shift: residue of exp(-i pi K H z^2/(2P)) exp(-2 pi i sigma K r z) G(z) at z = m
     lin = -two_pi_i * d.sigma * K * t.r
     gs = _gauss_series(d, t.m, K, lin, length)
     ser = ser_mul(F, gs, length)
     val = ser[k - 1] if 1 <= k <= length else acb(0)
-    x = Fraction(-d.H * t.m * t.m, 4 * d.P) - d.sigma * t.r * t.m
+    x = Fraction(-d.H * t.m * t.m, 4 * d.P) - d.sigma * t.r * t.m - d.lin * t.m - d.const
     return (_phase(K, _sym(x)) if reduced else _phase(K, x)) * val
 
 
@@ -377,7 +457,7 @@ def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
     coef = acb(0, -1) * arb.pi() * K * d.H / (2 * d.P)
     xa = acb(x0.numerator) / x0.denominator
     ca = acb(c.numerator) / c.denominator
-    sym = (r == 0 and x0 == 0 and d.genus == 0)
+    sym = (r == 0 and x0 == 0 and d.genus == 0 and not any(d.shifts) and d.lin == 0)
     ipi = acb(0, 1) * arb.pi()
     # nodes s_j = s0 + j h (j = 0..count-1); every factor is a geometric recurrence in j
     if sym:
@@ -392,8 +472,8 @@ def _saddle_integral(d: LRData, r: int, K: acb, digits: int) -> acb:
     rho = (coef * (2 * w0 * dz + dz * dz)).exp()
     rr = (2 * coef * dz * dz).exp()
     facs = []
-    for p in d.ps:
-        e0 = (ipi * z0 / p).exp()
+    for p, sj in zip(d.ps, d.shifts or (0,) * d.n):
+        e0 = (ipi * (z0 + 2 * sj) / p).exp()
         st_ = (ipi * dz / p).exp()
         facs.append([e0, 1 / e0, st_, 1 / st_])
     m2 = d.deg
@@ -429,16 +509,17 @@ def _Z_acb(d: LRData, K: acb, digits: int, reduced: bool = True, tick=None) -> t
     two_pi_i = acb(0, 2) * arb.pi()
     bracket = acb(0)
     integral_part = acb(0)
-    for r in range(abs(d.H)):
-        J = _saddle_integral(d, r, K, digits)
-        x = Fraction(d.P * r * r, d.H)
-        pref = _phase(K, _sym(x) if reduced else x)
-        integral_part += pref * J
-        if tick is not None:
-            tick()
     residue_part = acb(0)
-    for t in residue_terms(d):
-        residue_part += _residue_value(d, t, K, reduced)
+    for sd in d.sectors():
+        for r in range(abs(sd.Hs)):
+            J = _saddle_integral(sd, r, K, digits)
+            x = _gauss_phase(sd, r)
+            pref = _phase(K, _sym(x) if reduced else x)
+            integral_part += pref * J
+            if tick is not None:
+                tick()
+        for t in residue_terms(sd):
+            residue_part += _residue_value(sd, t, K, reduced)
     if tick is not None:
         tick()
     bracket = integral_part - two_pi_i * d.sigma * residue_part
@@ -457,15 +538,22 @@ def _sectors_acb(d: LRData, K: acb, digits: int, reduced: bool = True) -> dict[F
     two_pi_i = acb(0, 2) * arb.pi()
     B = _B(d, K)
     out: dict[Fraction, acb] = {}
-    for r in range(abs(d.H)):
-        x = Fraction(d.P * r * r, d.H)
-        J = _saddle_integral(d, r, K, digits)
-        val = B * _phase(K, _sym(x) if reduced else x) * J
-        out[x % 1] = out.get(x % 1, acb(0)) + val
-    for term in residue_terms(d):
-        val = -B * two_pi_i * d.sigma * _residue_value(d, term, K, reduced)
-        out[term.cs] = out.get(term.cs, acb(0)) + val
+    for sd in d.sectors():
+        for r in range(abs(sd.Hs)):
+            x = _gauss_phase(sd, r)
+            J = _saddle_integral(sd, r, K, digits)
+            val = B * _phase(K, _sym(x) if reduced else x) * J
+            out[x % 1] = out.get(x % 1, acb(0)) + val
+        for term in residue_terms(sd):
+            val = -B * two_pi_i * sd.sigma * _residue_value(sd, term, K, reduced)
+            out[term.cs] = out.get(term.cs, acb(0)) + val
     return out
+
+
+def _gauss_phase(d: LRData, r: int) -> Fraction:
+    """Phase ``x`` (``exp(2 pi i K x)``) of the ``r``-th Gaussian of a sector after completing the
+    square: ``L (lin + sigma r)^2/Hs - const`` (``P r^2/H`` for one sector)."""
+    return d.Lp * (d.lin + d.sigma * r) ** 2 / d.Hs - d.const
 
 
 def require_continuation(d: LRData, Kv, digits: int) -> None:
@@ -492,10 +580,13 @@ def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
     theta = -d.sigma * math.pi / 4 - alpha / 2
     st = max(abs(math.sin(theta)), 0.02)
     where = f"continued Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
-    terms = (2 * d.P + d.P * abs(d.H)) if d.deg >= 1 else 0
+    L = math.lcm(*d.ps) if d.ps else 1
+    nsec = d.P // L                          # sectors when orders share factors (LRData.sectors)
+    terms = nsec * (2 * L + L * abs(d.H * L // d.P)) if d.deg >= 1 else 0
     accepted = "ask for fewer digits, or a manifold with fewer or smaller exceptional fibers"
     # the residue terms alone (and the pole search of the contour, O(P)) come first
-    require(f"{where} ({terms} residue terms; {d.n} surgery coefficients, P = {d.P}, |H| = {abs(d.H)})",
+    require(f"{where} ({terms} residue terms in {nsec} sector(s); {d.n} surgery coefficients, P = {d.P},"
+            f" |H| = {abs(d.H)})",
             seconds=ball_seconds(2 * terms * n * (n + 2) ** 2 + 4 * d.P, digits + 12) / RESIDUE_SPEED,
             memory_mb=terms * 400 / 1e6, accepted=accepted)
     N = _quadrature(d, 0, absK, st, digits + 12)[3]
@@ -512,9 +603,9 @@ def continuation_cost(d: LRData, Kv, digits: int) -> tuple[float, float, str]:
 def integral_partition_function(space, level: int, digits: int = 30):
     """SU(2) ``Z_k(M)`` at an integer level by the integral form (the ``integral`` route).
 
-    ``M`` is ``M(g; b; (a_i, b_i))`` with ``e != 0`` and pairwise coprime orders (the
-    conditions of :class:`LRData`; base genus ``g`` enters through ``(-2K)^g`` and the power
-    ``n - 2 + 2g`` of the sines); the value is numeric with ``digits`` certified digits
+    ``M`` is ``M(g; b; (a_i, b_i))`` with ``e != 0``, any orders (those sharing a factor split
+    the sum into ``P/lcm`` sectors, :meth:`LRData.sectors`) and any base genus (``(-2K)^g`` and
+    the power ``n - 2 + 2g`` of the sines); the value is numeric with ``digits`` certified digits
     (two discretisations agree), in the normalisation and framing of the Gauss-sum route.
 
     Parameters
@@ -548,7 +639,7 @@ def integral_partition_function(space, level: int, digits: int = 30):
     if isinstance(level, bool) or not isinstance(level, int) or level < 1:
         raise NotIntegrableError(f"level k = {level!r} is not allowed: use an integer k >= 1")
     digits = check_digits(digits)
-    d = LRData.from_space(space, allow_genus=True)
+    d = LRData.from_space(space, allow_genus=True, allow_shared=True)
     K = level + 2
     require_continuation(d, mpmath.mpc(K), digits)
     val = checked(lambda dg: _Z_at(d, K, dg), digits, f"Z({d.space}) at level {level}")

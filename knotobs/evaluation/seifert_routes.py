@@ -152,7 +152,7 @@ def _integral_estimate(M, N: int, k: int, digits: int, exact) -> RouteEstimate:
     if exact:
         return RouteEstimate("integral", None, None, "the integral form is numeric (no exact value)")
     try:
-        d = LRData.from_space(M, allow_genus=True)
+        d = LRData.from_space(M, allow_genus=True, allow_shared=True)
         sec, mb, what = continuation_cost(d, mpmath.mpc(k + 2), digits)
     except KnotobsError as exc:
         return RouteEstimate("integral", None, None, str(exc))

@@ -51,13 +51,18 @@ def test_integer_K_equals_finite_value(space, K):
     assert abs(z - w) < mpmath.mpf(10) ** -30 * max(abs(w), 1)
 
 
-def test_orders_sharing_a_factor_are_refused_clearly():
-    # The finite-sum form of the Lawrence-Rozansky formula disagrees with the surgery route (which
-    # is checked independently against the SU(2)_1 Gauss sum in tests/evaluation/test_level_one.py)
-    # when two exceptional orders share a factor, so the continuation refuses those spaces.
+def test_orders_sharing_a_factor_continue_by_sectors():
+    # The single finite Gauss sum of Lawrence-Rozansky needs pairwise coprime orders; with a shared
+    # factor the sum splits into P/lcm sectors (CONVENTIONS §9), and the continuation at integer K
+    # equals the surgery route (itself checked against the SU(2)_1 Gauss sum in
+    # tests/evaluation/test_level_one.py).
+    from knotobs.evaluation.surgery import partition_function as surgery_pf
+
     M = parse_space("M(0; -2; (2,1), (3,1), (4,1))")
-    with pytest.raises(KnotobsError, match="pairwise coprime"):
-        continued_Z(M, 5, 25)
+    z = continued_Z(M, 5, 25)
+    ref = surgery_pf(M, "SU(2)", 3, digits=25).numeric
+    with mpmath.workdps(35):
+        assert abs(z - ref) < mpmath.mpf(10) ** -22
 
 
 def test_poincare_le_formula_at_integer_K():

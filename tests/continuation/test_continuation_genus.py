@@ -1,4 +1,9 @@
-"""SU(2) continuation in K for base genus g >= 1, and certified printing of continued values.
+"""SU(2) continuation in K for base genus g >= 1 and for orders sharing a factor, and certified
+printing of continued values.
+
+Orders that share a factor: the per-fiber Gauss sums (Jeffrey, Commun. Math. Phys. 147 (1992);
+CONVENTIONS §9) no longer combine into one sum by the Chinese remainder theorem; the tuples split
+into ``P/lcm`` cosets, each a Lawrence–Rozansky sum with a linear phase (LRData.sectors).
 
 Outside sources:
 
@@ -79,3 +84,47 @@ def test_genus_stays_refused_where_the_tables_are_genus_zero():
 
     with pytest.raises(KnotobsError, match="base genus"):
         LRData.from_space("M(1; -1; (2,1), (3,1))")
+
+
+SHARED = ["M(0; -1; (2,1), (4,1), (6,1))", "M(0; -2; (2,1), (2,1), (3,1))", "M(0; 1; (3,1), (3,1), (3,-2))",
+          "M(0; -1; (4,1), (6,1), (9,2))", "M(1; -1; (2,1), (4,1))", "M(0; -1; (2,1), (2,1), (2,1), (3,1))"]
+
+
+@pytest.mark.parametrize("space", SHARED)
+@pytest.mark.parametrize("k", [1, 2, 3, 4, 5, 10])
+def test_shared_orders_continuation_equals_finite_value(space, k):
+    a = continued_partition_function(space, K=k + 2, digits=25).numeric
+    b = partition_function(space, "SU(2)", k, digits=25, route="localisation").numeric
+    with working_precision(40):
+        assert abs(a - b) < mpmath.mpf(10) ** -23 * max(1, abs(b))
+
+
+def test_exact_zeros_of_the_shared_order_example_confirmed_by_the_integral_form():
+    # M(0; -1; (2,1), (4,1), (6,1)): the surgery route gives exact zeros at k = 1, 3, 5 (issue
+    # statement); the integral form, a different computation, must give 0 there and not at k = 2, 4
+    for k in (1, 3, 5):
+        z = partition_function("M(0; -1; (2,1), (4,1), (6,1))", "SU(2)", k, digits=25, route="integral").numeric
+        with working_precision(30):
+            assert abs(z) < mpmath.mpf(10) ** -25
+    for k in (2, 4):
+        z = partition_function("M(0; -1; (2,1), (4,1), (6,1))", "SU(2)", k, digits=25, route="integral").numeric
+        assert abs(z) > 0.1
+
+
+def test_shared_orders_continuation_is_holomorphic():
+    space, c, r = "M(0; -2; (2,1), (2,1), (3,1))", mpmath.mpc("6.5", "0.2"), mpmath.mpf("0.15")
+    centre = continued_partition_function(space, K=c, digits=20).numeric
+    n = 12
+    with working_precision(30):
+        pts = [c + r * mpmath.expjpi(2 * mpmath.mpf(j) / n) for j in range(n)]
+    vals = [continued_partition_function(space, K=p, digits=20).numeric for p in pts]
+    with working_precision(30):
+        assert abs(mpmath.fsum(vals) / n - centre) < mpmath.mpf(10) ** -12 * max(1, abs(centre))
+
+
+def test_shared_orders_stay_refused_where_the_tables_need_coprime_orders():
+    from knotobs.errors import KnotobsError
+    from knotobs.evaluation.lr_integral import LRData
+
+    with pytest.raises(KnotobsError, match="share a factor"):
+        LRData.from_space("M(0; -1; (2,1), (4,1), (6,1))")

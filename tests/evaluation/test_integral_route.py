@@ -88,7 +88,6 @@ def test_auto_keeps_exact_routes_when_cheap_and_goes_integral_when_large():
 
 @pytest.mark.parametrize("space,group,why", [
     ("Sigma(2,3,5)", "SU(3)", "SU(2) only"),
-    ("M(0; -1; (2,1), (4,1), (6,1))", "SU(2)", "share a factor"),
     ("S^2xS^1", "SU(2)", "H = 0"),
 ])
 def test_integral_route_refusals_name_the_reason(space, group, why):
