@@ -44,7 +44,7 @@ from knotobs.refined.cells import cells, partition_count, partitions_of
 from knotobs.refined.hall import _clean, _nabla, apply_Q
 from knotobs.refined.ratfunc import QT, RatQT
 
-__all__ = ["symmetric_hall_pairings", "apply_Q_multiple", "det_split", "symmetric_hall_cost"]
+__all__ = ["symmetric_hall_check", "symmetric_hall_pairings", "apply_Q_multiple", "det_split", "symmetric_hall_cost"]
 
 
 def _polys():
@@ -131,6 +131,10 @@ def apply_Q_multiple(m: int, n: int, k: int, vec: dict) -> dict:
     return _scale(out, QT.from_int(1) / _alpha_over_M(k))
 
 
+def _count_text(d: int) -> str:
+    return f"{partition_count(d):.3g}" if d <= 50000 else "more than 1e300"
+
+
 def _z_rho(rho) -> int:
     out = 1
     for k in set(rho):
@@ -185,8 +189,12 @@ def symmetric_hall_cost(m: int, n: int, r: int) -> float:
     Measured (2 cores shared): T(2,3) r = 2 about 0.1 s, r = 3 about 0.4 s; T(3,4) r = 2 about
     1 s; every extra colour box multiplies by ~5, every extra strand by ~6.
     """
+    import math
+
     d = min(r * n, 400)
-    return 0.02 * (partition_count(d) / 5.0) ** 2 * 3.0 ** (r + n - 3) * (1 + m / n)
+    log_s = (math.log(0.003) + 2 * math.log(partition_count(d) / 5.0) + (r + n - 3) * math.log(3.0)
+             + math.log(1 + m / n))
+    return math.exp(log_s) if log_s < 690 else 1e300
 
 
 @lru_cache(maxsize=64)
@@ -199,6 +207,17 @@ def _pairings(m: int, n: int, r: int) -> tuple:
     if not remainder.is_zero():
         raise ArithmeticError(f"the [{r}]-coloured invariant of T({m},{n}) is not a polynomial")
     return tuple(((int(e[0]), int(e[1]), int(e[2])), int(c)) for e, c in quotient.terms())
+
+
+def symmetric_hall_check(m: int, n: int, r: int, label: str | None = None) -> None:
+    """Validate the input and refuse it by the estimate (:func:`symmetric_hall_cost`) before any work."""
+    if not all(isinstance(v, int) for v in (m, n, r)) or m < 1 or n < 1 or r < 1 or gcd(m, n) != 1:
+        raise InvalidKnotError(f"coloured Q_(m,n) needs coprime m, n >= 1 and r >= 1, not ({m!r}, {n!r}), r={r!r}")
+    default = f"T({m},{n})"
+    require(f"elliptic-Hall route for {label or default} coloured [{r}] on {_count_text(r * n)} "
+            f"Macdonald polynomials of degree {r * n}",
+            seconds=symmetric_hall_cost(m, n, r),
+            accepted="use a smaller colour [r] or a torus knot with fewer strands")
 
 
 def symmetric_hall_pairings(m: int, n: int, r: int) -> dict[tuple[int, int, int], int]:
@@ -216,10 +235,5 @@ def symmetric_hall_pairings(m: int, n: int, r: int) -> dict[tuple[int, int, int]
     E. Gorsky, A. Negut, J. Math. Pures Appl. 104 (2015); I. Burban, O. Schiffmann, Duke Math. J.
     161 (2012); F. Bergeron, A. Garsia, E. Leven, G. Xin, IMRN 2016.
     """
-    if not all(isinstance(v, int) for v in (m, n, r)) or m < 1 or n < 1 or r < 1 or gcd(m, n) != 1:
-        raise InvalidKnotError(f"coloured Q_(m,n) needs coprime m, n >= 1 and r >= 1, not ({m!r}, {n!r}), r={r!r}")
-    require(f"elliptic-Hall route for T({m},{n}) coloured [{r}] on {partition_count(r * n):.3g} "
-            f"Macdonald polynomials of degree {r * n}",
-            seconds=symmetric_hall_cost(m, n, r),
-            accepted="use a smaller colour [r] or a torus knot with fewer strands")
+    symmetric_hall_check(m, n, r)
     return dict(_pairings(m, n, r))
