@@ -15,14 +15,15 @@ normalisation of :mod:`knotobs.refined.hall` (BGLX, ``Q_{0,1} = -e_1``):
   ``sum_k Theta_k s^k = exp(sum_k (alpha_k/M) Q_{k z0} s^k)``,
   ``alpha_k = (1 - q^k)(1 - t^k)(1 - (q t)^-k)/k``, ``M = (1-q)(1-t)``.  The BGLX scaling of the
   primitive ``Q`` cancels out of this form (it is linear in the lattice vector).
-* **Vertical generators** (checked in tests/test_refined_symmetric.py against Newton's
-  identities): ``Q_{0,k} = -M p_k[X/M]``, i.e. ``-M/((1-q^k)(1-t^k))`` times multiplication by
+* **Vertical generators** (checked in tests/test_refined_symmetric.py through the hook pairings
+  of ``p_k``): ``Q_{0,k} = -M p_k[X/M]``, i.e. ``-M/((1-q^k)(1-t^k))`` times multiplication by
   ``p_k``.
 * **The colour** ``[r]``: ``h_r[X/(1-q)]``, proportional to the Macdonald polynomial
   ``P_(r)[X/(1-t); q, t]`` (I. G. Macdonald, *Symmetric Functions and Hall Polynomials*, 2nd ed.
   1995, VI (2.8), (4.8)): ``h_r = sum_rho p_rho / z_rho`` with
-  ``p_k[X/(1-q)] = -(1 - t^k)/M Q_{0,k}``.  For ``r = 1`` it is ``-Q_{0,1}/M``, the uncoloured
-  route up to a scalar.  The unknot (``z0 = (0,1)``) gives
+  ``p_k[X/(1-q)] = -(1 - t^k)/M Q_{0,k}``, and for the knot ``Q_{0,k} -> (-1)^(k(n+1)) Q_{km,kn}``
+  (the sign ``(-1)^n`` per generator of the uncoloured ``Q_{m,n}(-1)^n``).  For ``r = 1`` it is the
+  uncoloured route up to a scalar.  The unknot (``z0 = (0,1)``) gives
   ``sum_d z^d <h_r[X/(1-q)], s_(r-d,1^d)> = (1 + z) ... (1 + z q^(r-1)) / ((1-q)...(1-q^r))``.
 
 The reduced invariant is the knot's generating function of hook pairings divided by the

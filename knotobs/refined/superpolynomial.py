@@ -5,9 +5,12 @@ functions of the Rosso–Jones formula by Macdonald polynomials (M. Aganagic & S
 arXiv:1105.5117 and arXiv:1202.2489; I. Cherednik, arXiv:1111.6195).  knotobs evaluates it through the elliptic-Hall /
 Hilbert-scheme description of E. Gorsky & A. Negut (J. Math. Pures Appl. 104 (2015) 403–435,
 arXiv:1304.3328): the refined invariant of ``T(m, n)`` is the generating function of the hook
-pairings ``<Q_{m,n}(-1)^n, s_(n-d, 1^d)>``, the ``a``-grading being ``d``.  Two routes:
+pairings ``<Q_{m,n}(-1)^n, s_(n-d, 1^d)>``, the ``a``-grading being ``d``.  Routes for ``[1]``:
 the closed sum for ``Q_{nk+1,n}(-1)^n = nabla^k e_n`` (:mod:`knotobs.refined.nabla`, knots
 ``T(n, nk+1)``) and the operator recursion of :mod:`knotobs.refined.hall` (every torus knot).
+Symmetric colours ``[r]``: the colour ``h_r[X/(1-q)]`` in the vertical generators, mapped to the
+non-primitive ``Q_{km,kn}`` (:mod:`knotobs.refined.colored_hall`), and the same algebra on the Fock
+space of Macdonald polynomials (:mod:`knotobs.refined.fock`); the grading map of ``[1]`` is kept.
 
 Variables and normalisation (CONVENTIONS §17, docs/refined.md): the grading of
 N. Dunfield, S. Gukov & J. Rasmussen (Experiment. Math. 15 (2006) 129–159), in which the
