@@ -117,6 +117,11 @@ def apply_Q_multiple(m: int, n: int, k: int, vec: dict) -> dict:
 
     ``(alpha_k/M) Q_{k z0} = [s^k] log(1 + sum_j Theta_j s^j)`` (Burban–Schiffmann); ``(0, 1)``
     goes through ``nabla``: ``Q_{0,k} = nabla^-1 Q_{k,k} nabla``.
+
+    >>> from knotobs.refined.ratfunc import QT
+    >>> v = apply_Q_multiple(0, 1, 2, {(): QT.from_int(1)})      # -M p_2[X/M], in the H~ basis
+    >>> sorted(v)
+    [(1, 1), (2,)]
     """
     if k == 1:
         return apply_Q(m, n, vec)
@@ -230,6 +235,12 @@ def symmetric_hall_pairings(m: int, n: int, r: int) -> dict[tuple[int, int, int]
         Coprime, ``m >= 1``, ``n >= 1``; the degree is ``r n`` (use ``n = min`` for speed).
     r : int
         The symmetric colour ``[r]``, ``r >= 1``.
+
+    Examples
+    --------
+    >>> F = symmetric_hall_pairings(3, 2, 2)          # T(2,3) coloured [2]: 9 terms
+    >>> len(F), min(F.values()), min(F)                 # lowest term q^3 (before the DGR map)
+    (9, 1, (3, 0, 0))
 
     References
     ----------

@@ -305,6 +305,12 @@ def fock_pairings(m: int, n: int, r: int) -> dict[tuple[int, int, int], int]:
     The same normalisation as :func:`knotobs.refined.colored_hall.symmetric_hall_pairings`
     (``z`` is ``-u``, ``u`` the variable of the principal specialisation).
 
+    Examples
+    --------
+    >>> from knotobs.refined.colored_hall import symmetric_hall_pairings
+    >>> fock_pairings(4, 3, 2) == symmetric_hall_pairings(4, 3, 2)    # T(3,4) coloured [2]
+    True
+
     References
     ----------
     M. Aganagic, S. Shakirov, arXiv:1105.5117; I. Cherednik, arXiv:1111.6195; I. G. Macdonald,
