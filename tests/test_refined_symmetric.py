@@ -185,6 +185,13 @@ def test_colour_one_is_the_existing_superpolynomial(knot):
     assert superpolynomial(knot, [1], route="elliptic-hall").value == base
 
 
+@pytest.mark.parametrize("knot", ["T(3,5)", "T(4,7)"])
+def test_both_routes_outside_the_nabla_family(knot):
+    """[1] on knots that are not T(n, nk+1): route both compares elliptic Hall and the Fock space."""
+    res = superpolynomial(knot, route="both")
+    assert "macdonald" in res.route.lower() and res.value == superpolynomial(knot, route="elliptic-hall").value
+
+
 def test_lowest_term_and_mirror():
     """Normalisation (docs/refined.md §17): lowest a-, then q-term a^(2gr) q^(-2gr) t^0; the mirror
     is P(a^-1, q^-1, t^-1) (duality, Gukov–Stošić 2012)."""

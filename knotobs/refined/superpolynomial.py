@@ -102,10 +102,12 @@ def _route_values(P: int, Q: int, route: str) -> tuple[LaurentM, str, dict]:
     n, m = min(P, Q), max(P, Q)
     if route == "auto":
         route = "nabla" if fam else "elliptic-hall"
-    if route in ("nabla", "both") and fam is None:
+    if route == "both" and fam is None:           # outside T(n, nk+1): the two operator routes
+        return _symmetric_route_values(P, Q, 1, "both")
+    if route == "nabla" and fam is None:
         raise InvalidKnotError(
             f"the nabla route covers torus knots T(n, nk+1) only; T({P},{Q}) is not of that form "
-            "(use route 'elliptic-hall', 'macdonald' or 'auto')"
+            "(use route 'elliptic-hall', 'macdonald', 'both' or 'auto')"
         )
     values = {}
     if route in ("nabla", "both"):
@@ -122,7 +124,7 @@ def _route_values(P: int, Q: int, route: str) -> tuple[LaurentM, str, dict]:
 
 
 def _symmetric_route_values(P: int, Q: int, r: int, route: str) -> tuple[LaurentM, str, dict]:
-    """The colour ``[r]``, ``r >= 2``: elliptic Hall on ``H~`` and the Macdonald Fock space."""
+    """The colour ``[r]``: elliptic Hall on ``H~`` and the Macdonald Fock space (``[1]`` outside ``T(n, nk+1)``)."""
     if route == "nabla":
         raise InvalidKnotError(
             f"the nabla route is the fundamental colour [1] only; for [{r}] choose "
@@ -164,8 +166,8 @@ def superpolynomial(knot, rep=(1,), *, mirror: bool = False, route: str = "auto"
         ``elliptic-hall``: the operators ``Q_{m,n}`` on modified Macdonald polynomials (every torus
         knot, every ``[r]``); ``macdonald``: the same algebra on the Fock space of Macdonald
         polynomials with the principal specialisation (every torus knot, every ``[r]``); ``both``
-        computes two and checks that they agree (``nabla`` and ``elliptic-hall`` for ``[1]``,
-        ``elliptic-hall`` and ``macdonald`` for ``[r]``, ``r >= 2``); ``auto`` takes ``nabla`` where
+        computes two and checks that they agree (``nabla`` and ``elliptic-hall`` for ``[1]`` on
+        ``T(n, nk+1)``, otherwise ``elliptic-hall`` and ``macdonald``); ``auto`` takes ``nabla`` where
         it applies, else ``elliptic-hall`` for ``[1]`` and ``macdonald`` for ``[r]``.
 
     Returns
