@@ -146,6 +146,11 @@ def test_two_strand_against_fuji_gukov_sulkowski(p, r):
     assert sympy.expand(_to_fgs_grading(P) - _fgs_two_strand(p, r)) == 0
 
 
+def test_result_method_is_the_stated_grading_change():
+    r = superpolynomial("T(2,5)", [3])
+    assert sympy.expand(r.fgs_grading().to_sympy() - _fgs_two_strand(2, 3)) == 0
+
+
 def test_grading_change_is_needed_for_colours():
     """The comparison is not empty: without the grading change the trefoil [2] differs."""
     P = superpolynomial("T(2,3)", [2]).value
