@@ -325,3 +325,19 @@ def test_pairings_are_cached_but_fresh_per_colour():
     """Different colours give different polynomials (no cache mix-up)."""
     assert symmetric_hall_pairings(3, 2, 2) != symmetric_hall_pairings(3, 2, 3)
     assert fock_pairings(3, 2, 2) == symmetric_hall_pairings(3, 2, 2)
+
+
+def test_plain_plethystic_rosso_jones_is_not_the_refined_invariant():
+    """docs/refined.md §17: with p_2 = P_(2) - (1+q)(1-t)/(1-qt) P_(1,1) (Macdonald 1995 VI (4.14),
+    the two-variable case), twists T_lam = q^n(lam') t^-n(lam) and principal specialisations
+    (VI (6.11')), the reduced T(2,3) sum keeps a factor 1/(1+t) for every choice of the relative
+    monomial weight, so it is no polynomial: the refined route cannot be the plain Adams expansion."""
+    q, t, A_, w = sympy.symbols("q t A w")
+    dim2 = (1 - A_) * (1 - q * A_) / ((1 - q * t) * (1 - t))
+    dim11 = t * (1 - A_) * (1 - A_ / t) / ((1 - t) * (1 - t ** 2))
+    unknot = (1 - A_) / (1 - t)
+    # w = T_(1,1)^(3/2) / T_(2)^(3/2), a monomial whatever the fractional powers
+    red = sympy.cancel((dim2 - (1 + q) * (1 - t) / (1 - q * t) * w * dim11) / unknot)
+    num, den = sympy.fraction(sympy.factor(red))
+    assert sympy.rem(den, 1 + t, t) == 0                       # 1 + t divides the denominator
+    assert sympy.solve(sympy.expand(num.subs(t, -1)), w) == [0]  # and not the numerator, unless w = 0
