@@ -116,6 +116,15 @@ def test_t_minus_one_is_coloured_homfly(knot, r):
     assert sympy.expand(P.specialize({"t": -1}).to_sympy() - _homfly_dgr(knot, r)) == 0
 
 
+@pytest.mark.slow
+def test_larger_colours_at_t_minus_one_and_against_fgs():
+    """The same sources for [4] on T(3,4) (about 15 s) and [5] on the trefoil (about 7 s)."""
+    P = superpolynomial("T(3,4)", [4]).value
+    assert P.coefficients_nonnegative()
+    assert sympy.expand(P.specialize({"t": -1}).to_sympy() - _homfly_dgr("T(3,4)", 4)) == 0
+    assert sympy.expand(_to_fgs_grading(superpolynomial("T(2,3)", [5]).value) - _fgs_two_strand(1, 5)) == 0
+
+
 def test_t_minus_one_of_the_mirror_option():
     P = superpolynomial("T(3,4)", [2], mirror=True).value
     assert sympy.expand(P.specialize({"t": -1}).to_sympy() - _homfly_dgr("T(3,4)", 2, mirror=True)) == 0

@@ -190,16 +190,15 @@ def _hook_generating(vec: dict):
 
 
 def symmetric_hall_cost(m: int, n: int, r: int) -> float:
-    """Rough seconds: vectors of length ``p(r n)``, commutator depth growing with ``r`` and ``n``.
-
-    Measured (2 cores shared): T(2,3) r = 2 about 0.1 s, r = 3 about 0.4 s; T(3,4) r = 2 about
-    1 s; every extra colour box multiplies by ~5, every extra strand by ~6.
+    """Rough seconds: the Fock-route model of :func:`knotobs.refined.fock.fock_cost` (fitted on
+    measured times) times 4, the measured ratio of the two routes (T(3,4) [3]: 3.7 s against
+    0.99 s), doubled.  Evaluated in logarithms from ``m, n, r`` alone.
     """
     import math
 
     d = min(r * n, 400)
-    log_s = (math.log(0.003) + 2 * math.log(partition_count(d) / 5.0) + (r + n - 3) * math.log(3.0)
-             + math.log(1 + m / n))
+    log_s = (math.log(8.0) - 11.49 + 1.22 * math.log(partition_count(d)) + 1.32 * r + 1.03 * n
+             + 0.26 * math.log(1 + m / n))
     return math.exp(log_s) if log_s < 690 else 1e300
 
 
