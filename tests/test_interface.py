@@ -158,6 +158,12 @@ CASES = [
     ("poly", "--normalized", ["poly", "T(2,3)"], ["poly", "T(2,3)", "--normalized"], "same"),
     ("poly", "--unnormalized", None, ["poly", "T(2,3)", "--family", "alexander", "--unnormalized"], "refused"),
     ("poly", "--N", None, ["poly", "T(2,3)", "--family", "homfly", "--N", "3"], "renamed:--group"),
+    ("poly", "--rep", ["poly", "T(2,3)", "--family", "superpolynomial"], ["poly", "T(2,3)", "--family", "superpolynomial", "-r", "[2]"], "changes"),
+    ("poly", "--rep", None, ["poly", "T(2,3)", "--family", "superpolynomial", "-r", "[2,1]"], "refused:[2, 1]"),
+    ("poly", "--route", ["poly", "T(2,3)", "--family", "superpolynomial", "-r", "[2]"], ["poly", "T(2,3)", "--family", "superpolynomial", "-r", "[2]", "--route", "both"], "changes"),
+    ("poly", "--route", ["poly", "T(2,3)", "--family", "superpolynomial", "-r", "[2]", "--json"], ["poly", "T(2,3)", "--family", "superpolynomial", "-r", "[2]", "--route", "elliptic-hall", "--json"], "same-exact"),
+    ("poly", "--route", None, ["poly", "T(2,3)", "--family", "superpolynomial", "-r", "[2]", "--route", "nabla"], "refused:nabla"),
+    ("poly", "--route", None, ["poly", "T(2,3)", "--route", "both"], "refused"),
     ("poly", "--json", ["poly", "T(2,3)"], ["poly", "T(2,3)", "--json"], "changes"),
     # fibers
     ("fibers", "--in", ["fibers", "fiber"], ["fibers", "fiber", "--in", "Sigma(2,3,5)"], "changes"),

@@ -118,6 +118,7 @@ def poly(
     mirror: bool = typer.Option(False, "--mirror", help="Mirror image of the knot."),
     form: Optional[str] = typer.Option(None, "--form", help="homfly, generic N: az or aq (default az for [1], aq otherwise)."),
     normalized: Optional[bool] = typer.Option(None, "--normalized/--unnormalized", help="Divide by the unknot (default: normalized, as the named polynomials are defined)."),
+    route: Optional[str] = typer.Option(None, "--route", help="superpolynomial: auto, nabla ([1] only), elliptic-hall, macdonald or both (two routes side by side, checked to agree)."),
     old_N: Optional[int] = typer.Option(None, "--N", hidden=True),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
@@ -133,6 +134,9 @@ def poly(
 
         g = parse_group(group)
     norm = True if normalized is None else normalized
+    if route is not None and fam != "superpolynomial":
+        refuse("--route", "applies to --family superpolynomial (auto, nabla, elliptic-hall, macdonald, both); "
+                          "the HOMFLY-PT routes are chosen with knotobs loop --route")
     from knotobs.evaluation import families as F
 
     if fam in ("jones", "colored-jones"):
@@ -185,9 +189,12 @@ def poly(
                             "SO(N) values: knotobs loop --group 'SO(N)')")
         if fam == "superpolynomial":
             from knotobs.refined import superpolynomial
+            from knotobs.refined.superpolynomial import ROUTES
 
-            with _inputs.naming(f"{knot}"):
-                res = superpolynomial(knot, rep_or_color(rep, None), mirror=mirror)
+            if route is not None and route not in ROUTES:
+                refuse("--route", f"{route!r}: choose {', '.join(ROUTES)}")
+            with _inputs.naming(f"{knot}" if rep is None else f"{knot} with --rep {rep}"):
+                res = superpolynomial(knot, rep_or_color(rep, None), mirror=mirror, route=route or "auto")
         else:
             from knotobs.evaluation.kauffman import dubrovnik, kauffman
 

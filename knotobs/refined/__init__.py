@@ -2,7 +2,10 @@
 
 Modules: :mod:`~knotobs.refined.cells` (cell statistics), :mod:`~knotobs.refined.nabla`
 (hook pairings of ``nabla^k e_n``), :mod:`~knotobs.refined.catalan` (the q,t-Catalan number
-from Dyck paths, an independent route), :mod:`~knotobs.refined.superpolynomial`.
+from Dyck paths, an independent route), :mod:`~knotobs.refined.hall` (elliptic-Hall operators),
+:mod:`~knotobs.refined.colored_hall` (symmetric colours ``[r]``), :mod:`~knotobs.refined.fock`
+(the same algebra on Macdonald polynomials, the second route for ``[r]``),
+:mod:`~knotobs.refined.superpolynomial`.
 """
 
 from knotobs.refined.catalan import qt_catalan

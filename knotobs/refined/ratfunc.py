@@ -59,17 +59,47 @@ class RatQT:
             num, den = -num, -den
         self.n, self.d = num, den
 
+    @classmethod
+    def _reduced(cls, num, den) -> "RatQT":
+        """``num/den`` already coprime: only the sign of the denominator is normalised."""
+        self = object.__new__(cls)
+        if den.leading_coefficient() < 0:
+            num, den = -num, -den
+        self.n, self.d = num, den
+        return self
+
+    def _plus(self, on, od) -> "RatQT":
+        # Henrici: with g = gcd(d1, d2), only g can be shared by the new numerator and denominator
+        g = self.d.gcd(od)
+        if g.is_one():
+            return RatQT._reduced(self.n * od + on * self.d, self.d * od)
+        d1, d2 = self.d / g, od / g
+        num = self.n * d2 + on * d1
+        if num.is_zero():
+            return RatQT._reduced(num, QT.one_poly())
+        g2 = num.gcd(g)
+        return RatQT._reduced(num / g2, d1 * (od / g2))
+
     def __add__(self, o: "RatQT") -> "RatQT":
-        return RatQT(self.n * o.d + o.n * self.d, self.d * o.d)
+        return self._plus(o.n, o.d)
 
     def __sub__(self, o: "RatQT") -> "RatQT":
-        return RatQT(self.n * o.d - o.n * self.d, self.d * o.d)
+        return self._plus(-o.n, o.d)
+
+    def _times(self, on, od) -> "RatQT":
+        g1, g2 = self.n.gcd(od), on.gcd(self.d)
+        num = (self.n / g1) * (on / g2)
+        if num.is_zero():
+            return RatQT._reduced(num, QT.one_poly())
+        return RatQT._reduced(num, (self.d / g2) * (od / g1))
 
     def __mul__(self, o: "RatQT") -> "RatQT":
-        return RatQT(self.n * o.n, self.d * o.d)
+        return self._times(o.n, o.d)
 
     def __truediv__(self, o: "RatQT") -> "RatQT":
-        return RatQT(self.n * o.d, self.d * o.n)
+        if o.n.is_zero():
+            raise ZeroDivisionError("division by the zero rational function")
+        return self._times(o.d, o.n)
 
     def __neg__(self) -> "RatQT":
         return RatQT(-self.n, self.d)

@@ -55,3 +55,23 @@ class SuperpolynomialResult(PolynomialResult):
             key = (j + 2 * i, k)
             terms[key] = terms.get(key, 0) + c
         return LaurentM(("q", "t"), terms)
+
+    def fgs_grading(self) -> LaurentM:
+        """The polynomial in the grading of the coloured formulas of Fuji–Gukov–Sułkowski.
+
+        ``a^i q^j t^k -> a^i q^j t^(2i + j - k)``, then the power of ``t`` that puts the lowest term at
+        ``t^0`` (docs/refined.md §17).  Identity at ``t = -1``; for ``[r]`` on ``T(2, 2p+1)`` it gives
+        the closed formula of H. Fuji, S. Gukov, P. Sułkowski, Nucl. Phys. B 867 (2013) (checked for
+        ``p <= 3``, ``r <= 3``); beyond two strands it is not DGR's grading for ``[1]``.
+
+        >>> from knotobs.refined import superpolynomial
+        >>> superpolynomial("T(2,3)", [2]).fgs_grading().num_terms()
+        9
+        """
+        terms: dict[tuple, int] = {}
+        for (i, j, k), c in self.value.terms().items():
+            key = (i, j, 2 * i + j - k)
+            terms[key] = terms.get(key, 0) + c
+        t_low = min(k for (_, _, k) in terms)
+        return LaurentM(("a", "q", "t"), terms).shift((0, 0, -t_low))
+
