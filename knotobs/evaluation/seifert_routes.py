@@ -69,7 +69,7 @@ LOOP_ROUTES = ("auto", "surgery", "localisation", "both")
 
 #: ``auto`` keeps the surgery route when it is estimated below this many seconds (small cases
 #: then print exactly as before the other routes existed).
-CHEAP_SURGERY = 0.25
+CHEAP_SURGERY = 0.05
 
 #: ``auto`` ranks the numeric-only ``integral`` route as if it cost this many seconds more, so
 #: that the exact routes answer whenever they are cheap.
@@ -145,12 +145,12 @@ def _gauss_estimate(M, N: int, k: int) -> RouteEstimate:
 
 
 def _integral_estimate(M, N: int, k: int, digits: int, exact) -> RouteEstimate:
-    from knotobs.evaluation.lr_integral import LRData, continuation_cost
-
     if N != 2:
         return RouteEstimate("integral", None, None, "the integral form of the Gauss sum is SU(2) only")
     if exact:
         return RouteEstimate("integral", None, None, "the integral form is numeric (no exact value)")
+    from knotobs.evaluation.lr_integral import LRData, continuation_cost
+
     try:
         d = LRData.from_space(M, allow_genus=True, allow_shared=True)
         sec, mb, what = continuation_cost(d, mpmath.mpc(k + 2), digits)
