@@ -364,7 +364,7 @@ def partition_function(space, group="SU(2)", level=None, digits: int = 30, exact
     if level is None:
         raise ParseError("give the level: partition_function(space, 'SU(2)', k)")
     k = as_level(level)
-    if isinstance(space, str) or _is_cartan(group):
+    if isinstance(space, str) or _is_cartan(group) or g.replace(" ", "").upper().startswith("U("):
         from knotobs.evaluation.level_loops import level_partition_function
 
         return level_partition_function(space if isinstance(space, str) else str(space), g, k, digits,
@@ -442,6 +442,15 @@ def fiber_wilson_loop(space, group="SU(2)", level=None, rep=None, *, fiber: Opti
 
     if route not in _LEVEL_ROUTES:
         raise ParseError(f"route={route!r}: choose auto, surgery, localisation or both")
+    if str(g).startswith("U("):
+        from knotobs.evaluation.unitary_level import unitary_fiber_loop
+
+        if not normalized:
+            raise ParseError("U(N) fiber loops are computed normalised by Z(M): drop raw=True")
+        if route not in ("auto", "both"):
+            raise ParseError(f"route={route!r}: U(N) fiber loops take route 'auto' or 'both'")
+        return unitary_fiber_loop(space, str(g), k, regular=[as_rep(c) for c in regular], exceptional=exc,
+                                  framing=framing, digits=digits, route=route)
     return _fwl(space, k, str(g), regular=[as_rep(c) for c in regular], exceptional=exc,
                 normalized=normalized, digits=digits, framing=framing, exact=exact, route=route or "auto")
 

@@ -158,3 +158,14 @@ def test_cli_space_and_loop_unitary():
     assert r.returncode == 0 and "U(2)" in r.stdout
     r = run("space", "L(4,1)", "--group", "U(2)", "--level", "2")
     assert r.returncode == 2 and r.stderr.startswith("error:") and "spin" in r.stderr
+
+
+def test_top_level_api_reaches_the_unitary_routes():
+    import knotobs
+    from knotobs.fibrations.seifert import parse_space
+
+    a = knotobs.partition_function("L(4,1)", "U(2)", 3, route="both")
+    b = knotobs.partition_function(parse_space("L(4,1)"), "U(2)", 3)
+    assert a.details["agreement"] and abs(a.numeric - b.numeric) < 1e-25
+    w = knotobs.fiber_wilson_loop("L(4,1)", "U(2)", 3, rep=[1], fiber=1, route="both")
+    assert "agreement" in w.details
