@@ -87,6 +87,16 @@ def test_integer_K_equals_the_finite_level_value_to_30_digits(space, N, ks):
         assert _close(total, z.numeric, 28)
 
 
+def test_integer_K_equals_the_surgery_route():
+    # the second finite-level route (modular data and SL(2,Z) words, CONVENTIONS §7, §9, §11)
+    from knotobs.evaluation.seifert_routes import partition_function
+
+    for space, k in (("L(5,1)", 2), ("L(7,2)", 4), ("M(0; -3; (2,1), (3,1))", 3)):
+        z = continued_sun_partition_function(space, "SU(3)", level=k, digits=30).numeric
+        ref = partition_function(space, "SU(3)", k, digits=35, route="surgery").numeric
+        assert _close(z, ref, 30), (space, k)
+
+
 def test_S3_is_S00_at_complex_K():
     # S_00 as a function of K is holomorphic: the continuation must be it (Carlson: both have type < pi)
     K = mpmath.mpc("7.3", "0.4")
