@@ -62,7 +62,8 @@ def _fixed(x, places: int) -> str:
     """``x`` rounded to ``places`` decimal places (negative: to tens, hundreds, ...)."""
     from knotobs.numerics import local_mp
 
-    x = mpmath.mpf(x)
+    if not isinstance(x, mpmath.mpf):      # an mpf keeps its own precision: never round it here
+        x = mpmath.mpf(x)
     top = 0 if x == 0 else int(mpmath.floor(mpmath.log10(abs(x))))
     ctx = local_mp(max(top, 0) + abs(places) + 20)
     if places < 0:
@@ -79,8 +80,13 @@ def _fixed(x, places: int) -> str:
 
 
 def certified_parts(z, digits: int) -> tuple[str, str]:
-    """Real and imaginary parts of ``z`` as decimal strings, certified digits only."""
-    z = mpmath.mpc(z)
+    """Real and imaginary parts of ``z`` as decimal strings, certified digits only.
+
+    An mpmath number is used as it is (converting it again would round it to the caller's
+    working precision, 15 digits by default).
+    """
+    if not isinstance(z, mpmath.mpc):
+        z = mpmath.mpc(z)
     places = _decimal_places(z, digits)
     return _fixed(z.real, places), _fixed(z.imag, places)
 
@@ -93,7 +99,8 @@ def certified_str(z, digits: int) -> str:
     >>> certified_str(mpmath.mpc(0, 1) / 3, 5)
     '0.33333j'
     """
-    z = mpmath.mpc(z)
+    if not isinstance(z, mpmath.mpc):
+        z = mpmath.mpc(z)
     re_, im_ = certified_parts(z, digits)
     if im_ in ("0.0", "-0.0", "0"):
         return re_

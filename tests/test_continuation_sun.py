@@ -183,3 +183,20 @@ def test_refusal_comes_before_the_work():
     with limits(seconds=1), pytest.raises(SizeLimitError):
         continued_sun_partition_function("L(97,1)", "SU(5)", K="7.5+0.1i", digits=30)
     assert time.perf_counter() - t < 2
+
+
+def test_cli_prints_the_certified_digits():
+    # regression: the printed digits beyond the 16th must be the value's, not those of a double
+    import json
+
+    from typer.testing import CliRunner
+
+    from knotobs.cli import app
+
+    out = CliRunner().invoke(app, ["continue", "L(5,1)", "--group", "SU(3)", "--level", "2", "-d", "30", "--json"])
+    assert out.exit_code == 0, out.output
+    js = json.loads(out.stdout)
+    ref = localisation_partition_function("L(5,1)", "SU(3)", 2, digits=40).numeric
+    with working_precision(45):
+        got = mpmath.mpc(mpmath.mpf(js["numeric"]["re"]), mpmath.mpf(js["numeric"]["im"]))
+    assert _close(got, ref, 29) and js["group"] == "SU(3)" and js["level"]["re"] == "2.0"
