@@ -57,7 +57,8 @@ def _group_N(group) -> int:
 def _covered(d: CartanData) -> None:
     if not d.entire:
         orders = ", ".join(map(str, d.big_orders))
-        hint = ("use --group 'SU(2)' (the SU(2) continuation has the residue terms)" if d.N == 2 else
+        hint = ("the SU(2) continuation with its residue terms is knotobs.continuation.level."
+                "continued_partition_function (knotobs continue without --group)" if d.N == 2 else
                 "SU(2) covers it (--group 'SU(2)'); for SU(N) the finite levels are computed by"
                 " 'knotobs space ... --group SU(N) --level k'")
         raise PolesNotCoveredError(
