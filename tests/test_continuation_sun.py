@@ -200,3 +200,28 @@ def test_cli_prints_the_certified_digits():
     with working_precision(45):
         got = mpmath.mpc(mpmath.mpf(js["numeric"]["re"]), mpmath.mpf(js["numeric"]["im"]))
     assert _close(got, ref, 29) and js["group"] == "SU(3)" and js["level"]["re"] == "2.0"
+
+
+@pytest.mark.parametrize("space", ["L(5,1)", "L(7,2)", "L(8,3)"])
+def test_sectors_are_the_flat_connections(space):
+    # one Gaussian per abelian flat connection: its key is the CS value P|u|^2/(2H) mod 1, which must
+    # be among the CS values of the flat SU(3) connections on L(p,q), (q*/2p) sum x_i^2 mod 1
+    # (knotobs.continuation.flat_sun; L. Jeffrey, Commun. Math. Phys. 147 (1992) for SU(2))
+    from knotobs.continuation.cartan import continued_sun_sectors
+    from knotobs.continuation.flat_sun import lens_flat_connections
+
+    keys = set(continued_sun_sectors(space, "7.5+0.2i", "SU(3)", 12))
+    assert keys == {c.cs % 1 for c in lens_flat_connections(space, 3)}
+
+
+@pytest.mark.parametrize("space", ["L(7,2)", "L(8,3)", "M(0; -5)"])
+def test_N2_sectors_equal_the_lawrence_rozansky_sectors(space):
+    # sector by sector against level.sector_values (Lawrence & Rozansky 1999, one block per flat connection)
+    from knotobs.continuation.cartan import continued_sun_sectors
+    from knotobs.continuation.level import sector_values
+
+    K = "7.5+0.2i"
+    a, b = sector_values(space, K, 22), continued_sun_sectors(space, K, "SU(2)", 22)
+    assert sorted(a) == sorted(b)
+    for cs in a:
+        assert _close(a[cs], b[cs], 20), cs
