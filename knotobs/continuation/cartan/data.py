@@ -13,6 +13,11 @@ finite-level value is (docs/continuation_sun.md §18.1)
 
 ``Lambda`` the weight lattice, ``Q`` the root lattice (roots of length^2 2); the prime omits the
 weights on an affine wall.  For N = 2 it is Lawrence–Rozansky's sum (CONVENTIONS §9).
+
+References
+----------
+R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314; M. Mariño, Commun. Math.
+Phys. 253 (2005) 25–49 (hep-th/0207096).
 """
 
 from __future__ import annotations

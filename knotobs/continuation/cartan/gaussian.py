@@ -60,7 +60,14 @@ def gaussian_terms(d: CartanData) -> int:
 
 
 def ia_power(d: CartanData, K: acb) -> acb:
-    """``(i a)^(-r/2)``, ``a = K H/P``, on the branch of the rotated contour (module docstring)."""
+    """``(i a)^(-r/2)``, ``a = K H/P``, on the branch of the rotated contour (module docstring).
+
+    >>> from knotobs.numerics import working_precision
+    >>> with working_precision(20):
+    ...     w = ia_power(CartanData.from_space("S^3", 3), acb(5))     # (5i)^-1
+    >>> abs(complex(w.mid()) + 0.2j) < 1e-15
+    True
+    """
     a = K * d.H / d.P
     ia = acb(0, 1) * a
     if d.r % 2 == 0:
@@ -74,7 +81,22 @@ def ia_power(d: CartanData, K: acb) -> acb:
 
 def gaussian_sectors(d: CartanData, K: acb, reduced: bool = True) -> dict[Fraction, acb]:
     """``{cs(u) mod 1: contribution}`` of every ``u in Q/HQ``, ``B_N`` included; the values add up
-    to the continued ``Z(K)``.  The caller sets the precision and has checked the size."""
+    to the continued ``Z(K)``.  The caller sets the precision and has checked the size.
+
+    Examples
+    --------
+    >>> from knotobs.numerics import working_precision
+    >>> with working_precision(20):
+    ...     s = gaussian_sectors(CartanData.from_space("L(5,1)", 3), acb(5))
+    ...     z = complex(sum(s.values(), acb(0)).mid())
+    >>> sorted(str(c) for c in s), abs(z - (0.339357973636751 + 0.467086179481358j)) < 1e-12
+    (['0', '1/5', '2/5', '3/5', '4/5'], True)
+
+    References
+    ----------
+    R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314; M. Mariño, Commun. Math.
+    Phys. 253 (2005) 25–49.
+    """
     N, P, H = d.N, d.P, d.H
     pa, pb = d.two_orders()
     pi = arb.pi()
