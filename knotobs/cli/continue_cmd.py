@@ -58,10 +58,10 @@ def flat(
 @handle_errors
 def continue_(
     target: str = typer.Argument(..., help="A Seifert space (Sigma(2,3,5), L(7,2), ...) or, with --couplings, a torus knot T(p,q)."),
-    level: Optional[str] = typer.Option(None, "--level", "-k", help="Complex level k, e.g. 7.5+0.3i (K = k + 2)."),
+    level: Optional[str] = typer.Option(None, "--level", "-k", help="Complex level k, e.g. 7.5+0.3i (K = k + N)."),
     K: Optional[str] = typer.Option(None, "--K", help="Complex shifted level K instead of --level."),
     couplings: Optional[str] = typer.Option(None, "--couplings", help="SL(N,C) couplings t,tt, e.g. 10+2i,10-2i."),
-    group: Optional[str] = typer.Option(None, "--group", "-g", help="SU(2) at complex level; SL(N,C) with --couplings (default SL(2,C))."),
+    group: Optional[str] = typer.Option(None, "--group", "-g", help="SU(N) at complex level (default SU(2); SU(N), N >= 3: lens spaces); SL(N,C) with --couplings (default SL(2,C))."),
     rep: Optional[str] = typer.Option(None, "--rep", "-r", help="With --couplings and a knot: [lam];[lamt] (default [1];[])."),
     digits: int = typer.Option(30, "--digits", "-d", help="Correct digits (1 to 2000)."),
     phases: Optional[str] = typer.Option(None, "--phases", help="Complex level: reduced (default; CS values in (-1/2,1/2]) or lawrence-rozansky."),
@@ -104,15 +104,33 @@ def continue_(
         return
     if rep is not None:
         refuse("--rep", "needs --couplings and a knot: the continued partition function has no Wilson line")
+    sun = None
     if group is not None and group.replace(" ", "").upper() != "SU(2)":
-        refuse("--group", f"{group}: the continuation in the level is computed for SU(2)"
-                          " (SL(N,C) Wilson loops: --couplings t,tt)")
+        from knotobs.errors import KnotobsError
+        from knotobs.representations.groups import parse_group
+
+        try:
+            g = parse_group(group)
+        except KnotobsError as exc:
+            refuse("--group", f"{group}: {exc}")
+        if g.kind != "SU":
+            refuse("--group", f"{group}: the continuation in the level is computed for SU(N)"
+                              " (SL(N,C) Wilson loops: --couplings t,tt)")
+        sun = g.N
     if is_knot:
         raise ParseError(f"{target} is a knot: give --couplings t,tt for its SL(N,C) Wilson loop, or a space")
     if level is None and K is None:
         raise ParseError("give --level k (complex, e.g. 7.5+0.3i), --K, or --couplings t,tt")
     if level is not None and K is not None:
-        refuse("--K", "give the level once: --level k or --K (= k + 2)")
+        refuse("--K", f"give the level once: --level k or --K (= k + {sun or 2})")
+    if sun is not None:
+        from knotobs.continuation.cartan import continued_sun_partition_function
+        from knotobs.output.continuation_text import continued_text
+
+        ph = phases or "reduced"
+        res = continued_sun_partition_function(target, f"SU({sun})", level, K=K, digits=digits, phases=ph)
+        emit(res.to_json, lambda: continued_text(res, ph), as_json)
+        return
     from knotobs.continuation.level import continued_partition_function
     from knotobs.output.continuation_text import continued_text
 

@@ -73,11 +73,17 @@ def flat_sun_text(space, group, conns) -> str:
 
 
 def continued_text(res, phases: str) -> str:
-    """Readable block of a :class:`~knotobs.continuation.level.ContinuedValue`."""
-    text = (f"Z({normal_form_name(res.space)}) at K = {mpmath.nstr(res.K, 12)} (level k = K - 2), SU(2)\n"
+    """Readable block of a :class:`~knotobs.continuation.level.ContinuedValue` (SU(2)) or a
+    :class:`~knotobs.continuation.cartan.CartanContinuedValue` (SU(N), with its sectors)."""
+    N = getattr(res, "N", 2)
+    how = ("Lawrence-Rozansky integral + residues" if N == 2 and not hasattr(res, "sectors")
+           else "Gaussian integrals over the rotated Cartan (one per abelian flat connection)")
+    text = (f"Z({normal_form_name(res.space)}) at K = {mpmath.nstr(res.K, 12)} (level k = K - {N}), SU({N})\n"
             f"  value = {certified_str(res.numeric, res.digits)}\n"
             f"  normalization: Z(S^3) = S_00, canonical 2-framing\n"
-            f"  continuation: Lawrence-Rozansky integral + residues, phases {phases}")
+            f"  continuation: {how}, phases {phases}")
+    for cs, v in sorted(getattr(res, "sectors", {}).items()):
+        text += f"\n    cs = {str(cs):>8s}  sector = {certified_str(v, min(res.digits, 12))}"
     for n in res.notes:
         text += f"\n  note: {n}"
     return text

@@ -1,0 +1,72 @@
+"""Speed table of the SU(N) continuation in K (run: python benchmarks/bench_continuation_sun.py).
+
+Rows: 20 complex K to 20 digits from Python and through the CLI (whole processes, start-up
+included), and at integer K the continued value beside the two finite-level routes
+(localisation and surgery).  Sigma(2,3,5) for SU(3) is refused by the continuation (three
+exceptional orders: the residue terms are not implemented, docs/continuation_sun.md §18.4); its
+row shows the refusal and the time it takes.
+"""
+
+from __future__ import annotations
+
+import subprocess
+import sys
+import time
+
+import mpmath
+
+from knotobs.continuation.cartan import continued_sun_partition_function
+from knotobs.errors import KnotobsError
+from knotobs.evaluation.seifert_routes import partition_function
+from knotobs.precision import certified_str
+
+POINTS = [f"{3 + 0.45 * j:.2f}{'+' if j % 2 == 0 else '-'}{0.1 + 0.05 * (j % 5):.2f}i" for j in range(20)]
+
+
+def _python(space: str, group: str, digits: int = 20) -> tuple[float, str]:
+    t = time.perf_counter()
+    try:
+        for k in POINTS:
+            continued_sun_partition_function(space, group, level=k, digits=digits)
+        status = "ok"
+    except KnotobsError as exc:
+        status = "refused: " + str(exc)[:70] + "..."
+    return time.perf_counter() - t, status
+
+
+def _cli(space: str, group: str, digits: int = 20) -> tuple[float, str]:
+    t = time.perf_counter()
+    status = "ok"
+    for k in POINTS:
+        r = subprocess.run([sys.executable, "-m", "knotobs", "continue", space, "--group", group, "--level", k,
+                            "-d", str(digits)], capture_output=True, text=True)
+        if r.returncode != 0:
+            status = "refused: " + (r.stdout + r.stderr).strip().splitlines()[-1][:70] + "..."
+            break
+    return time.perf_counter() - t, status
+
+
+def main() -> None:
+    print("SU(N) continued Z at 20 complex levels k (K = k + N), 20 digits")
+    print(f"{'case':<44} {'target':>7} {'python':>9} {'cli (20 processes)':>19}  status")
+    for space, group, target in (("L(5,1)", "SU(3)", 10.0), ("L(7,2)", "SU(3)", None), ("M(0; -2)", "SU(4)", None),
+                                 ("Sigma(2,3,5)", "SU(3)", 10.0)):
+        tp, sp = _python(space, group)
+        tc, sc = _cli(space, group)
+        tgt = f"{target:.0f} s" if target else "-"
+        print(f"{space + ', ' + group:<44} {tgt:>7} {tp:8.3f}s {tc:18.3f}s  {sp if sp != 'ok' else sc}")
+    print()
+    print("integer K: continued value vs the finite-level routes (20 digits)")
+    print(f"{'case':<22} {'k':>3}  {'continued':>48}  {'localisation':>48}  {'surgery':>48}  agree")
+    for space, group in (("L(5,1)", "SU(3)"), ("L(7,2)", "SU(3)"), ("M(0; -2)", "SU(4)")):
+        for k in (1, 2, 3, 5):
+            c = continued_sun_partition_function(space, group, level=k, digits=20).numeric
+            a = partition_function(space, group, k, digits=20, route="localisation").numeric
+            b = partition_function(space, group, k, digits=20, route="surgery").numeric
+            ok = abs(c - a) < 1e-18 and abs(c - b) < 1e-18
+            print(f"{space + ' ' + group:<22} {k:>3}  {certified_str(c, 20):>48}  {certified_str(a, 20):>48}  "
+                  f"{certified_str(b, 20):>48}  {'yes' if ok else 'NO'}")
+
+
+if __name__ == "__main__":
+    main()

@@ -1,0 +1,272 @@
+r"""``Z(K)`` of SU(N) Chern–Simons theory on a Seifert manifold at complex shifted level ``K``.
+
+CONVENTIONS §18 (docs/continuation_sun.md).  The finite-level value is the Gauss sum over the
+weight lattice of :mod:`.data`; for the manifolds covered here (base genus 0, ``H != 0``, at
+most two exceptional orders ``> 1``, orders pairwise coprime: the lens spaces) its integrand is
+entire, and Lawrence–Rozansky's argument gives ``|H|^r`` Gaussian integrals over the rotated
+Cartan and no residues.  They are evaluated in closed form (:mod:`.gaussian`) or by the trapezoid
+rule (:mod:`.quadrature`); each route runs twice (``digits + 3`` and ``digits + 12`` digits, and
+for the trapezoid rule different steps and cut-offs) and the two runs must agree.
+
+Refused, with a message naming the case: base genus ``g >= 1``, ``H = 0``, orders sharing a
+factor, and — for ``N >= 3`` — three or more exceptional orders ``> 1`` (``h`` then has poles on
+the root hyperplanes, and the residue recursion over their intersections is not implemented;
+docs/continuation_sun.md §18.4 says what is missing).  SU(2) on every Seifert rational homology
+sphere with coprime orders is :func:`knotobs.continuation.level.continued_partition_function`.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+from fractions import Fraction
+from typing import Any
+
+import mpmath
+from flint import acb
+
+from knotobs._notebook import NotebookMixin
+from knotobs.continuation._num import ball_seconds, bits, checked, to_acb, to_mpc, working_bits
+from knotobs.continuation.cartan.data import CartanData, PolesNotCoveredError
+from knotobs.continuation.cartan.gaussian import gaussian_sectors, gaussian_terms
+from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_sectors
+from knotobs.continuation.level import PHASES, DomainError, resolve_K
+from knotobs.errors import KnotobsError
+from knotobs.guard import require
+from knotobs.precision import certified_parts, check_digits
+from knotobs.representations.groups import parse_group
+
+__all__ = ["CartanContinuedValue", "continued_sun_partition_function", "continued_sun_Z",
+           "continued_sun_sectors", "continuation_sun_cost", "METHODS"]
+
+#: ``closed``: the Gaussian integrals in closed form; ``quadrature``: the trapezoid rule on the
+#: rotated Cartan; ``both``: both, compared to the requested digits.
+METHODS = ("closed", "quadrature", "both")
+
+#: At most this many trapezoid nodes per run (rank ``r`` grids grow like ``(2M+1)^r``).
+MAX_NODES = 400_000
+
+
+def _group_N(group) -> int:
+    g = parse_group(group)
+    if g.kind != "SU":
+        raise KnotobsError(f"the continuation in the level is computed for SU(N); got {g}")
+    return g.N
+
+
+def _covered(d: CartanData) -> None:
+    if not d.entire:
+        orders = ", ".join(map(str, d.big_orders))
+        hint = ("the SU(2) continuation with its residue terms is knotobs.continuation.level."
+                "continued_partition_function (knotobs continue without --group)" if d.N == 2 else
+                "SU(2) covers it (--group 'SU(2)'); for SU(N) the finite levels are computed by"
+                " 'knotobs space ... --group SU(N) --level k'")
+        raise PolesNotCoveredError(
+            f"{d.space} has {len(d.big_orders)} exceptional orders > 1 ({orders}): for SU({d.N}) the"
+            " integrand has poles on the root hyperplanes and the residue recursion over their"
+            " intersections is not implemented; the SU(N) continuation in K covers Seifert spaces"
+            f" with at most two exceptional fibers (lens spaces); {hint}"
+        )
+
+
+def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed") -> tuple[float, float, str]:
+    """Estimated ``(seconds, megabytes, description)`` of one continued value (both runs).
+
+    >>> s, mb, what = continuation_sun_cost(CartanData.from_space("L(5,1)", 3), mpmath.mpc(7.5, 0.3), 30)
+    >>> s < 1 and "900 exponentials" in what
+    True
+    """
+    where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
+    terms = gaussian_terms(d)
+    sec = ball_seconds(2 * terms * 4, digits + 12) / 3.0
+    what = f"{where} ({terms:.3g} exponentials" if terms > 10 ** 9 else f"{where} ({terms} exponentials"
+    if method in ("quadrature", "both"):
+        nodes = quadrature_nodes(d, float(abs(Kv)), digits + 12)
+        if nodes > MAX_NODES:
+            from knotobs.errors import SizeLimitError
+
+            raise SizeLimitError(
+                f"{where}: the trapezoid rule needs {nodes} nodes (at most {MAX_NODES}; rank {d.r},"
+                f" |H| = {abs(d.H)}); use method='closed', fewer digits or a smaller |H|"
+            )
+        sec += ball_seconds(2 * nodes * (d.npos + 2), digits + 12) / 3.0
+        what += f", {nodes} trapezoid nodes"
+    mb = terms * 200 / 1e6 + (quadrature_nodes(d, float(abs(Kv)), digits) * 300 / 1e6 if method != "closed" else 0)
+    return sec, mb, what + f"; |H| = {abs(d.H)}, rank {d.r})"
+
+
+def _prepare(space, group, level, K, digits, phases, method):
+    if phases not in PHASES:
+        raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
+    if method not in METHODS:
+        raise DomainError(f"method = {method!r}: use one of {', '.join(METHODS)}")
+    digits = check_digits(digits)
+    N = _group_N(group)
+    d = CartanData.from_space(space, N)
+    _covered(d)
+    Kv = resolve_K(level, K, N)
+    sec, mb, what = continuation_sun_cost(d, Kv, digits, method)
+    require(what, seconds=sec, memory_mb=mb,
+            accepted="ask for fewer digits, a smaller N or a lens space with smaller |H|")
+    return digits, N, d, Kv
+
+
+def _sectors(d: CartanData, level, K, N, digits, reduced, method):
+    """Sectors at ``digits`` digits by one method, both runs compared (caller has checked the size)."""
+    Kv = resolve_K(level, K, N)
+    runs = {}
+
+    def comp(dg):
+        with working_bits(bits(dg)):
+            Ka = to_acb(resolve_K(level, K, N))          # read again at this precision
+            if method == "closed":
+                s = gaussian_sectors(d, Ka, reduced)
+            else:
+                s = quadrature_sectors(d, Ka, dg, reduced)
+            runs[dg] = s
+            return sum(s.values(), acb(0))
+
+    total = checked(comp, digits, f"SU({N}) Z({d.space}) at K = {mpmath.nstr(Kv, 10)} ({method})")
+    lo, hi = runs[digits + 3], runs[digits + 12]
+    out = {}
+    for cs in sorted(hi):
+        out[cs] = checked(lambda dg, cs=cs: (lo if dg == digits + 3 else hi)[cs], digits,
+                          f"sector cs = {cs} of SU({N}) Z({d.space})")
+    return total, out
+
+
+@dataclass(frozen=True, repr=False)
+class CartanContinuedValue(NotebookMixin):
+    """SU(N) ``Z(K)`` at a complex shifted level, with its flat-connection sectors.
+
+    Attributes
+    ----------
+    numeric : mpmath.mpc
+        Correct to ``digits`` digits (absolute below 1, relative above), two runs agreeing.
+    K : mpmath.mpc
+        Shifted level ``K = k + N``.
+    N : int
+    space : str
+    sectors : dict
+        ``{cs mod 1: value}``: one Gaussian integral per abelian flat connection (``u in Q/HQ``
+        grouped by Chern–Simons value); they add up to ``numeric``.
+    method : str
+    """
+
+    numeric: mpmath.mpc
+    digits: int
+    K: mpmath.mpc
+    N: int
+    space: str
+    sectors: dict = field(default_factory=dict, compare=False)
+    method: str = "closed"
+    notes: tuple[str, ...] = ()
+
+    @property
+    def pieces(self) -> dict:
+        """``{"integral": ..., "residues": 0}`` (the layout of the SU(2) value)."""
+        return {"integral": self.numeric, "residues": mpmath.mpc(0)}
+
+    def to_json(self) -> dict[str, Any]:
+        def cj(z):
+            re_, im_ = certified_parts(z, self.digits)
+            return {"re": re_, "im": im_}
+
+        return {
+            "quantity": "partition-function",
+            "group": f"SU({self.N})",
+            "space": self.space,
+            "K": {"re": mpmath.nstr(self.K.real, 15), "im": mpmath.nstr(self.K.imag, 15)},
+            "level": {"re": mpmath.nstr(self.K.real - self.N, 15), "im": mpmath.nstr(self.K.imag, 15)},
+            "numeric": {**cj(self.numeric), "digits": self.digits},
+            "pieces": {k: cj(v) for k, v in self.pieces.items()},
+            "sectors": {str(cs): cj(v) for cs, v in sorted(self.sectors.items())},
+            "route": ("Gaussian integrals over the rotated Cartan (SU(N) Lawrence-Rozansky form, "
+                      f"{'closed form' if self.method == 'closed' else self.method}; analytic continuation in K)"),
+            "normalisation": "Z(S^3) = S_00, Z(S^2 x S^1) = 1, canonical 2-framing",
+            "notes": list(self.notes),
+        }
+
+
+def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None, digits: int = 30,
+                                     phases: str = "reduced", method: str = "closed") -> CartanContinuedValue:
+    """SU(N) partition function of a Seifert lens space at complex level (CONVENTIONS §18).
+
+    Parameters
+    ----------
+    space : str or SeifertManifold
+        Base genus 0, ``H != 0``, at most two exceptional orders ``> 1``, coprime
+        (``"L(5,1)"``, ``"L(7,2)"``, ``"M(0; 1; (2,1), (3,1))"``, ``"S^3"``).
+    group : str
+        ``"SU(N)"``, ``N >= 2``.
+    level, K : complex or str
+        ``level = k`` (``K = k + N``) or ``K``; e.g. ``level="7.5+0.3i"``.
+    digits : int
+    phases : ``"reduced"`` (default) or ``"lawrence-rozansky"``
+        The sector of ``u`` carries ``exp(2 pi i K cs(u))``; reduced takes ``cs`` in
+        ``(-1/2, 1/2]`` (the continuation of smallest exponential type), the other keeps
+        ``cs = P |u|^2/(2H)``.  Equal at every integer ``K``.
+    method : ``"closed"``, ``"quadrature"`` or ``"both"``
+        Closed-form Gaussians, the trapezoid rule on the rotated Cartan, or both compared.
+
+    Returns
+    -------
+    CartanContinuedValue
+        At integer ``K`` the finite-level ``Z_{K-N}(M)`` of the localisation route.
+
+    Examples
+    --------
+    >>> z = continued_sun_partition_function("L(5,1)", "SU(3)", K=5, digits=20)
+    >>> from knotobs.localisation import localisation_partition_function
+    >>> abs(z.numeric - localisation_partition_function("L(5,1)", "SU(3)", 2).numeric) < 1e-18
+    True
+    >>> w = continued_sun_partition_function("L(5,1)", "SU(3)", level="7.5+0.3i", digits=15)
+    >>> sorted(str(c) for c in w.sectors)
+    ['0', '1/5', '2/5', '3/5', '4/5']
+
+    References
+    ----------
+    R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314 (rank one);
+    M. Mariño, Commun. Math. Phys. 253 (2005) 25–49 (the Cartan integrals for simply-laced groups).
+    """
+    digits, N, d, Kv = _prepare(space, group, level, K, digits, phases, method)
+    reduced = phases == "reduced"
+    notes = []
+    if method == "both":
+        total, sectors = _sectors(d, level, K, N, digits, reduced, "closed")
+        total_q, _ = _sectors(d, level, K, N, digits, reduced, "quadrature")
+        from knotobs.numerics import working_precision
+
+        with working_precision(digits + 10):
+            diff = abs(total - total_q)
+            if diff > mpmath.mpf(10) ** (-digits) * max(abs(total), 1):
+                from knotobs.errors import PrecisionError
+
+                raise PrecisionError(f"SU({N}) Z({d.space}): closed form and trapezoid rule differ by"
+                                     f" {mpmath.nstr(diff, 3)} at {digits} digits")
+        notes.append(f"closed form and trapezoid rule agree to {digits} digits")
+    else:
+        total, sectors = _sectors(d, level, K, N, digits, reduced, method)
+    if Kv.imag == 0 and Kv.real == int(Kv.real):
+        notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
+    return CartanContinuedValue(total, digits, Kv, N, str(d.space), sectors, method, tuple(notes))
+
+
+def continued_sun_Z(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> mpmath.mpc:
+    """Shorthand: ``continued_sun_partition_function(space, group, K=K, digits=digits).numeric``.
+
+    >>> z = continued_sun_Z("S^3", 5, "SU(3)", 20)          # S_00 of SU(3) at level 2
+    >>> abs(z - mpmath.mpf(1) / mpmath.sqrt(3 * 25) * 8 * mpmath.sin(mpmath.pi/5)**2 * mpmath.sin(2*mpmath.pi/5)) < 1e-15
+    True
+    """
+    return continued_sun_partition_function(space, group, K=K, digits=digits, phases=phases).numeric
+
+
+def continued_sun_sectors(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> dict[Fraction, mpmath.mpc]:
+    """The sectors ``{cs mod 1: value}`` of :func:`continued_sun_partition_function`.
+
+    >>> v = continued_sun_sectors("L(5,1)", "6.5+0.2i", "SU(3)", 15)
+    >>> abs(sum(v.values()) - continued_sun_Z("L(5,1)", "6.5+0.2i", "SU(3)", 15)) < 1e-13
+    True
+    """
+    return dict(continued_sun_partition_function(space, group, K=K, digits=digits, phases=phases).sectors)
