@@ -14,6 +14,7 @@ import time
 
 from knotobs.qseries.radial import finite_level_from_qseries
 from knotobs.qseries.series import qseries_for
+import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 CASES = [
     ("Sigma(2,3,5)", "0", 1000, None),
