@@ -41,6 +41,9 @@ _EXPORTS: dict[str, str] = {
     # continuation, flat connections, asymptotics, Kashaev, q-series
     "flat_connections": "knotobs.api",
     "continued_partition_function": "knotobs.api",
+    "continued_sun_partition_function": "knotobs.continuation.cartan",
+    "continued_sun_sectors": "knotobs.continuation.cartan",
+    "unitary_partition_function": "knotobs.evaluation.unitary_mtc",
     "sl_wilson_loop": "knotobs.api",
     "sl2c_partition_function": "knotobs.api",
     "asymptotic_value": "knotobs.api",

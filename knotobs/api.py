@@ -570,7 +570,10 @@ def flat_connections(space, group="SU(2)", *, order: int = 6):
 @_only_knotobs_errors
 def continued_partition_function(space, group="SU(2)", level=None, *, K=None, digits: int = 30,
                                  phases: str = "reduced"):
-    """SU(2) partition function at complex level (``level`` = k, or ``K = k + 2``).
+    """Partition function at complex level (``level`` = k, or ``K = k + N``).
+
+    SU(2) on every Seifert manifold with ``e != 0``; SU(N), N >= 3, on lens spaces
+    (:mod:`knotobs.continuation.cartan`; three or more exceptional fibers are refused).
 
     >>> z = continued_partition_function("Sigma(2,3,5)", "SU(2)", 3, digits=15)
     >>> abs(z.numeric - partition_function("Sigma(2,3,5)", "SU(2)", 3).numeric) < 1e-12
@@ -586,6 +589,11 @@ def continued_partition_function(space, group="SU(2)", level=None, *, K=None, di
                 group, level = "SU(2)", group
             else:
                 as_group(group)
+    g = str(group).replace(" ", "").upper() if isinstance(group, str) else str(group)
+    if g.startswith("SU(") and g != "SU(2)":
+        from knotobs.continuation.cartan import continued_sun_partition_function
+
+        return continued_sun_partition_function(space, g, level, K=K, digits=digits, phases=phases)
     _su2_only(group, "the continuation in the level")
     from knotobs.continuation.level import continued_partition_function as _cpf
 
