@@ -600,8 +600,8 @@ def compare_knotinfo(knot, invariant: str = "jones") -> Comparison:
 
     Examples
     --------
-    >>> c = compare_knotinfo("T(2,3)", "jones")               # doctest: +SKIP
-    >>> c.equal, c.map.mirror                                 # doctest: +SKIP
+    >>> c = compare_knotinfo("T(2,3)", "jones")
+    >>> c.equal, c.map.mirror
     (True, False)
 
     References
