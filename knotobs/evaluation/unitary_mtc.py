@@ -176,9 +176,9 @@ class UnitaryModularData:
         if k % 2 == 0:
             raise KnotobsError(
                 f"U({N}) at even level k = {k} is a spin theory (the line (J, K) that defines the"
-                " quotient has spin (k+1)/2), whose values depend on a spin structure: partition functions"
-                " and loops off S^3 and integral homology spheres are computed for odd k (Wilson loops in"
-                " S^3 and in integral homology spheres work at every level)"
+                " quotient has spin (k+1)/2), whose values depend on a spin structure: U(N) partition"
+                " functions, and fiber loops where H_1 != 0, are computed for odd k (Wilson loops in S^3"
+                " and in integral homology spheres work at every level)"
             )
         self.N, self.k = N, k
         self.K = k + N

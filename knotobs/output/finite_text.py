@@ -10,6 +10,9 @@ from knotobs.evaluation.finite_value import FiniteLevelValue
 
 __all__ = ["finite_json", "finite_text"]
 
+#: Routes that give numbers with certified digits and no exact value (docs/localisation.md §10.6, docs/surgery.md §11).
+NUMERIC_ROUTES = ("integral", "quotient", "gauging")
+
 
 def finite_json(value: FiniteLevelValue, inputs: dict[str, Any], quantity: str) -> dict[str, Any]:
     """The JSON object of a finite-level command: the value's fields plus the inputs."""
@@ -39,9 +42,10 @@ def finite_text(value: FiniteLevelValue, title: str) -> str:
         if value.root_of_unity:
             lines.append(f"            with {value.root_of_unity}")
     else:
-        numeric_route = value.details.get("routes") == ["integral"]
-        lines.append("  exact     (not computed: the integral route is numeric)" if numeric_route
-                     else "  exact     (not computed at this size; numeric only)")
+        routes = value.details.get("routes") or []
+        numeric_route = bool(routes) and all(r in NUMERIC_ROUTES for r in routes)
+        lines.append(f"  exact     (not computed: the {' and '.join(routes)} route{'s are' if len(routes) > 1 else ' is'}"
+                     " numeric)" if numeric_route else "  exact     (not computed at this size; numeric only)")
     lines.append("")
     lines.append(f"framing:       {value.framing}")
     lines.append(f"orientation:   {value.orientation}")
