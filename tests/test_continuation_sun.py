@@ -225,3 +225,20 @@ def test_N2_sectors_equal_the_lawrence_rozansky_sectors(space):
     assert sorted(a) == sorted(b)
     for cs in a:
         assert _close(a[cs], b[cs], 20), cs
+
+
+@pytest.mark.parametrize("space", ["M(0; -1; (2,1), (4,1))", "M(0; 0; (3,1), (6,1))", "M(0; -3; (4,1), (6,5))"])
+@pytest.mark.parametrize("N", [2, 3])
+def test_lens_space_with_shared_orders_is_continued_in_its_one_fiber_form(space, N):
+    """Two exceptional orders sharing a factor: the space is a lens space, continued as L(p, q)
+    (the slam-dunk of SeifertManifold.lens_parameters; Rolfsen 1976, ch. 9); at integer K the value
+    must equal the localisation route on the presentation as given (catches an orientation slip)."""
+    from knotobs.continuation.cartan import continued_sun_partition_function
+    from knotobs.evaluation.seifert_routes import partition_function
+    from knotobs.numerics import working_precision
+
+    for k in (1, 2, 3):
+        a = continued_sun_partition_function(space, f"SU({N})", k, digits=25).numeric
+        b = partition_function(space, f"SU({N})", k, digits=25, route="localisation").numeric
+        with working_precision(35):
+            assert abs(a - b) < mpmath.mpf(10) ** -22

@@ -79,7 +79,7 @@ class CartanData:
     def from_space(cls, space, N: int) -> "CartanData":
         if isinstance(N, bool) or not isinstance(N, int) or N < 2:
             raise InvalidGroupError(f"SU(N) needs an integer N >= 2, got N = {N!r}")
-        lr = LRData.from_space(space)
+        lr = LRData.from_space(_lens_form(space))
         if lr.space.genus != 0:
             raise InvalidSeifertDataError(
                 f"{lr.space} has base genus {lr.space.genus}: the continuation in K is built for"
@@ -157,3 +157,20 @@ def B_N(d: CartanData, K: acb) -> acb:
     mod = 1 / (arb(math.factorial(N) * N) * arb(d.P).sqrt() ** r)
     sign = -1 if d.npos % 2 else 1
     return (sign * mod) * (acb(0, d.sigma * (N * N - 1)) * pi / 4).exp() * (acb(0, -1) * pi * rho2 * ph / K).exp()
+
+
+def _lens_form(space):
+    """A lens space given with two exceptional orders that share a factor (``M(0; b; (2,1), (4,1))``),
+    as its one-fiber form ``L(p, q)`` (same oriented manifold: the slam-dunk of
+    :meth:`SeifertManifold.lens_parameters`); anything else unchanged.  The sum of §18.1 needs
+    coprime orders, and a lens space always has a presentation with one exceptional fiber."""
+    from knotobs.fibrations.seifert import SeifertManifold, parse_space
+
+    M = parse_space(space) if not isinstance(space, SeifertManifold) else space
+    orders = [a for a, _ in M.fibers if a > 1]
+    if M.genus or len(orders) != 2 or math.gcd(*orders) == 1:
+        return M
+    pq = M.lens_parameters()
+    if pq is None or pq[0] == 0:
+        return M
+    return SeifertManifold.from_lens(*pq)
