@@ -23,7 +23,7 @@ from importlib import import_module as _import_module
 
 from knotobs.errors import KnotobsError
 
-__version__ = "0.2.0"
+__version__ = "0.3.0"
 
 #: public name -> module that defines it (imported lazily).
 _EXPORTS: dict[str, str] = {

@@ -5,7 +5,7 @@ imported, so it costs little more than starting Python.
 
 >>> import subprocess, sys
 >>> subprocess.run([sys.executable, "-m", "knotobs", "--version"], capture_output=True, text=True).stdout
-'knotobs 0.2.0\\n'
+'knotobs 0.3.0\\n'
 """
 
 from __future__ import annotations
