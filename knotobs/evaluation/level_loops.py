@@ -65,7 +65,7 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
         return so3_partition_function(report.manifold, level, digits), report
     if parse_group(group).kind == "U":
         if route not in ("auto", "both"):
-            raise KnotobsError(f"U(N) at level k has the routes quotient and gauging (docs/groups.md):"
+            raise KnotobsError(f"U(N) at level k has the routes quotient and gauging (docs/surgery.md §11):"
                                f" --route {route} does not apply; use --route auto or both")
         from knotobs.evaluation.unitary_mtc import unitary_partition_function
 

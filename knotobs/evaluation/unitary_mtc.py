@@ -183,11 +183,13 @@ class UnitaryModularData:
         self.N, self.k = N, k
         self.K = k + N
         self.m = N * self.K
-        self.su: ModularData = modular_data(N, k)
-        size = self.su.size * self.K
+        from knotobs.evaluation.modular import alcove_size
+
+        size = alcove_size(N, k) * self.K // N
         require(f"modular data of U({N}) at level {k} ({size} objects, dense {size}x{size} S)",
                 seconds=seconds_for(size * size * 40, "python"), memory_mb=size * size * 200 / 1e6,
                 accepted="a lower level or rank")
+        self.su: ModularData = modular_data(N, k)
         self.central_charge = self.su.central_charge + 1
         self.objects: list[tuple[tuple[int, ...], int]] = []
         self._index: dict[tuple[tuple[int, ...], int], int] = {}
