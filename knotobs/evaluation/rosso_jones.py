@@ -31,6 +31,7 @@ from flint import fmpz_poly
 
 from knotobs.errors import InvalidKnotError, InvalidRepresentationError
 from knotobs.evaluation.estimates import guard_dense, guard_fixed, guard_homfly, user_label
+from knotobs.guard import require, seconds_for
 from knotobs.evaluation.framing import FramingSpec, resolve_framing
 from knotobs.fibrations.torus import TorusLink
 from knotobs.polynomials.bivariate import Laurent2
@@ -133,6 +134,13 @@ def _sum_fixed(group: Group, mus: np.ndarray, c: np.ndarray, m: int, n: int) -> 
     k = len(mus)
     delta = np.arange(N - 1, -1, -1, dtype=np.int64)
     sparse = _weyl_sparse_cost(N, k) <= 4e6
+    if not sparse:
+        # one quantum dimension per irreducible piece, |Delta+| q-number divisions each (about 40 us,
+        # measured: SU(9) [4,4,4,4] on T(5,4), 1.8e4 pieces, 10 s).  The count of pieces is known
+        # only now (the Adams image is cheap); checked before the costly part
+        require(f"{user_label(f'{group} Rosso-Jones sum')}: quantum dimensions of {k} irreducible pieces",
+                seconds=seconds_for(k * (N * (N - 1) // 2) * 80, "python"), memory_mb=k * N * 8 / 2**20,
+                accepted="choose a smaller colour or knot")
     for r in np.unique(cls).tolist():
         sel = cls == r
         if sparse:

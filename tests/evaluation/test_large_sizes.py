@@ -309,3 +309,20 @@ def test_to_z_matches_greedy_and_lucas():
         assert cur == lucas_coefficients(e)
     with pytest.raises(InexactDivisionError):
         to_z(s + s**-1)
+
+
+def test_many_quantum_dimensions_are_refused_before_they_are_computed(monkeypatch):
+    """Regression (found by the CLI fuzz test): SU(9) [4,4,4,4] on T(12,11) has 162585 irreducible
+    pieces in its Adams image and took 214 s while its weight-count estimate said 10 s; the count of
+    pieces is now checked before any quantum dimension is computed."""
+    import knotobs.evaluation.rosso_jones as rj
+    from knotobs.errors import SizeLimitError
+    from knotobs.fibrations.torus import TorusLink
+    from knotobs.representations.groups import SU
+
+    def no_work(*args, **kwargs):
+        raise AssertionError("a quantum dimension was computed before the refusal")
+
+    monkeypatch.setattr(rj, "qdim_dense", no_work)
+    with pytest.raises(SizeLimitError, match="quantum dimensions of 162585 irreducible pieces"):
+        rj.rosso_jones(TorusLink(12, 11), SU(9), (4, 4, 4, 4))
