@@ -364,7 +364,7 @@ def partition_function(space, group="SU(2)", level=None, digits: int = 30, exact
     if level is None:
         raise ParseError("give the level: partition_function(space, 'SU(2)', k)")
     k = as_level(level)
-    if isinstance(space, str) or _is_cartan(group) or g.replace(" ", "").upper().startswith("U("):
+    if isinstance(space, str) or _is_cartan(group):
         from knotobs.evaluation.level_loops import level_partition_function
 
         return level_partition_function(space if isinstance(space, str) else str(space), g, k, digits,

@@ -63,13 +63,6 @@ def level_partition_function(space: Optional[str] = None, group="SU(2)", level: 
         from knotobs.evaluation.so3_level import so3_partition_function
 
         return so3_partition_function(report.manifold, level, digits), report
-    if parse_group(group).kind == "U":
-        if route not in ("auto", "both"):
-            raise KnotobsError(f"U(N) at level k has the routes quotient and gauging (docs/surgery.md §11):"
-                               f" --route {route} does not apply; use --route auto or both")
-        from knotobs.evaluation.unitary_mtc import unitary_partition_function
-
-        return unitary_partition_function(report.manifold, group, level, digits, route=route), report
     return partition_function(report.manifold, group, level, digits, route=route), report
 
 

@@ -308,6 +308,14 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
     if route not in PARTITION_ROUTES:
         raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(PARTITION_ROUTES)}")
     M = as_manifold(space)
+    if parse_group(group).kind == "U":
+        # U(N)_k as the quotient (SU(N)_k x U(1)_{NK})/Z_N: its own two routes (docs/surgery.md §11)
+        if route not in ("auto", "both"):
+            raise KnotobsError(f"U(N) at level k has the routes quotient and gauging (docs/surgery.md §11):"
+                               f" --route {route} does not apply; use --route auto or both")
+        from knotobs.evaluation.unitary_mtc import unitary_partition_function
+
+        return unitary_partition_function(M, group, level, digits, route=route)
     N, k = _group_level(group, level)
     ests = route_estimates(M, f"SU({N})", k, exact=exact, digits=digits)
     what = f"Z of {M}, SU({N}) at level {k}"

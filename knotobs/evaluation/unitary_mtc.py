@@ -56,6 +56,7 @@ Examples
 from __future__ import annotations
 
 import itertools
+from functools import lru_cache
 from fractions import Fraction
 from typing import Mapping, Sequence
 
@@ -67,6 +68,7 @@ from knotobs.evaluation.modular import ModularData, modular_data
 from knotobs.evaluation.surgery import (
     SurgeryPresentation,
     _core_sum,
+    _inverse_matrix,
     _orientation_text,
     seifert_data,
     seifert_genus,
@@ -255,6 +257,12 @@ class UnitaryModularData:
         return S
 
 
+@lru_cache(maxsize=16)
+def unitary_modular_data(N: int, k: int) -> UnitaryModularData:
+    """:class:`UnitaryModularData` built once per ``(N, k)``."""
+    return UnitaryModularData(N, k)
+
+
 # ---------------------------------------------------------------------------
 # evaluation on a Seifert manifold
 
@@ -270,28 +278,10 @@ def _presentation(space):
     e0, pq = seifert_to_surgery(b, fibers)
     pres = SurgeryPresentation.from_coefficients(e0, pq)
     A = pres.linking_matrix()
-    det = _det(A)
-    if det == 0:
+    if _inverse_matrix(A) is None:
         raise InvalidSeifertDataError(f"{_orientation_text(b, fibers)}: H_1 is infinite (e = 0);"
                                       " U(N) at finite level is computed on rational homology spheres")
     return b, fibers, pres, signature(A)
-
-
-def _det(A) -> int:
-    M = [[Fraction(x) for x in row] for row in A]
-    n, d = len(M), Fraction(1)
-    for c in range(n):
-        p = next((r for r in range(c, n) if M[r][c] != 0), None)
-        if p is None:
-            return 0
-        if p != c:
-            M[c], M[p] = M[p], M[c]
-            d = -d
-        d *= M[c][c]
-        for r in range(c + 1, n):
-            f = M[r][c] / M[c][c]
-            M[r] = [x - f * y for x, y in zip(M[r], M[c])]
-    return int(d)
 
 
 def _lines(md: UnitaryModularData, fibers, regular, exceptional):
@@ -310,14 +300,16 @@ def _anomaly(c: Fraction, sigma: int):
     return _e(-Fraction(c) * sigma / 8)
 
 
-def _quotient_value(md, pres, sigma, reg, exc, dps):
+def _quotient_values(md, pres, sigma, line_sets, dps):
+    """The quotient route for every ``(regular, exceptional)`` line set, one backend for all."""
     with working_precision(dps):
         be = _Backend(md.S(dps), [md.h(o) for o in md.objects])
-        total, _ = _core_sum(be, pres, exc, reg)
-        return total * _anomaly(md.central_charge, sigma)
+        an = _anomaly(md.central_charge, sigma)
+        return [_core_sum(be, pres, exc, reg)[0] * an for reg, exc in line_sets]
 
 
-def _gauging_value(md, pres, sigma, reg, exc, dps):
+def _gauging_values(md, pres, sigma, line_sets, dps):
+    """The gauging route for every line set; the SU(N)_k and U(1)_{NK} backends built once."""
     N, m, K = md.N, md.m, md.K
     su = md.su
     with working_precision(dps):
@@ -325,34 +317,37 @@ def _gauging_value(md, pres, sigma, reg, exc, dps):
         Su1, hu1 = _u1_data(m, dps)
         Bu1 = _Backend(Su1, hu1)
         isu = {w: i for i, w in enumerate(su.weights)}
-        # the colours as (SU(N) weight, U(1) charge)
-        reg_p = [md.objects[i] for i in reg]
-        exc_p = {j: md.objects[i] for j, i in exc.items()}
         nchains = len(pres.chains)
         curves = 1 + nchains                      # the regular fiber and every core
-        total = mpmath.mpc(0)
-        for x in itertools.product(range(N), repeat=curves):
-            su_reg = [isu[lam] for lam, _ in reg_p]
-            u1_reg = [n % m for _, n in reg_p]
-            lam0 = ()
-            for _ in range(x[0]):
-                lam0 = simple_current(lam0, N, md.k)
-            su_reg.append(isu[lam0])
-            u1_reg.append((K * x[0]) % m)
-            su_exc, u1_exc = {}, {}
-            for j in range(nchains):
-                lam, n = exc_p.get(j, ((), 0))
-                # a^x on core j, oriented like the colour there (dual for b_j < 0 is already in exc)
-                for _ in range(x[1 + j]):
-                    lam = simple_current(lam, N, md.k)
-                n = n + K * x[1 + j]
-                if lam != () or n % m or j in exc_p:
-                    su_exc[j], u1_exc[j] = isu[lam], n % m
-            zs, _ = _core_sum(Bsu, pres, su_exc, su_reg)
-            zu, _ = _core_sum(Bu1, pres, u1_exc, u1_reg)
-            total += zs * zu
-        total *= mpmath.mpf(N) ** (1 - curves)
-        return total * _anomaly(md.central_charge, sigma)
+        an = _anomaly(md.central_charge, sigma) * mpmath.mpf(N) ** (1 - curves)
+        out = []
+        for reg, exc in line_sets:
+            # the colours as (SU(N) weight, U(1) charge)
+            reg_p = [md.objects[i] for i in reg]
+            exc_p = {j: md.objects[i] for j, i in exc.items()}
+            total = mpmath.mpc(0)
+            for x in itertools.product(range(N), repeat=curves):
+                su_reg = [isu[lam] for lam, _ in reg_p]
+                u1_reg = [n % m for _, n in reg_p]
+                lam0 = ()
+                for _ in range(x[0]):
+                    lam0 = simple_current(lam0, N, md.k)
+                su_reg.append(isu[lam0])
+                u1_reg.append((K * x[0]) % m)
+                su_exc, u1_exc = {}, {}
+                for j in range(nchains):
+                    lam, n = exc_p.get(j, ((), 0))
+                    # a^x on core j, oriented like the colour there (dual for b_j < 0 is already in exc)
+                    for _ in range(x[1 + j]):
+                        lam = simple_current(lam, N, md.k)
+                    n = n + K * x[1 + j]
+                    if lam != () or n % m or j in exc_p:
+                        su_exc[j], u1_exc[j] = isu[lam], n % m
+                zs, _ = _core_sum(Bsu, pres, su_exc, su_reg)
+                zu, _ = _core_sum(Bu1, pres, u1_exc, u1_reg)
+                total += zs * zu
+            out.append(total * an)
+        return out
 
 
 def _gauging_cost(md, pres) -> tuple[float, float]:
@@ -362,7 +357,9 @@ def _gauging_cost(md, pres) -> tuple[float, float]:
     return seconds_for(ops * 30, "python"), (md.su.size ** 2 + md.m ** 2) * 200 / 1e6
 
 
-def _value(space, group, level, regular, exceptional, digits, route):
+def _values(space, group, level, lines, digits, route):
+    """``Z(M; L)`` for every ``(regular, exceptional)`` colouring in ``lines``, by the chosen
+    route(s), each checked at two precisions; returns ``(values, b, fibers, details)``."""
     from knotobs.representations.groups import parse_group
 
     g = parse_group(group)
@@ -372,49 +369,48 @@ def _value(space, group, level, regular, exceptional, digits, route):
         raise KnotobsError(f"unknown route {route!r}: choose one of {', '.join(UNITARY_ROUTES)}")
     digits = check_digits(digits)
     b, fibers, pres, sigma = _presentation(space)
-    md = UnitaryModularData(g.N, level)
-    reg, exc = _lines(md, fibers, list(regular), dict(exceptional or {}))
+    md = unitary_modular_data(g.N, level)
+    line_sets = [_lines(md, fibers, list(regular), dict(exceptional or {})) for regular, exceptional in lines]
     n = md.size
     chain = sum(len(c) + 1 for c in pres.chains) + 2
     require(f"U({g.N}) at level {level} on {_orientation_text(b, fibers)} by the quotient route"
             f" ({n} objects, {chain} dense products)",
-            seconds=seconds_for(chain * n * n * 30, "python"), memory_mb=n * n * 200 / 1e6,
+            seconds=seconds_for(chain * n * n * 30 * len(lines), "python"), memory_mb=n * n * 200 / 1e6,
             accepted="a lower level or rank")
     routes = ["quotient", "gauging"] if route == "both" else (["quotient"] if route == "auto" else [route])
     if "gauging" in routes:
         sec, mb = _gauging_cost(md, pres)
         require(f"U({g.N}) at level {level} by the gauging route ({g.N ** (1 + len(pres.chains))} terms)",
-                seconds=sec, memory_mb=mb, accepted="--route quotient")
-    run = {"quotient": _quotient_value, "gauging": _gauging_value}
-
-    def once(r, dps):
-        return run[r](md, pres, sigma, reg, exc, dps)
-
+                seconds=sec * len(lines), memory_mb=mb, accepted="--route quotient")
+    run = {"quotient": _quotient_values, "gauging": _gauging_values}
     vals = {}
     for r in routes:
-        lo, hi = once(r, digits + 12), once(r, digits + 24)
+        lo = run[r](md, pres, sigma, line_sets, digits + 12)
+        hi = run[r](md, pres, sigma, line_sets, digits + 24)
         with working_precision(digits + 24):
-            if abs(lo - hi) > mpmath.mpf(10) ** (-digits - 2) * max(1, abs(hi)):
+            if any(abs(a - c) > mpmath.mpf(10) ** (-digits - 2) * max(1, abs(c)) for a, c in zip(lo, hi)):
                 raise PrecisionError(f"U(N) value by the {r} route not stable to {digits} digits")
         vals[r] = hi
     details = {"group": f"U({g.N})", "level": level, "routes": routes, "objects": n,
                "convention": f"U({g.N})_{level} = (SU({g.N})_{level} x U(1)_{g.N * md.K})/Z_{g.N}"}
     if len(routes) == 2:
-        a, c = vals["quotient"], vals["gauging"]
         with working_precision(digits + 24):
-            if abs(a - c) > mpmath.mpf(10) ** (1 - digits) * max(1, abs(a)):
-                from knotobs.evaluation.two_routes import RouteMismatchError
+            for a, c in zip(vals["quotient"], vals["gauging"]):
+                if abs(a - c) > mpmath.mpf(10) ** (1 - digits) * max(1, abs(a)):
+                    from knotobs.evaluation.two_routes import RouteMismatchError
 
-                raise RouteMismatchError(f"U({g.N}) at level {level}: the quotient and gauging routes"
-                                         f" disagree: {a} vs {c}")
+                    raise RouteMismatchError(f"U({g.N}) at level {level}: the quotient and gauging routes"
+                                             f" disagree: {a} vs {c}")
         details["agreement"] = f"to {digits} digits"
-    with working_precision(digits + 24):
-        z = vals[routes[0]]
-        # parts far below the certified digits are rounding noise of a real or imaginary value
-        tiny = mpmath.mpf(10) ** (-digits - 8) * max(1, abs(z))
-        z = mpmath.mpc(0 if abs(z.real) < tiny else z.real, 0 if abs(z.imag) < tiny else z.imag)
-    with working_precision(digits):
-        return +z, b, fibers, details
+    out = []
+    for z in vals[routes[0]]:
+        with working_precision(digits + 24):
+            # parts far below the certified digits are rounding noise of a real or imaginary value
+            tiny = mpmath.mpf(10) ** (-digits - 8) * max(1, abs(z))
+            z = mpmath.mpc(0 if abs(z.real) < tiny else z.real, 0 if abs(z.imag) < tiny else z.imag)
+        with working_precision(digits):
+            out.append(+z)
+    return out, b, fibers, details
 
 
 def unitary_partition_function(space, group="U(2)", level: int = 1, digits: int = 30,
@@ -450,7 +446,7 @@ def unitary_partition_function(space, group="U(2)", level: int = 1, digits: int 
     M. Mariño, Commun. Math. Phys. 253 (2005) 25–49 (U(N) partition functions, ``S_00``);
     Hsin & Seiberg, JHEP 09 (2016) 095 (the quotient); CONVENTIONS §9 (the surgery formula).
     """
-    val, b, fibers, details = _value(space, group, level, (), {}, digits, route)
+    (val,), b, fibers, details = _values(space, group, level, [((), {})], digits, route)
     return FiniteLevelValue(
         exact=None, numeric=val, digits=digits, framing="canonical 2-framing (Atiyah)",
         orientation=_orientation_text(b, fibers), normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1",
@@ -474,8 +470,8 @@ def unitary_seifert_loop(space, group="U(2)", level: int = 1, regular: Sequence 
     >>> w.details["agreement"]
     'to 15 digits'
     """
-    zl, b, fibers, details = _value(space, group, level, regular, exceptional, digits + 3, route)
-    z0, _, _, _ = _value(space, group, level, (), {}, digits + 3, route)
+    (zl, z0), b, fibers, details = _values(space, group, level, [(regular, exceptional), ((), {})],
+                                           digits + 3, route)
     with working_precision(digits + 10):
         if abs(z0) < mpmath.mpf(10) ** (-digits):
             raise KnotobsError(f"Z(M) vanishes for U(N) at level {level} on {space}: the normalised loop is undefined")
