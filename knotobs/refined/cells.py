@@ -20,7 +20,8 @@ from typing import Iterator, NamedTuple, Sequence
 
 from knotobs.representations.partitions import conjugate, partitions_of
 
-__all__ = ["Cell", "cells", "n_of", "conjugate", "partitions_of", "partition_count"]
+__all__ = ["Cell", "cells", "addable", "n_of", "conjugate", "partitions_of", "partition_count",
+           "partition_count_text"]
 
 
 class Cell(NamedTuple):
@@ -39,6 +40,24 @@ def cells(mu: Sequence[int]) -> Iterator[Cell]:
     for i, row in enumerate(mu):
         for j in range(row):
             yield Cell(i, j, row - j - 1, mc[j] - i - 1)
+
+
+def addable(mu: Sequence[int]) -> Iterator[tuple[tuple[int, ...], tuple[int, int]]]:
+    """``(lam, (i, j))`` for each partition ``lam`` obtained by adding the cell ``(i, j)`` to ``mu``.
+
+    >>> list(addable((2,)))
+    [((3,), (0, 2)), ((2, 1), (1, 0))]
+    """
+    mu = list(mu)
+    for i in range(len(mu) + 1):
+        row = mu[i] if i < len(mu) else 0
+        if i == 0 or mu[i - 1] > row:
+            lam = mu[:]
+            if i < len(mu):
+                lam[i] += 1
+            else:
+                lam.append(1)
+            yield tuple(lam), (i, row)
 
 
 def n_of(mu: Sequence[int]) -> int:
@@ -78,3 +97,12 @@ def partition_count(n: int) -> float:
             p[m] = total
         return p[n]
     return math.exp(math.pi * math.sqrt(2 * n / 3)) / (4 * n * math.sqrt(3))
+
+
+def partition_count_text(n: int) -> str:
+    """``p(n)`` for a message: three digits, or "more than 1e300" where even the estimate overflows.
+
+    >>> partition_count_text(10)
+    '42'
+    """
+    return f"{partition_count(n):.3g}" if n <= 50000 else "more than 1e300"

@@ -37,13 +37,14 @@ unknot's (an exact polynomial division; a remainder raises).
 from __future__ import annotations
 
 from functools import lru_cache
-from math import factorial, gcd
+from math import gcd
 
 from knotobs.errors import InvalidKnotError
 from knotobs.guard import require
-from knotobs.refined.cells import cells, partition_count, partitions_of
+from knotobs.refined.cells import cells, partition_count_text, partitions_of
 from knotobs.refined.hall import _clean, _nabla, apply_Q
-from knotobs.refined.ratfunc import QT, RatQT
+from knotobs.refined.ratfunc import QT, QTZ, RatQT, reduced_by_unknot
+from knotobs.representations.symmetric import z_rho
 
 __all__ = ["symmetric_hall_check", "symmetric_hall_pairings", "apply_Q_multiple", "det_split", "symmetric_hall_cost"]
 
@@ -137,18 +138,6 @@ def apply_Q_multiple(m: int, n: int, k: int, vec: dict) -> dict:
     return _scale(out, QT.from_int(1) / _alpha_over_M(k))
 
 
-def _count_text(d: int) -> str:
-    return f"{partition_count(d):.3g}" if d <= 50000 else "more than 1e300"
-
-
-def _z_rho(rho) -> int:
-    out = 1
-    for k in set(rho):
-        c = rho.count(k)
-        out *= k ** c * factorial(c)
-    return out
-
-
 def colour_vector(m: int, n: int, r: int) -> dict:
     """``h_r[X/(1-q)]`` with ``p_k[X/(1-q)] -> -(1-t^k)/M Q_{km,kn}``, applied to ``1``."""
     q, t, one = _polys()
@@ -156,7 +145,7 @@ def colour_vector(m: int, n: int, r: int) -> dict:
     total: dict = {}
     for rho in partitions_of(r):
         vec = {(): QT.from_int(1)}
-        c = QT.from_int(1) / QT.from_int(_z_rho(rho))
+        c = QT.from_int(1) / QT.from_int(z_rho(rho))
         for k in rho:
             vec = apply_Q_multiple(m, n, k, vec)
             c = c * RatQT(t ** k - one) / M * QT.from_int((-1) ** (k * (n + 1)))
@@ -164,54 +153,35 @@ def colour_vector(m: int, n: int, r: int) -> dict:
     return total
 
 
-def _hook_generating(vec: dict):
-    """``sum_d z^d <vec, s_(n-d,1^d)>`` as one fraction ``N(q,t,z) / D(q,t)`` (3-variable polys)."""
-    import flint
-
-    ctx = flint.fmpz_mpoly_ctx.get(("q", "t", "z"), "lex")
-    q, t, z = ctx.gens()
-    one = ctx.from_dict({(0, 0, 0): 1})
-
-    def lift(p):
-        return ctx.from_dict({(int(e[0]), int(e[1]), 0): int(c) for e, c in p.terms()})
-
-    num, den = 0 * one, one
+def _hook_generating(vec: dict) -> tuple:
+    """``sum_d z^d <vec, s_(n-d,1^d)>`` as one fraction ``N(q,t,z) / D(q,t)``."""
+    acc = QTZ()
     for mu, cf in vec.items():
-        R = one
+        R = acc.one
         for c in cells(mu):
             if (c.row, c.col) != (0, 0):
-                R *= one + z * q ** c.col * t ** c.row
-        n2, d2 = lift(cf.n), lift(cf.d)
-        g = den.gcd(d2)
-        lcm_cof = d2 / g
-        num = num * lcm_cof + n2 * R * (den / g)
-        den = den * lcm_cof
-    return num, den
+                R *= acc.one + acc.z * acc.q ** c.col * acc.t ** c.row
+        acc.add(cf, R, acc.one)
+    return acc.num, acc.den
 
 
 def symmetric_hall_cost(m: int, n: int, r: int) -> float:
     """Rough seconds: the Fock-route model of :func:`knotobs.refined.fock.fock_cost` (fitted on
     measured times) times 4, the measured ratio of the two routes (T(3,4) [3]: 3.7 s against
-    0.99 s), doubled.  Evaluated in logarithms from ``m, n, r`` alone.
-    """
-    import math
+    0.99 s).  Evaluated from ``m, n, r`` alone, so a huge request is refused at once.
 
-    d = min(r * n, 400)
-    log_s = (math.log(8.0) - 11.49 + 1.22 * math.log(partition_count(d)) + 1.32 * r + 1.03 * n
-             + 0.26 * math.log(1 + m / n))
-    return math.exp(log_s) if log_s < 690 else 1e300
+    >>> symmetric_hall_cost(3, 2, 2) < 1
+    True
+    """
+    from knotobs.refined.fock import fock_cost
+
+    return min(4 * fock_cost(m, n, r), 1e300)
 
 
 @lru_cache(maxsize=64)
 def _pairings(m: int, n: int, r: int) -> tuple:
-    knot_num, knot_den = _hook_generating(colour_vector(m, n, r))
-    unk_num, unk_den = _hook_generating(colour_vector(0, 1, r))
-    top = knot_num * unk_den
-    bottom = knot_den * unk_num
-    quotient, remainder = divmod(top, bottom)
-    if not remainder.is_zero():
-        raise ArithmeticError(f"the [{r}]-coloured invariant of T({m},{n}) is not a polynomial")
-    return tuple(((int(e[0]), int(e[1]), int(e[2])), int(c)) for e, c in quotient.terms())
+    return reduced_by_unknot(_hook_generating(colour_vector(m, n, r)), _hook_generating(colour_vector(0, 1, r)),
+                             f"the [{r}]-coloured invariant of T({m},{n})")
 
 
 def symmetric_hall_check(m: int, n: int, r: int, label: str | None = None) -> None:
@@ -219,7 +189,7 @@ def symmetric_hall_check(m: int, n: int, r: int, label: str | None = None) -> No
     if not all(isinstance(v, int) for v in (m, n, r)) or m < 1 or n < 1 or r < 1 or gcd(m, n) != 1:
         raise InvalidKnotError(f"coloured Q_(m,n) needs coprime m, n >= 1 and r >= 1, not ({m!r}, {n!r}), r={r!r}")
     default = f"T({m},{n})"
-    require(f"elliptic-Hall route for {label or default} coloured [{r}] on {_count_text(r * n)} "
+    require(f"elliptic-Hall route for {label or default} coloured [{r}] on {partition_count_text(r * n)} "
             f"Macdonald polynomials of degree {r * n}",
             seconds=symmetric_hall_cost(m, n, r),
             accepted="use a smaller colour [r] or a torus knot with fewer strands")

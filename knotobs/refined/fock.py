@@ -33,12 +33,13 @@ two Pieri rules, the two evaluations and the two implementations of the algebra 
 from __future__ import annotations
 
 from functools import lru_cache
-from math import factorial, gcd
+from math import gcd
 
 from knotobs.errors import InvalidKnotError
 from knotobs.guard import require
-from knotobs.refined.cells import cells, conjugate, n_of, partition_count, partitions_of
-from knotobs.refined.ratfunc import QT, RatQT
+from knotobs.refined.cells import addable, cells, conjugate, n_of, partition_count, partition_count_text, partitions_of
+from knotobs.refined.ratfunc import QT, QTZ, RatQT, reduced_by_unknot
+from knotobs.representations.symmetric import z_rho
 
 __all__ = ["fock_check", "fock_pairings", "fock_cost"]
 
@@ -86,26 +87,13 @@ def _lin(a: dict, b: dict, cb: RatQT) -> dict:
     return _clean(out)
 
 
-def _grown(mu):
-    mu = list(mu)
-    for i in range(len(mu) + 1):
-        row = mu[i] if i < len(mu) else 0
-        if i == 0 or mu[i - 1] > row:
-            lam = mu[:]
-            if i < len(mu):
-                lam[i] += 1
-            else:
-                lam.append(1)
-            yield tuple(lam), row          # new cell (i, row): its column is ``row``
-
-
 @lru_cache(maxsize=None)
 def _pieri(mu: tuple) -> tuple:
     """``P_mu p_1 = sum_lam c_lam P_lam`` (Macdonald VI (6.24) with ``g_1 = (1-s)/(1-q) p_1``)."""
     one = _int(1)
     g1 = (one - _s_pow(1)) / (one - _q_pow(1))
     out = []
-    for lam, col in _grown(mu):
+    for lam, (_, col) in addable(mu):             # new cell in column ``col``
         phi = one
         for i in range(conjugate(lam)[col]):
             phi = phi * _b(lam, (i, col)) / _b(mu, (i, col))
@@ -211,25 +199,13 @@ def _Qk(z0, k: int, v: dict) -> dict:
     return _clean({mu: c / _alpha_over_M(k) for mu, c in total.items()})
 
 
-def _count_text(d: int) -> str:
-    return f"{partition_count(d):.3g}" if d <= 50000 else "more than 1e300"
-
-
-def _zee(rho) -> int:
-    out = 1
-    for k in set(rho):
-        c = rho.count(k)
-        out *= k ** c * factorial(c)
-    return out
-
-
 def _colour(z0, r: int) -> dict:
     q, t, one = _g()
     n = z0[1]
     out: dict = {}
     for rho in partitions_of(r):
         v = {(): _int(1)}
-        c = _int(1) / _int(_zee(rho))
+        c = _int(1) / _int(z_rho(rho))
         for k in rho:
             v = _Qk(z0, k, v)
             c = c * RatQT(t ** k - one) / _M() * _int((-1) ** (k * (n + 1)))
@@ -237,18 +213,10 @@ def _colour(z0, r: int) -> dict:
     return out
 
 
-def _specialise(v: dict):
+def _specialise(v: dict) -> tuple:
     """``sum_mu v_mu P_mu[(1-u)/(1-s)] / (1-u)`` at ``u = -z``: one fraction ``N(q,t,z)/D(q,t,z)``."""
-    import flint
-
-    ctx = flint.fmpz_mpoly_ctx.get(("q", "t", "z"), "lex")
-    q, t, z = ctx.gens()
-    one = ctx.from_dict({(0, 0, 0): 1})
-
-    def lift(p):
-        return ctx.from_dict({(int(e[0]), int(e[1]), 0): int(c) for e, c in p.terms()})
-
-    num, den = 0 * one, one
+    acc = QTZ()
+    q, t, z, one = acc.q, acc.t, acc.z, acc.one
     for mu, cf in v.items():
         # prod (s^l' - q^a' u) / (1 - q^a s^(l+1)) with s = 1/t, u = -z:
         # = prod (t^(L - l') + q^a' z t^L) / t^L  over  (t^(l+1) - q^a) / t^(l+1)
@@ -261,12 +229,8 @@ def _specialise(v: dict):
             # 1 - q^a s^(l+1) = t^-(l+1) (t^(l+1) - q^a)
             top *= t ** (x.leg + 1)
             bot *= t ** (x.leg + 1) - q ** x.arm
-        top = lift(cf.n) * top
-        bot = lift(cf.d) * bot * (one + z)
-        g = den.gcd(bot)
-        num = num * (bot / g) + top * (den / g)
-        den = den * (bot / g)
-    return num, den
+        acc.add(cf, top, bot * (one + z))
+    return acc.num, acc.den
 
 
 def fock_cost(m: int, n: int, r: int) -> float:
@@ -285,12 +249,8 @@ def fock_cost(m: int, n: int, r: int) -> float:
 
 @lru_cache(maxsize=64)
 def _pairings(m: int, n: int, r: int) -> tuple:
-    kn, kd = _specialise(_colour((m, n), r))
-    un, ud = _specialise(_colour((0, 1), r))
-    quotient, remainder = divmod(kn * ud, kd * un)
-    if not remainder.is_zero():
-        raise ArithmeticError(f"Fock route: the [{r}]-coloured invariant of T({m},{n}) is not a polynomial")
-    return tuple(((int(e[0]), int(e[1]), int(e[2])), int(c)) for e, c in quotient.terms())
+    return reduced_by_unknot(_specialise(_colour((m, n), r)), _specialise(_colour((0, 1), r)),
+                             f"Fock route: the [{r}]-coloured invariant of T({m},{n})")
 
 
 def fock_check(m: int, n: int, r: int, label: str | None = None) -> None:
@@ -298,7 +258,7 @@ def fock_check(m: int, n: int, r: int, label: str | None = None) -> None:
     if not all(isinstance(x, int) for x in (m, n, r)) or m < 1 or n < 1 or r < 1 or gcd(m, n) != 1:
         raise InvalidKnotError(f"the Fock route needs coprime m, n >= 1 and r >= 1, not ({m!r}, {n!r}), r={r!r}")
     default = f"T({m},{n})"
-    require(f"Fock-space (Macdonald) route for {label or default} coloured [{r}] on {_count_text(r * n)} "
+    require(f"Fock-space (Macdonald) route for {label or default} coloured [{r}] on {partition_count_text(r * n)} "
             f"Macdonald polynomials of degree {r * n}",
             seconds=fock_cost(m, n, r), accepted="use a smaller colour [r] or a torus knot with fewer strands")
 

@@ -33,7 +33,7 @@ from math import gcd
 
 from knotobs.errors import InvalidKnotError
 from knotobs.guard import require
-from knotobs.refined.cells import cells, conjugate, n_of, partition_count, partitions_of
+from knotobs.refined.cells import addable, cells, conjugate, n_of, partition_count
 from knotobs.refined.ratfunc import QT, RatQT
 
 __all__ = ["hall_hook_pairings", "apply_Q", "split"]
@@ -55,19 +55,6 @@ def _w(mu):
     for c in cells(mu):
         r *= (q ** c.arm - t ** (c.leg + 1)) * (t ** c.leg - q ** (c.arm + 1))
     return r
-
-
-def _add_cell(nu):
-    nu = list(nu)
-    for i in range(len(nu) + 1):
-        row = nu[i] if i < len(nu) else 0
-        if i == 0 or nu[i - 1] > row:
-            mu = nu[:]
-            if i < len(nu):
-                mu[i] += 1
-            else:
-                mu.append(1)
-            yield tuple(mu), (i, row)
 
 
 def _c(mu, nu, cell) -> RatQT:
@@ -95,7 +82,7 @@ def _times_minus_e1(vec):
     out: dict = {}
     for nu, cf in vec.items():
         w_nu = RatQT(_w(nu))
-        for mu, cell in _add_cell(nu):
+        for mu, cell in addable(nu):
             d = M * _c(mu, nu, cell) * w_nu / RatQT(_w(mu))
             out[mu] = out.get(mu, QT.from_int(0)) - cf * d
     return _clean(out)

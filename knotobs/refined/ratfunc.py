@@ -14,7 +14,7 @@ True
 
 from __future__ import annotations
 
-__all__ = ["QT", "RatQT"]
+__all__ = ["QT", "RatQT", "QTZ", "reduced_by_unknot"]
 
 
 class _Field:
@@ -125,3 +125,43 @@ class RatQT:
 
 #: The field Q(q, t).
 QT = _Field()
+
+
+class QTZ:
+    """Fractions in ``q, t`` and the grading variable ``z`` (python-flint ``fmpz_mpoly``), summed
+    term by term: ``sum_mu c_mu(q, t) R_mu(q, t, z) / S_mu(q, t, z)`` as one ``num/den``.
+
+    >>> acc = QTZ()
+    >>> acc.add(QT.from_int(1), acc.one + acc.z, acc.one)
+    >>> str(acc.num), str(acc.den)
+    ('z + 1', '1')
+    """
+
+    def __init__(self):
+        import flint
+
+        self.ctx = flint.fmpz_mpoly_ctx.get(("q", "t", "z"), "lex")
+        self.q, self.t, self.z = self.ctx.gens()
+        self.one = self.ctx.from_dict({(0, 0, 0): 1})
+        self.num, self.den = 0 * self.one, self.one
+
+    def lift(self, p):
+        """A polynomial in ``q, t`` (of :data:`QT`) in the three variables."""
+        return self.ctx.from_dict({(int(e[0]), int(e[1]), 0): int(c) for e, c in p.terms()})
+
+    def add(self, cf: "RatQT", top, bot) -> None:
+        """Add ``cf * top / bot`` (``top``, ``bot`` in the three variables)."""
+        n2, d2 = self.lift(cf.n) * top, self.lift(cf.d) * bot
+        g = self.den.gcd(d2)
+        self.num = self.num * (d2 / g) + n2 * (self.den / g)
+        self.den = self.den * (d2 / g)
+
+
+def reduced_by_unknot(knot: tuple, unknot: tuple, what: str) -> tuple:
+    """``knot / unknot`` (each a fraction ``(num, den)`` of :class:`QTZ` polynomials) as exact
+    polynomial terms ``((i, j, d), c)``; a remainder raises."""
+    (kn, kd), (un, ud) = knot, unknot
+    quotient, remainder = divmod(kn * ud, kd * un)
+    if not remainder.is_zero():
+        raise ArithmeticError(f"{what} is not a polynomial")
+    return tuple(((int(e[0]), int(e[1]), int(e[2])), int(c)) for e, c in quotient.terms())
