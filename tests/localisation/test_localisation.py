@@ -107,29 +107,14 @@ def test_verlinde_su3_from_modular_data(g, k):
 # Jeffrey's closed formula for SU(2) lens spaces
 
 
-def _jeffrey(p, q, K):
-    """Jeffrey 1992: Z(L(p,q)) = exp(-i pi Phi(U)/(2K)) i/sqrt(2Kp)
-    sum_{n mod p} sum_{e = +-1} e exp(i pi/(2Kp) [a - 2(e + 2Kn) + d (e + 2Kn)^2]),
-    U = [[a, b], [p, d]], a = q (as in tests/reference)."""
-    a = q
-    d = next(d for d in range(-4 * p, 4 * p) if (a * d - 1) % p == 0)
-    b = (a * d - 1) // p
-    ph = rademacher_phi([[a, b], [p, d]])
-    s = 0
-    for n in range(p):
-        for e in (1, -1):
-            s += e * mpmath.expjpi(mpmath.mpf(a - 2 * (e + 2 * K * n) + d * (e + 2 * K * n) ** 2) / (2 * K * p))
-    return mpmath.expjpi(-mpmath.mpf(ph.numerator) / ph.denominator / (2 * K)) * 1j / mpmath.sqrt(2 * K * p) * s
-
-
 @pytest.mark.parametrize("p", [2, 3, 5, 7, 12])
 @pytest.mark.parametrize("K", [3, 6, 13])
-def test_lens_spaces_jeffrey(p, K):
+def test_lens_spaces_jeffrey(p, K, jeffrey):
     with mpmath.workdps(40):
         for q in range(1, p):
             if math.gcd(p, q) == 1:
                 z = localisation_partition_function(f"L({p},{q})", "SU(2)", K - 2, digits=25)
-                assert abs(z.numeric - _jeffrey(p, q, K)) < 1e-22, (p, q)
+                assert abs(z.numeric - jeffrey(p, q, K)) < 1e-22, (p, q)
 
 
 # ---------------------------------------------------------------------------
