@@ -11,16 +11,11 @@ from knotobs.continuation.flat import flat_connections
 from knotobs.continuation.kashaev import kashaev_invariant
 from knotobs.continuation.level import continued_partition_function
 from knotobs.continuation.ohtsuki import ohtsuki_series
+import _bench  # noqa: E402  (the shared timer)
 
 
 def _time(f, repeat=1):
-    best = None
-    for _ in range(repeat):
-        t = time.perf_counter()
-        f()
-        dt = time.perf_counter() - t
-        best = dt if best is None else min(best, dt)
-    return best
+    return _bench.best_of(f, repeat)
 
 
 def main() -> None:

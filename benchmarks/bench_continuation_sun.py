@@ -19,7 +19,7 @@ from knotobs.continuation.cartan import continued_sun_partition_function
 from knotobs.errors import KnotobsError
 from knotobs.evaluation.seifert_routes import partition_function
 from knotobs.precision import certified_str
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 POINTS = [f"{3 + 0.45 * j:.2f}{'+' if j % 2 == 0 else '-'}{0.1 + 0.05 * (j % 5):.2f}i" for j in range(20)]
 

@@ -12,7 +12,7 @@ import shutil
 import subprocess
 import sys
 import time
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 
 def cli(args, runs=3, timeout=180):

@@ -17,7 +17,7 @@ import shutil
 import subprocess
 import sys
 import time
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 CLI = [shutil.which("knotobs") or sys.executable, ] if shutil.which("knotobs") else [sys.executable, "-c", "from knotobs.cli import main; main()"]
 

@@ -15,7 +15,7 @@ import subprocess
 import sys
 import tempfile
 import time
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 TEN = "M(0; -1; (2,1), (3,1), (5,1), (7,1), (11,1), (13,1), (17,1), (19,1), (23,1), (29,1))"
 CASES = [

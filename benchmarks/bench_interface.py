@@ -20,7 +20,7 @@ import subprocess
 import sys
 import tempfile
 import time
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 
 def _cli() -> list[str]:
@@ -47,13 +47,7 @@ def timed_cli(args: list[str], repeat: int) -> float:
     return best
 
 
-def timed(fn, repeat: int) -> float:
-    best = float("inf")
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        best = min(best, time.perf_counter() - t)
-    return best
+timed = _bench.best_of
 
 
 def in_process_split(repeat: int) -> list[tuple[str, float]]:

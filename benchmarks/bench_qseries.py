@@ -14,7 +14,7 @@ import time
 
 from knotobs.qseries.radial import finite_level_from_qseries
 from knotobs.qseries.series import qseries_for
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 CASES = [
     ("Sigma(2,3,5)", "0", 1000, None),
@@ -27,14 +27,7 @@ CASES = [
 ]
 
 
-def _best(f, repeat=3):
-    best = None
-    for _ in range(repeat):
-        t = time.perf_counter()
-        f()
-        dt = time.perf_counter() - t
-        best = dt if best is None else min(best, dt)
-    return best
+_best = _bench.best_of
 
 
 def _cli(space, label, order):

@@ -9,16 +9,10 @@ from __future__ import annotations
 import subprocess
 import sys
 import time
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 
-def best_of(f, n=3):
-    best = float("inf")
-    for _ in range(n):
-        t0 = time.perf_counter()
-        f()
-        best = min(best, time.perf_counter() - t0)
-    return best
+best_of = _bench.best_of
 
 
 def main() -> None:

@@ -10,19 +10,13 @@ from __future__ import annotations
 import subprocess
 import sys
 import time
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 CASES = [("T(2,3)", 2), ("T(2,3)", 3), ("T(2,5)", 2), ("T(2,5)", 3), ("T(3,4)", 2), ("T(3,4)", 3),
          ("T(2,3)", 4), ("T(2,7)", 3), ("T(3,5)", 2), ("T(4,5)", 2)]
 
 
-def best_of(f, n=3):
-    best = float("inf")
-    for _ in range(n):
-        t0 = time.perf_counter()
-        f()
-        best = min(best, time.perf_counter() - t0)
-    return best
+best_of = _bench.best_of
 
 
 def main() -> None:

@@ -23,7 +23,7 @@ from knotobs.evaluation import modular
 from knotobs.evaluation.seifert_routes import fiber_wilson_loop, partition_function, route_estimates
 from knotobs.guard import limits
 from knotobs.localisation import fixedpoint
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 # (label, space, group, level, regular-fiber colour or None, issue target)
 CASES = [

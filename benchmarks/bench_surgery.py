@@ -34,7 +34,7 @@ from knotobs.evaluation.surgery import (
 )
 from knotobs.fibrations.seifert import parse_space
 from knotobs.guard import limits
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 CASES = [
     # (label, space, N, k, regular colour or None, CLI arguments)

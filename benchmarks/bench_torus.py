@@ -26,7 +26,7 @@ from flint import fmpz_poly
 import knotobs
 from knotobs import SU, TorusLink, colored_jones, homfly, rosso_jones, weight_sum
 from knotobs.errors import KnotobsError
-import _user_env  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
+import _bench  # noqa: F401,E402  (time the CLI with bytecode cached, as installed)
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 from pure_rosso_jones import pure_colored_jones  # noqa: E402

@@ -1,4 +1,4 @@
-"""Time the command line as a user's installation runs it.
+"""What every benchmark table shares: the CLI timed as installed, and the min-of-n timer.
 
 An installed package has its bytecode compiled once (pip does it at install time).  Some
 shells and CI images set ``PYTHONDONTWRITEBYTECODE=1``; the child processes of a benchmark would
@@ -8,5 +8,16 @@ its children, and the first (warm-up) run of each command writes the bytecode.
 """
 
 import os
+import time
 
 os.environ.pop("PYTHONDONTWRITEBYTECODE", None)
+
+
+def best_of(f, n: int = 3) -> float:
+    """The shortest of ``n`` runs of ``f()``, in seconds."""
+    best = float("inf")
+    for _ in range(n):
+        t0 = time.perf_counter()
+        f()
+        best = min(best, time.perf_counter() - t0)
+    return best
