@@ -22,6 +22,7 @@ from __future__ import annotations
 import dataclasses
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 from fractions import Fraction
 
 import mpmath
@@ -163,6 +164,9 @@ class LRData:
         """
         if self.period or not self.shared:
             return [self]
+        return list(_sectors(self))
+
+    def _build_sectors(self) -> tuple["LRData", ...]:
         import itertools
 
         L = math.lcm(*self.ps)
@@ -177,7 +181,7 @@ class LRData:
             lin = lin - math.floor(lin) if self.sigma > 0 else lin - math.ceil(lin)   # sigma*lin in [0, 1)
             out.append(dataclasses.replace(self, shifts=key, lin=lin, const=const, period=L,
                                            Hq=self.H * L // self.P))
-        return out
+        return tuple(out)
 
     @property
     def deg(self) -> int:
@@ -200,6 +204,12 @@ class LRData:
     def saddle(self, r: int) -> Fraction:
         """Centre ``-2 L (r + sigma lin)/|Hs|`` of the ``r``-th Gaussian (``-2 P r/|H|`` for one sector)."""
         return -2 * self.Lp * (r + self.sigma * self.lin) / abs(self.Hs)
+
+
+@lru_cache(maxsize=64)
+def _sectors(d: LRData) -> tuple[LRData, ...]:
+    """The sectors of ``d``, built once (every continued value asks for them twice)."""
+    return d._build_sectors()
 
 
 def _general_data(pq):
