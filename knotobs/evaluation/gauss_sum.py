@@ -71,8 +71,12 @@ def _sign(x) -> int:
     return (x > 0) - (x < 0)
 
 
-def lr_data(pq: Sequence[tuple[int, int]]) -> tuple[list[tuple[int, int]], int, int, Fraction]:
+def lr_data(pq: Sequence[tuple[int, int]], coprime: bool = True) -> tuple[list[tuple[int, int]], int, int, Fraction]:
     """Normalise ``X(p_j/q_j)`` data: drop ``1/0``, make ``p_j > 0``; return ``(pq, P, H, phi)``.
+
+    ``coprime`` (default) refuses orders that share a factor: the closed finite sum needs them
+    coprime.  The integral form splits such sums into sectors and passes ``coprime=False``
+    (``P``, ``H`` and ``phi`` are sums and products of per-fiber data either way).
 
     >>> lr_data([(2, -1), (3, 1), (5, 1)])[1:]
     (30, 1, Fraction(181, 30))
@@ -90,7 +94,7 @@ def lr_data(pq: Sequence[tuple[int, int]]) -> tuple[list[tuple[int, int]], int, 
         if p < 0:
             p, q = -p, -q
         out.append((p, q))
-    orders = [p for p, _ in out if p > 1]
+    orders = [p for p, _ in out if p > 1] if coprime else []
     for i in range(len(orders)):
         for j in range(i + 1, len(orders)):
             if math.gcd(orders[i], orders[j]) != 1:

@@ -115,7 +115,8 @@ class LRData:
         and pairwise coprime orders)."""
         from knotobs.evaluation.gauss_sum import lr_data
 
-        data_of = _general_data if allow_shared else lr_data
+        def data_of(raw):
+            return lr_data(raw, coprime=not allow_shared)
         M = parse_space(space)
         if M.genus and not allow_genus:
             M.surgery_presentation()          # raises the genus-0 error with its explanation
@@ -210,27 +211,6 @@ class LRData:
 def _sectors(d: LRData) -> tuple[LRData, ...]:
     """The sectors of ``d``, built once (every continued value asks for them twice)."""
     return d._build_sectors()
-
-
-def _general_data(pq):
-    """``(pq, P, H, phi)`` as :func:`knotobs.evaluation.gauss_sum.lr_data`, for any orders (the
-    per-fiber constants of ``B`` do not care whether orders share factors)."""
-    from knotobs.evaluation.surgery import dedekind_sum
-
-    out = []
-    for p, q in pq:
-        if p == 0:
-            raise InvalidSeifertDataError(f"surgery coefficient {p}/{q} has p = 0")
-        if q == 0:
-            continue
-        if p < 0:
-            p, q = -p, -q
-        out.append((p, q))
-    P = math.prod(p for p, _ in out)
-    H = sum(P // p * q for p, q in out)
-    s = (1 if H > 0 else -1) if H else 1
-    phi = Fraction(3 * s) + sum((12 * dedekind_sum(q, p) - Fraction(q, p) for p, q in out), Fraction(0))
-    return out, P, H, phi
 
 
 # ---------------------------------------------------------------------------
