@@ -42,21 +42,11 @@ from math import gcd
 from knotobs.errors import InvalidKnotError
 from knotobs.guard import require
 from knotobs.refined.cells import cells, partition_count_text, partitions_of
-from knotobs.refined.hall import _clean, _nabla, apply_Q
+from knotobs.refined.hall import _M, _clean, _nabla, _polys, apply_Q
 from knotobs.refined.ratfunc import QT, QTZ, RatQT, reduced_by_unknot
 from knotobs.representations.symmetric import z_rho
 
 __all__ = ["symmetric_hall_check", "symmetric_hall_pairings", "apply_Q_multiple", "det_split", "symmetric_hall_cost"]
-
-
-def _polys():
-    q, t = QT.poly_gens()
-    return q, t, QT.one_poly()
-
-
-def _M() -> RatQT:
-    q, t, one = _polys()
-    return RatQT((one - q) * (one - t))
 
 
 def _alpha_over_M(k: int) -> RatQT:
