@@ -34,6 +34,10 @@ MAX_WEIGHTS = 2_000_000
 def _horizontal_strips(lam: Partition, r: int) -> Iterator[Partition]:
     """Partitions ``nu`` with ``lam / nu`` a horizontal strip of ``r`` boxes."""
     L = len(lam)
+    # room[i]: the most boxes rows i.. can give up (row j keeps at least lam[j+1])
+    room = [0] * (L + 1)
+    for i in range(L - 1, -1, -1):
+        room[i] = room[i + 1] + lam[i] - (lam[i + 1] if i + 1 < L else 0)
 
     def rec(i: int, left: int, acc: list[int]):
         if i == L:
@@ -41,11 +45,10 @@ def _horizontal_strips(lam: Partition, r: int) -> Iterator[Partition]:
                 yield tuple(x for x in acc if x > 0)
             return
         lo = lam[i + 1] if i + 1 < L else 0
-        for nu_i in range(lam[i], lo - 1, -1):
-            take = lam[i] - nu_i
-            if take > left:
-                break
-            acc.append(nu_i)
+        # take at least what the later rows cannot give, at most what is left
+        least = max(0, left - room[i + 1])
+        for take in range(least, min(left, lam[i] - lo) + 1):
+            acc.append(lam[i] - take)
             yield from rec(i + 1, left - take, acc)
             acc.pop()
 
@@ -71,6 +74,16 @@ def kostka(lam: Partition, mu: Partition) -> int:
         return 1 if not lam else 0
     if len(lam) > len(mu):
         return 0
+    if len(mu) <= 2:
+        # two letters: the 1s fill the start of row 1, so K = 1 iff lam_2 <= min(mu)
+        return 1 if (lam[1] if len(lam) > 1 else 0) <= min(mu) else 0
+    if len(mu) == 3:
+        # three letters: count the strips lam / (nu_1, nu_2) of mu_3 boxes with nu_2 <= min(mu_1, mu_2)
+        l1, l2, l3 = (tuple(lam) + (0, 0))[:3]
+        s = l1 + l2 + l3 - mu[2]
+        lo = max(l3, s - l1)
+        hi = min(l2, s - l2, mu[0], mu[1])
+        return max(0, hi - lo + 1)
     r = mu[-1]
     rest = mu[:-1]
     return sum(kostka(nu, rest) for nu in _horizontal_strips(lam, r))

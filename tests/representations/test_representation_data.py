@@ -75,6 +75,43 @@ def test_kostka_table_n4():
     assert kostka((2, 2), (2, 1, 1)) == 1
 
 
+def _ssyt_count(lam, mu):
+    """Semistandard tableaux of shape ``lam`` and content ``mu``, filled cell by cell (brute force)."""
+    cells = [(i, j) for i, r in enumerate(lam) for j in range(r)]
+    left = list(mu)
+
+    def rec(c, T):
+        if c == len(cells):
+            return 1
+        i, j = cells[c]
+        lo = max(T[(i, j - 1)] if j else 0, T[(i - 1, j)] + 1 if i else 0)
+        total = 0
+        for a in range(lo, len(left)):
+            if left[a]:
+                left[a] -= 1
+                T[(i, j)] = a
+                total += rec(c + 1, T)
+                left[a] += 1
+        T.pop((i, j), None)
+        return total
+
+    return rec(0, {})
+
+
+@pytest.mark.parametrize("rows", [2, 3, 4])
+def test_kostka_equals_tableau_count(rows):
+    # K_{lam,mu} is by definition the number of semistandard tableaux (Macdonald (1995), ch. I
+    # §5); the two- and three-letter cases are closed forms in knotobs, checked here against
+    # the definition for every pair of partitions of n <= 7 into at most `rows` parts.
+    from knotobs.representations.partitions import partitions_of
+
+    for n in range(1, 8):
+        parts = [tuple(p) for p in partitions_of(n, rows)]
+        for lam in parts:
+            for mu in parts:
+                assert kostka(lam, mu) == _ssyt_count(lam, mu), (lam, mu)
+
+
 @pytest.mark.parametrize("N", [2, 3, 4])
 @pytest.mark.parametrize("lam", [(1,), (2,), (2, 1), (3, 1), (2, 2)])
 def test_weights_sum_to_dimension(N, lam):
