@@ -1,4 +1,5 @@
-"""Speed table of the Seifert-manifold routes (issue #9): localisation, surgery, Gauss sum, integral form.
+"""Speed table of the Seifert-manifold routes (issue #9): localisation, surgery, Gauss sum, integral form,
+convolution (SU(3)).
 
 For every case the in-process time of each applicable route (minimum of 3 runs, caches
 cleared before each run, 30 certified digits) and the time of the ``knotobs`` command with
@@ -38,6 +39,8 @@ CASES = [
     ("SU(2) k=200 M(0;-1;(2,1),(4,1),(6,1))", "M(0; -1; (2,1), (4,1), (6,1))", "SU(2)", 200, None, "(shared orders)"),
     ("SU(3) k=30 [2,1] regular fiber Sigma(2,3,5)", "Sigma(2,3,5)", "SU(3)", 30, (2, 1), "< 0.5 s"),
     ("SU(2) k=6 M(2; 0) (Verlinde 84)", "M(2; 0)", "SU(2)", 6, None, "(genus 2)"),
+    ("SU(3) k=400 Sigma(2,3,5)", "Sigma(2,3,5)", "SU(3)", 400, None, "(large level)"),
+    ("SU(3) k=1000 Sigma(2,3,5)", "Sigma(2,3,5)", "SU(3)", 1000, None, "(was refused)"),
 ]
 
 
@@ -82,7 +85,7 @@ def main() -> None:
     ap.add_argument("--runs", type=int, default=3)
     ap.add_argument("--no-cli", action="store_true")
     args = ap.parse_args()
-    routes = ("localisation", "surgery", "gauss-sum", "integral")
+    routes = ("localisation", "surgery", "gauss-sum", "integral", "convolution")
     print(f"{'case':46s} {'target':>14s} " + " ".join(f"{r:>13s}" for r in routes) + f" {'CLI auto':>9s}  value")
     for label, space, group, level, colour, target in CASES:
         cells = []

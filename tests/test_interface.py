@@ -183,6 +183,8 @@ CASES = [
     ("space", "--route", ["space", "Sigma(2,3,5)", "-k", "3"], ["space", "Sigma(2,3,5)", "-k", "3", "--route", "both"], "changes"),
     ("space", "--route", ["space", "Sigma(2,3,5)", "-k", "3"], ["space", "Sigma(2,3,5)", "-k", "3", "--route", "integral"], "changes"),
     ("space", "--route", None, ["space", "Sigma(2,3,5)", "-k", "3", "--group", "SU(3)", "--route", "integral"], "refused"),
+    ("space", "--route", ["space", "Sigma(2,3,5)", "-k", "3", "-g", "SU(3)"], ["space", "Sigma(2,3,5)", "-k", "3", "-g", "SU(3)", "--route", "convolution"], "changes"),
+    ("space", "--route", None, ["space", "Sigma(2,3,5)", "-k", "3", "--route", "convolution"], "refused"),
     ("space", "--json", ["space", "L(5,1)"], ["space", "L(5,1)", "--json"], "changes"),
     # match
     ("match", "--poly", ["match", "--poly", "t + t^3 - t^4"], ["match", "--poly", "t^2 + t^4 - t^5 + t^6 - t^7"], "changes"),

@@ -59,7 +59,7 @@ def space(
     group: Optional[str] = typer.Option(None, "--group", "-g", help="With --level: SU(N) (default SU(2)), or SO(3) at odd level."),
     level: Optional[int] = typer.Option(None, "--level", "-k", help="Print the partition function Z_k."),
     digits: Optional[int] = typer.Option(None, "--digits", "-d", help="With --level: correct digits of the numeric value (default 30)."),
-    route: Optional[str] = typer.Option(None, "--route", help="With --level: auto, surgery, gauss-sum (SU(2)), localisation, integral (SU(2), numeric, any level) or both (two routes, agreement printed)."),
+    route: Optional[str] = typer.Option(None, "--route", help="With --level: auto, surgery, gauss-sum (SU(2)), localisation, integral (SU(2), numeric, any level), convolution (SU(3), numeric, levels in the thousands) or both (two routes, agreement printed)."),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
     """Seifert data of a manifold (normal form, e, |H_1|, name), or of r-surgery on a torus knot;

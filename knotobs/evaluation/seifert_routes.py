@@ -12,7 +12,11 @@ Three independent routes compute ``Z_k(M)`` of ``M(g; b; (a_1, b_1), ...)``:
   and is refused, with a pointer to ``localisation``;
 * ``integral``: the same SU(2) Gauss sum in its Lawrence–Rozansky integral form
   (:mod:`knotobs.evaluation.lr_integral`): Gaussian integrals plus residues, numeric with
-  certified digits, at a cost that does not grow with the level (the way to ``K = 10^6``).
+  certified digits, at a cost that does not grow with the level (the way to ``K = 10^6``);
+* ``convolution``: for SU(3), the Gauss sum over the weight lattice as a cubic convolution
+  over the three positive roots (:mod:`knotobs.evaluation.root_convolution`): one Fourier
+  transform of length ``6PK`` in ball arithmetic, numeric with certified digits, any base
+  genus, pairwise coprime orders (the way to levels in the thousands).
 
 ``auto`` estimates the cost of each applicable route from the input sizes (nothing is
 built before the route is chosen), keeps the surgery route when it is estimated below
@@ -64,16 +68,19 @@ __all__ = [
     "fiber_wilson_loop",
 ]
 
-PARTITION_ROUTES = ("auto", "surgery", "gauss-sum", "localisation", "integral", "both")
+PARTITION_ROUTES = ("auto", "surgery", "gauss-sum", "localisation", "integral", "convolution", "both")
 LOOP_ROUTES = ("auto", "surgery", "localisation", "both")
 
 #: ``auto`` keeps the surgery route when it is estimated below this many seconds (small cases
 #: then print exactly as before the other routes existed).
 CHEAP_SURGERY = 0.05
 
-#: ``auto`` ranks the numeric-only ``integral`` route as if it cost this many seconds more, so
-#: that the exact routes answer whenever they are cheap.
+#: ``auto`` ranks the numeric-only routes (``integral``, ``convolution``) as if they cost this
+#: many seconds more, so that the exact routes answer whenever they are cheap.
 NUMERIC_ONLY_PENALTY = 0.3
+
+#: The routes whose values are numeric only (certified digits, no cyclotomic value).
+NUMERIC_ROUTES = ("integral", "convolution")
 
 #: Largest alcove the surgery route builds (its dense S matrix).
 @dataclasses.dataclass(frozen=True)
@@ -159,6 +166,21 @@ def _integral_estimate(M, N: int, k: int, digits: int, exact) -> RouteEstimate:
     return RouteEstimate("integral", sec, mb, what)
 
 
+def _convolution_estimate(M, N: int, k: int, digits: int, exact) -> RouteEstimate:
+    if N != 3:
+        return RouteEstimate("convolution", None, None, "the convolution over the roots is SU(3) only"
+                             " (for SU(N) the Gauss sum over the weight lattice is --route localisation)")
+    if exact:
+        return RouteEstimate("convolution", None, None, "the convolution route is numeric (no exact value)")
+    from knotobs.evaluation.root_convolution import convolution_cost, convolution_data
+
+    try:
+        sec, mb, what = convolution_cost(convolution_data(M), k, digits)
+    except KnotobsError as exc:
+        return RouteEstimate("convolution", None, None, str(exc))
+    return RouteEstimate("convolution", sec, mb, what)
+
+
 def _loc_estimate(M, N: int, k: int, exceptional=None, regular=(), exact=None) -> RouteEstimate:
     s = LocalisationSum(M.genus, M.b, tuple(M.fibers), N, k, dict(exceptional or {}), list(regular))
     want = exact if exact is not None else exact_cost(s) <= EXACT_COST_LIMIT
@@ -173,6 +195,8 @@ def route_estimates(space, group="SU(2)", level: int = 1, loop: bool = False,
 
     >>> [e.route for e in route_estimates("Sigma(2,3,5)", "SU(2)", 9998) if e.applicable]
     ['surgery', 'gauss-sum', 'localisation', 'integral']
+    >>> [e.route for e in route_estimates("Sigma(2,3,5)", "SU(3)", 40) if e.applicable]
+    ['surgery', 'localisation', 'convolution']
     """
     M = as_manifold(space)
     N, k = _group_level(group, level)
@@ -182,6 +206,7 @@ def route_estimates(space, group="SU(2)", level: int = 1, loop: bool = False,
     out.append(_loc_estimate(M, N, k, exact=exact))
     if not loop:
         out.append(_integral_estimate(M, N, k, digits, exact))
+        out.append(_convolution_estimate(M, N, k, digits, exact))
     return out
 
 
@@ -207,6 +232,10 @@ def _run_partition(route: str, M, N: int, k: int, digits: int, exact):
         from knotobs.evaluation.lr_integral import integral_partition_function
 
         return integral_partition_function(M, k, digits)
+    if route == "convolution":
+        from knotobs.evaluation.root_convolution import convolution_partition_function
+
+        return convolution_partition_function(M, k, digits)
     return localisation_partition_function(M, f"SU({N})", k, digits, exact)
 
 
@@ -243,7 +272,7 @@ def _dispatch(route: str, routes: tuple, ests: list[RouteEstimate], what: str, r
         return _with(run(route), routes=[route])
     order = sorted((e for e in ests if e.fits()),
                    key=lambda e: (not (e.route == "surgery" and e.seconds <= CHEAP_SURGERY),
-                                  e.seconds + (NUMERIC_ONLY_PENALTY if e.route == "integral" else 0.0)))
+                                  e.seconds + (NUMERIC_ONLY_PENALTY if e.route in NUMERIC_ROUTES else 0.0)))
     if route == "auto":
         tried = []
         for e in order:
@@ -282,7 +311,7 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
         Certified digits of the numeric value.
     exact : bool or None
         Force or skip the exact cyclotomic value.
-    route : {"auto", "surgery", "gauss-sum", "localisation", "integral", "both"}
+    route : {"auto", "surgery", "gauss-sum", "localisation", "integral", "convolution", "both"}
         See the module docstring.
 
     Returns

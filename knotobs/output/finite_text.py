@@ -11,7 +11,7 @@ from knotobs.evaluation.finite_value import FiniteLevelValue
 __all__ = ["finite_json", "finite_text"]
 
 #: Routes that give numbers with certified digits and no exact value (docs/localisation.md §10.6, docs/surgery.md §11).
-NUMERIC_ROUTES = ("integral", "quotient", "gauging")
+NUMERIC_ROUTES = ("integral", "convolution", "quotient", "gauging")
 
 
 def finite_json(value: FiniteLevelValue, inputs: dict[str, Any], quantity: str) -> dict[str, Any]:
