@@ -133,3 +133,22 @@ class FiniteLevelValue:
 
     def __complex__(self) -> complex:
         return complex(self.numeric)
+
+
+def numeric_seifert_value(space, numeric: mpmath.mpc, digits: int, details: dict) -> FiniteLevelValue:
+    """A numeric-only ``Z_k`` of a Seifert manifold in the common profile (canonical 2-framing,
+    ``Z(S^3) = S_00``), as the numeric routes return it.
+
+    >>> from knotobs.fibrations.seifert import parse_space
+    >>> numeric_seifert_value(parse_space("L(5,1)"), mpmath.mpc(1), 5, {}).normalisation
+    'Z(S^3) = S_00, Z(S^2 x S^1) = 1'
+    """
+    from knotobs.evaluation.surgery import _orientation_text
+
+    return FiniteLevelValue(
+        exact=None, numeric=numeric, digits=digits,
+        framing="canonical 2-framing (Atiyah)",
+        orientation=_orientation_text(space.b, tuple(space.fibers), space.genus),
+        normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1",
+        details=details,
+    )

@@ -623,8 +623,7 @@ def integral_partition_function(space, level: int, digits: int = 30):
     ----------
     R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314, §3; CONVENTIONS §9.
     """
-    from knotobs.evaluation.finite_value import FiniteLevelValue
-    from knotobs.evaluation.surgery import _orientation_text
+    from knotobs.evaluation.finite_value import numeric_seifert_value
 
     if isinstance(level, bool) or not isinstance(level, int) or level < 1:
         raise NotIntegrableError(f"level k = {level!r} is not allowed: use an integer k >= 1")
@@ -633,15 +632,10 @@ def integral_partition_function(space, level: int, digits: int = 30):
     K = level + 2
     require_continuation(d, mpmath.mpc(K), digits)
     val = checked(lambda dg: _Z_at(d, K, dg), digits, f"Z({d.space}) at level {level}")
-    return FiniteLevelValue(
-        exact=None, numeric=val, digits=digits,
-        framing="canonical 2-framing (Atiyah)",
-        orientation=_orientation_text(d.space.b, tuple(d.space.fibers), d.space.genus),
-        normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1",
-        details={"route": "Lawrence-Rozansky integral form (Gaussian integrals + residues)",
-                 "group": "SU(2)", "level": level,
-                 "terms": 2 * d.P + d.P * abs(d.H) if d.deg >= 1 else abs(d.H)},
-    )
+    return numeric_seifert_value(d.space, val, digits, {
+        "route": "Lawrence-Rozansky integral form (Gaussian integrals + residues)",
+        "group": "SU(2)", "level": level,
+        "terms": 2 * d.P + d.P * abs(d.H) if d.deg >= 1 else abs(d.H)})
 
 
 def _Z_at(d: LRData, K: int, dg: int) -> acb:

@@ -173,8 +173,7 @@ def convolution_partition_function(space, level: int, digits: int = 30):
     ----------
     docs/continuation_sun.md §18.1 and §18.6; Lawrence & Rozansky, Commun. Math. Phys. 205 (1999).
     """
-    from knotobs.evaluation.finite_value import FiniteLevelValue
-    from knotobs.evaluation.surgery import _orientation_text
+    from knotobs.evaluation.finite_value import numeric_seifert_value
 
     if isinstance(level, bool) or not isinstance(level, int) or level < 1:
         raise NotIntegrableError(f"level k = {level!r} is not allowed: use an integer k >= 1")
@@ -196,11 +195,6 @@ def convolution_partition_function(space, level: int, digits: int = 30):
     if val is None:
         raise PrecisionError(f"Z of {d.space}, SU(3) at level {level}: the convolution did not reach"
                              f" {digits} certified digits")
-    return FiniteLevelValue(
-        exact=None, numeric=val, digits=digits,
-        framing="canonical 2-framing (Atiyah)",
-        orientation=_orientation_text(d.space.b, tuple(d.space.fibers), d.space.genus),
-        normalisation="Z(S^3) = S_00, Z(S^2 x S^1) = 1",
-        details={"route": "cubic convolution over the roots (Fourier transform of length 6PK)",
-                 "group": "SU(3)", "level": level, "terms": M},
-    )
+    return numeric_seifert_value(d.space, val, digits, {
+        "route": "cubic convolution over the roots (Fourier transform of length 6PK)",
+        "group": "SU(3)", "level": level, "terms": M})
