@@ -135,6 +135,12 @@ class FiniteLevelValue:
         return complex(self.numeric)
 
 
+#: Routes whose finite-level values are numeric only (certified digits, no cyclotomic value):
+#: the SU(2) integral form, the SU(3) convolution, and U(N)'s quotient and gauging routes
+#: (docs/localisation.md §10.6, docs/surgery.md §11).
+NUMERIC_ROUTES = ("integral", "convolution", "quotient", "gauging")
+
+
 def numeric_seifert_value(space, numeric: mpmath.mpc, digits: int, details: dict) -> FiniteLevelValue:
     """A numeric-only ``Z_k`` of a Seifert manifold in the common profile (canonical 2-framing,
     ``Z(S^3) = S_00``), as the numeric routes return it.

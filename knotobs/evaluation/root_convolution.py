@@ -36,8 +36,6 @@ the convolution theorem for the discrete Fourier transform (common practice).
 
 from __future__ import annotations
 
-import math
-
 import mpmath
 from flint import acb, arb, fmpq
 
@@ -58,29 +56,24 @@ def convolution_data(space):
     >>> d.P, d.H, d.genus
     (30, 1, 0)
     """
-    import math
-
     from knotobs.evaluation.lr_integral import LRData
-    from knotobs.fibrations.seifert import SeifertManifold, parse_space
 
-    M = space if isinstance(space, SeifertManifold) else parse_space(space)
-    orders = [a for a, _ in M.fibers if a > 1]
-    for i, p in enumerate(orders):
-        for q in orders[i + 1:]:
-            if math.gcd(p, q) > 1:
-                raise InvalidSeifertDataError(
-                    f"{M}: the orders {p} and {q} share a factor; the convolution route needs pairwise"
-                    " coprime orders (the Gauss sum over the weight lattice then misses residue terms);"
-                    " the localisation and surgery routes have these spaces")
     try:
-        return LRData.from_space(M, allow_genus=True, allow_shared=False)
+        d = LRData.from_space(space, allow_genus=True, allow_shared=True)
     except KnotobsError as exc:
         raise InvalidSeifertDataError(f"{exc}; the convolution route needs e != 0 (the localisation"
                                       " route has e = 0)") from exc
+    if d.shared:
+        raise InvalidSeifertDataError(
+            f"{d.space}: the orders {', '.join(str(p) for p in d.ps if p > 1)} share a factor; the"
+            " convolution route needs pairwise coprime orders (the Gauss sum over the weight lattice"
+            " then misses residue terms); the localisation and surgery routes have these spaces")
+    return d
 
 
-def _length(d, k: int) -> int:
-    return 6 * d.P * (k + 3)
+def _length(d, K: int) -> int:
+    """``M = 6 P K``, the period of ``phi'`` and the length of the transform."""
+    return 6 * d.P * K
 
 
 def convolution_cost(d, k: int, digits: int) -> tuple[float, float, str]:
@@ -93,7 +86,7 @@ def convolution_cost(d, k: int, digits: int) -> tuple[float, float, str]:
     >>> s < 1 and "7740" in what
     True
     """
-    M = _length(d, k)
+    M = _length(d, k + 3)
     b = bits(digits + 3) + 2 * M.bit_length()
     scale = max(1.0, b / 200.0) ** 1.3
     sec = seconds_for(M * (len(d.pq) + 6) * 2, "python") + 0.7e-6 * M * max(1, M.bit_length()) * scale
@@ -104,7 +97,7 @@ def convolution_cost(d, k: int, digits: int) -> tuple[float, float, str]:
 def _phi_values(d, K: int) -> list:
     """``phi'(b)``, ``b = 0 .. 6PK - 1``, at the current precision (module docstring)."""
     P, H = d.P, d.H
-    M = 6 * P * K
+    M = _length(d, K)
     deg = len(d.pq) - 2 + 2 * d.genus
     # exp(-i pi H b^2/(3PK)) evaluated afresh for each b (H b^2 reduced mod 6PK): a recurrence
     # g_{b+1} = g_b z^(2b+1) would inflate the balls geometrically
@@ -129,12 +122,11 @@ def _phi_values(d, K: int) -> list:
 
 def _sum(d, K: int) -> acb:
     """``sum'_{lam in Lambda/PKQ} h(lam/K)`` at the current precision."""
-    M = 6 * d.P * K
     phis = _phi_values(d, K)
     total = acb(0)
     for c in acb.dft(phis):
         total += c * c * c
-    return total / (12 * M)
+    return total / (12 * len(phis))
 
 
 def _prefactor(d, K: int) -> acb:
@@ -183,7 +175,7 @@ def convolution_partition_function(space, level: int, digits: int = 30):
     require(f"Z of {d.space}, SU(3) at level {level} by the convolution route ({what})",
             seconds=sec, memory_mb=mb, accepted="choose a lower level or another route")
     K = level + 3
-    M = 6 * d.P * K
+    M = _length(d, K)
     val = None
     for extra in (0, 64):
         with working_bits(bits(digits + 3) + 2 * M.bit_length() + extra):

@@ -44,7 +44,7 @@ import mpmath
 
 from knotobs.errors import InvalidSeifertDataError, KnotobsError, NotIntegrableError, SizeLimitError
 from knotobs.evaluation.two_routes import RouteMismatchError
-from knotobs.evaluation.finite_value import FiniteLevelValue
+from knotobs.evaluation.finite_value import NUMERIC_ROUTES, FiniteLevelValue
 from knotobs.guard import current_limits, require, seconds_for
 from knotobs.localisation.formula import LocalisationSum, exact_cost
 from knotobs.localisation.lattice import alcove_size
@@ -78,9 +78,6 @@ CHEAP_SURGERY = 0.05
 #: ``auto`` ranks the numeric-only routes (``integral``, ``convolution``) as if they cost this
 #: many seconds more, so that the exact routes answer whenever they are cheap.
 NUMERIC_ONLY_PENALTY = 0.3
-
-#: The routes whose values are numeric only (certified digits, no cyclotomic value).
-NUMERIC_ROUTES = ("integral", "convolution")
 
 #: Largest alcove the surgery route builds (its dense S matrix).
 @dataclasses.dataclass(frozen=True)

@@ -6,12 +6,10 @@ from typing import Any
 
 import mpmath
 
-from knotobs.evaluation.finite_value import FiniteLevelValue
+from knotobs.evaluation.finite_value import NUMERIC_ROUTES, FiniteLevelValue
 
 __all__ = ["finite_json", "finite_text"]
 
-#: Routes that give numbers with certified digits and no exact value (docs/localisation.md §10.6, docs/surgery.md §11).
-NUMERIC_ROUTES = ("integral", "convolution", "quotient", "gauging")
 
 
 def finite_json(value: FiniteLevelValue, inputs: dict[str, Any], quantity: str) -> dict[str, Any]:
