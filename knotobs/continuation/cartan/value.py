@@ -27,8 +27,9 @@ from flint import acb
 
 from knotobs._notebook import NotebookMixin
 from knotobs.continuation._num import ball_seconds, bits, checked, to_acb, to_mpc, working_bits
-from knotobs.continuation.cartan.data import CartanData, PolesNotCoveredError
+from knotobs.continuation.cartan.data import B_N, CartanData, PolesNotCoveredError
 from knotobs.continuation.cartan.gaussian import gaussian_sectors, gaussian_terms
+from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_sum_sectors
 from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_sectors
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
 from knotobs.errors import KnotobsError
@@ -40,8 +41,11 @@ __all__ = ["CartanContinuedValue", "continued_sun_partition_function", "continue
            "continued_sun_sectors", "continuation_sun_cost", "METHODS"]
 
 #: ``closed``: the Gaussian integrals in closed form; ``quadrature``: the trapezoid rule on the
-#: rotated Cartan; ``both``: both, compared to the requested digits.
-METHODS = ("closed", "quadrature", "both")
+#: rotated Cartan; ``both``: both, compared to the requested digits (spaces without poles);
+#: ``residues``: the two-family Lawrence–Rozansky formula with its line integrals and residues
+#: (SU(3) with three or more exceptional orders, :mod:`.poles`); ``auto``: ``closed`` without
+#: poles, ``residues`` with them.
+METHODS = ("auto", "closed", "quadrature", "both", "residues")
 
 #: At most this many trapezoid nodes per run (rank ``r`` grids grow like ``(2M+1)^r``).
 MAX_NODES = 400_000
@@ -55,18 +59,32 @@ def _group_N(group) -> int:
 
 
 def _covered(d: CartanData) -> None:
-    if not d.entire:
+    if not d.entire and d.N != 3:
         orders = ", ".join(map(str, d.big_orders))
         hint = ("the SU(2) continuation with its residue terms is knotobs.continuation.level."
                 "continued_partition_function (knotobs continue without --group)" if d.N == 2 else
-                "SU(2) covers it (--group 'SU(2)'); for SU(N) the finite levels are computed by"
+                "SU(2) and SU(3) cover it (--group 'SU(3)'); for SU(N) the finite levels are computed by"
                 " 'knotobs space ... --group SU(N) --level k'")
         raise PolesNotCoveredError(
             f"{d.space} has {len(d.big_orders)} exceptional orders > 1 ({orders}): for SU({d.N}) the"
-            " integrand has poles on the root hyperplanes and the residue recursion over their"
-            " intersections is not implemented; the SU(N) continuation in K covers Seifert spaces"
-            f" with at most two exceptional fibers (lens spaces); {hint}"
+            " integrand has poles on the root hyperplanes of a rank-3 or higher Cartan, whose residue"
+            " recursion is not implemented (SU(3), rank 2, is: docs/continuation_sun.md §18.7);"
+            f" {hint}"
         )
+
+
+def _method(d: CartanData, method: str) -> str:
+    """The method actually used (``auto`` resolved); refuses one that does not apply to ``d``."""
+    if method == "auto":
+        return "closed" if d.entire else "residues"
+    if d.entire and method == "residues":
+        raise DomainError(f"method = 'residues': {d.space} has at most two exceptional orders > 1, so the"
+                          " integrand has no poles; use 'closed', 'quadrature', 'both' or 'auto'")
+    if not d.entire and method != "residues":
+        raise DomainError(f"method = {method!r}: {d.space} has {len(d.big_orders)} exceptional orders > 1,"
+                          " so the integrand has poles and the value is the residue formula of"
+                          " docs/continuation_sun.md §18.7; use 'residues' or 'auto'")
+    return method
 
 
 def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed") -> tuple[float, float, str]:
@@ -77,6 +95,10 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     True
     """
     where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
+    if method == "residues":
+        ops, what = pole_cost(d.big_orders, d.H, d.P, complex(Kv), digits + 12)
+        sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
+        return sec, 50 + ops * 1e-4, f"{where} ({what})"
     terms = gaussian_terms(d)
     sec = ball_seconds(2 * terms * 4, digits + 12) / 3.0
     what = f"{where} ({terms:.3g} exponentials" if terms > 10 ** 9 else f"{where} ({terms} exponentials"
@@ -104,11 +126,14 @@ def _prepare(space, group, level, K, digits, phases, method):
     N = _group_N(group)
     d = CartanData.from_space(space, N)
     _covered(d)
+    method = _method(d, method)
     Kv = resolve_K(level, K, N)
+    if method == "residues":
+        pole_domain(d.H, complex(Kv))
     sec, mb, what = continuation_sun_cost(d, Kv, digits, method)
     require(what, seconds=sec, memory_mb=mb,
             accepted="ask for fewer digits, a smaller N or a lens space with smaller |H|")
-    return digits, N, d, Kv
+    return digits, N, d, Kv, method
 
 
 def _sectors(d: CartanData, level, K, N, digits, reduced, method):
@@ -121,6 +146,10 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
             Ka = to_acb(resolve_K(level, K, N))          # read again at this precision
             if method == "closed":
                 s = gaussian_sectors(d, Ka, reduced)
+            elif method == "residues":
+                pre = B_N(d, Ka) / (Ka * Ka)
+                s = {phi: pre * v for phi, v in
+                     pole_sum_sectors(d.big_orders, d.H, d.P, Ka, dg, reduced).items()}
             else:
                 s = quadrature_sectors(d, Ka, dg, reduced)
             runs[dg] = s
@@ -189,7 +218,7 @@ class CartanContinuedValue(NotebookMixin):
 
 
 def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None, digits: int = 30,
-                                     phases: str = "reduced", method: str = "closed") -> CartanContinuedValue:
+                                     phases: str = "reduced", method: str = "auto") -> CartanContinuedValue:
     """SU(N) partition function of a Seifert lens space at complex level (CONVENTIONS §18).
 
     Parameters
@@ -229,7 +258,7 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314 (rank one);
     M. Mariño, Commun. Math. Phys. 253 (2005) 25–49 (the Cartan integrals for simply-laced groups).
     """
-    digits, N, d, Kv = _prepare(space, group, level, K, digits, phases, method)
+    digits, N, d, Kv, method = _prepare(space, group, level, K, digits, phases, method)
     reduced = phases == "reduced"
     notes = []
     if method == "both":

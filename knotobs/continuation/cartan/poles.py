@@ -1,0 +1,606 @@
+r"""SU(3) ``Z(K)`` at complex ``K`` when the integrand has poles (three or more exceptional orders).
+
+CONVENTIONS §18.7 (docs/continuation_sun.md).  The finite sum of §18.1 is
+``S = sum'_{lam in Lambda/PKQ} h(lam/K)`` with ``h = Gauss * prod_j Delta(z/p_j) / Delta(z)^(n-2)``.
+In the coordinates ``x = (<alpha_1, z>, <alpha_2, z>)`` the Weyl denominator is
+``S(x_1) S(x_2) S(x_1 + x_2)``, ``S(y) = 2i sin(pi y)``, and the identity
+
+    ``1/(S_1 S_2 S_12) = e^{i pi x_2}/(S_1^2 S_2) - e^{i pi (x_1 + x_2)}/(S_1^2 S_12)``
+
+(applied until one power vanishes) writes ``h`` as a sum of terms whose poles lie on two root
+families only.  In coordinates ``(u, w)`` with those families on the lines ``u in Z``, ``w in Z``
+each term is ``A(u) B(w) C(u + w)`` (:mod:`.rootfn`), quasi-periodic under ``3P`` shifts of
+``u`` or ``w``, regular on the third family ``u + w in Z``.  For each term:
+
+* the sum over the box ``[0, 3P)^2`` (three copies of ``Lambda/PKQ``) of its values off the two
+  pole families is the iterated Lawrence–Rozansky formula of §18.7 — Gaussian integrals over
+  the rotated plane, line integrals of residues and iterated residues at the integer points, no
+  kernel left on any contour;
+* the values on the third family (excluded in ``S``) are subtracted as rank-one
+  Lawrence–Rozansky sums along the lines ``u + w = m``, ``m mod P``.
+
+Every contour is then moved to its saddle (through the nearest half-integer), collecting the
+residues it crosses; each piece is ``exp(2 pi i K phi)`` times a function of polynomial growth,
+and with ``phases="reduced"`` the integer part of ``phi`` is dropped (equal at integer ``K``,
+least exponential type).  ``H < 0`` is ``S_H(K) = conj(S_{-H}(conj K))``.
+
+References
+----------
+R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314 (rank one);
+M. Mariño, Commun. Math. Phys. 253 (2005) 25–49 (the Cartan integrals for simply-laced groups).
+"""
+
+from __future__ import annotations
+
+import math
+from fractions import Fraction
+from functools import lru_cache
+
+from flint import acb, acb_poly, arb
+
+from knotobs.ball_series import ser_inv, ser_mul
+from knotobs.continuation.cartan.rootfn import RootFunction, Scale, grid_series, laurent
+
+__all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain"]
+
+
+# ------------------------------------------------------------------ partial fractions
+def _split(a: int, b: int, c: int) -> dict[tuple[Fraction, Fraction, int, int, int], int]:
+    """``1/(S_1^a S_2^b S_12^c)`` as ``{(alpha_1, alpha_2, a', b', c'): coefficient}`` meaning
+    ``coefficient e^{i pi (alpha_1 x_1 + alpha_2 x_2)} / (S_1^a' S_2^b' S_12^c')`` with ``b' c' = 0``."""
+    out: dict = {}
+    todo = [((Fraction(0), Fraction(0), a, b, c), 1)]
+    while todo:
+        (al1, al2, a_, b_, c_), k = todo.pop()
+        if b_ == 0 or c_ == 0:
+            key = (al1, al2, a_, b_, c_)
+            out[key] = out.get(key, 0) + k
+            continue
+        todo.append(((al1, al2 + 1, a_ + 1, b_, c_ - 1), k))
+        todo.append(((al1 + 1, al2 + 1, a_ + 1, b_ - 1, c_), -k))
+    return {key: v for key, v in out.items() if v}
+
+
+class PoleTerm:
+    """One term ``A(u) B(w) C(u + w)`` of the partial-fraction expansion of ``h``."""
+
+    def __init__(self, A: RootFunction, B: RootFunction, C: RootFunction):
+        self.A, self.B, self.C = A, B, C
+
+    def __repr__(self):
+        return f"PoleTerm({self.A}, {self.B}, {self.C})"
+
+
+def partial_fraction_terms(orders: tuple[int, ...]) -> list[PoleTerm]:
+    """The terms of ``prod_j Delta(z/p_j) / Delta(z)^(n-2)`` (``n = len(orders)``, orders ``> 1``).
+
+    >>> [t.A.pole_order + t.B.pole_order for t in partial_fraction_terms((2, 3, 5))]
+    [3, 3]
+    """
+    n = len(orders)
+    num = tuple((p, 1) for p in orders)
+    terms = []
+    for (al1, al2, a, b, c), k in sorted(_split(n - 2, n - 2, n - 2).items()):
+        if c == 0:   # poles on x_1, x_2: (u, w) = (x_1, x_2)
+            A = RootFunction(k, al1, num + ((1, -a),))
+            B = RootFunction(1, al2, num + ((1, -b),))
+        else:        # poles on x_1, x_1 + x_2: u = x_1, w = -(x_1 + x_2), u + w = -x_2
+            A = RootFunction(k * (-1) ** c, al1 - al2, num + ((1, -a),))
+            B = RootFunction(1, -al2, num + ((1, -c),))
+        terms.append(PoleTerm(A, B, RootFunction(1, Fraction(0), num)))
+    return terms
+
+
+# ------------------------------------------------------------------ the evaluator
+def _half(y: Fraction) -> Fraction:
+    """The half-integer ``floor(y) + 1/2`` (a contour through it avoids every pole)."""
+    return Fraction(math.floor(y)) + Fraction(1, 2)
+
+
+def _between(a: Fraction, b: Fraction) -> tuple[int, list[int]]:
+    """``(sign, integers strictly between)``: ``int_{C_a} = int_{C_b} + sign 2 pi i sum Res``."""
+    if a < b:
+        return 1, list(range(math.ceil(a), math.floor(b) + 1))
+    return -1, list(range(math.ceil(b), math.floor(a) + 1))
+
+
+def _reduce(phi: Fraction) -> int:
+    """The integer ``n`` with ``phi - n`` in ``(-1/2, 1/2]``."""
+    a, b = phi.numerator, phi.denominator
+    n = (2 * a + b) // (2 * b)
+    if 2 * (a - n * b) == -b:
+        n -= 1
+    return n
+
+
+def pole_plan(absK: float, sin_theta: float, c_abs: float, digits: int, growth: float) -> tuple[float, float]:
+    """Trapezoid step ``h`` and the half-length ``S`` of a line integral with Gaussian
+    ``exp(-pi b s^2)``, ``b = 2 |c|`` (the line integrals; the plane uses its smallest direction).
+
+    >>> h, S = pole_plan(30.0, 0.7, 0.33, 30, 6.0)
+    >>> 0 < h < 0.05 and S > 3
+    True
+    """
+    T = math.log(10) * (digits + 6) + 8
+    dist = abs(sin_theta) / 2
+    h = 2 * math.pi * dist / (T + 2)
+    b = 2 * c_abs
+    g = growth
+    S = (g + math.sqrt(g * g + 4 * math.pi * b * T)) / (2 * math.pi * b)
+    return h, S
+
+
+class _Eval:
+    """All pieces of one term at one ``K`` (``H > 0``), at the current precision."""
+
+    def __init__(self, term: PoleTerm, K: acb, H: int, P: int, digits: int, reduced: bool, theta: float,
+                 fine_plane: bool = False):
+        self.t = term
+        self.fine_plane = fine_plane
+        self.H, self.P = H, P
+        self.reduced = reduced
+        self.sc = Scale(K, K * H / (3 * P))
+        pi = arb.pi()
+        self.tau = (acb(0, 1) * arb(theta)).exp()
+        cabs = float(abs(complex(self.sc.c.mid())))
+        st = abs(math.sin(theta))
+
+        def rate(f: RootFunction) -> float:
+            return sum(e / p for p, e in f.sines if e > 0) + abs(float(f.a))
+
+        # |integrand| <= exp(-pi b s^2 + growth |s|) on a line: the sines grow like
+        # exp(pi |Im y| / p), Im y = s sin(theta); the offset of the contour from the saddle
+        # (at most 1/2 plus the shift by the linear exponentials) adds 4 pi |c| |s|.
+        growth = math.pi * st * (max(rate(term.A), rate(term.B)) + rate(term.C)) + 3 * math.pi * cabs + 1
+        self.h, self.S = pole_plan(float(abs(complex(K.mid()))), math.sin(theta), cabs, digits, growth)
+        self.J = int(math.ceil(self.S / self.h))
+        # the plane: exp(-pi |c| Q), Q >= 1.5 s^2 on the boundary of the square
+        self.J2 = int(math.ceil(self.S * math.sqrt(2 / 1.5) / self.h))
+        self.step = self.tau * arb(self.h)
+        # line integrals: the pole-corrected trapezoid rule (step limited by the Gaussian only)
+        T = math.log(10) * (digits + 6) + 8
+        b = 2 * cabs
+        gam = growth
+        self.hl = 2 * math.pi / (gam + math.sqrt(gam * gam + 4 * math.pi * b * T))
+        self.Jl = int(math.ceil(self.S / self.hl))
+        self.lstep = self.tau * arb(self.hl)
+        self.alpha = 2 * acb(0, 1) * arb.pi() / self.lstep
+        self.window = (T + 20) * self.hl / (2 * math.pi * abs(math.sin(theta)))
+        self.twopii = 2 * acb(0, 1) * pi
+        self.K = K
+        self.out: dict[Fraction, acb] = {}
+        self._lc: dict = {}
+        self._gc: dict = {}
+        self._ex: dict = {}
+
+    # phases ------------------------------------------------------------
+    def _add(self, phi: Fraction, value: acb):
+        n = _reduce(phi) if self.reduced else 0
+        if n:
+            f = self._ex.get(n)
+            if f is None:
+                f = self._ex[n] = (-self.sc.tpiK * n).exp()
+            value = value * f
+            phi = phi - n
+        self.out[phi] = self.out.get(phi, acb(0)) + value
+
+    def _gphase(self, u: Fraction, w: Fraction, s: int, r: int) -> Fraction:
+        """``phi`` of ``exp(-i pi c (u^2 + w^2 + (u+w)^2) - 2 pi i K (s u + r w)) = exp(2 pi i K phi)``."""
+        u, w = Fraction(u), Fraction(w)
+        D = u.denominator * w.denominator
+        U, W = u.numerator * (D // u.denominator), w.numerator * (D // w.denominator)
+        return Fraction(-self.H * (U * U + W * W + (U + W) ** 2) - 6 * self.P * D * (s * U + r * W),
+                        6 * self.P * D * D)
+
+    # Laurent data (cached) ---------------------------------------------
+    def lau(self, which: str, m: int, s: int, kernel: bool, n: int):
+        key = (which, m, s, kernel, n)
+        if key not in self._lc:
+            f = getattr(self.t, which)
+            self._lc[key] = laurent(f, m, s, kernel, n, self.sc)
+        return self._lc[key]
+
+    def grid(self, which: str, y0: Fraction, s: int, L: int, sign: int = 1, J: int | None = None) -> list[list[acb]]:
+        """``grid_series`` on ``y0 + sign j lstep``, ``|j| <= J`` (cached: many lines share a saddle)."""
+        J = self.Jl if J is None else J
+        key = (which, y0, s, L, sign, J)
+        g = self._gc.get(key)
+        if g is None:
+            for L2 in range(L + 1, 4):      # a longer Taylor grid serves shorter requests
+                g2 = self._gc.get((which, y0, s, L2, sign, J))
+                if g2 is not None:
+                    return [x[:L] for x in g2]
+            y0b = acb(y0.numerator) / y0.denominator
+            g = grid_series(getattr(self.t, which), y0b, sign * self.lstep, J, s, L, self.sc)
+            self._gc[key] = g
+        return g
+
+    def ctaylor(self, v: int, n: int) -> list[acb]:
+        """Taylor coefficients of ``C`` at the integer ``v`` (``C`` is entire)."""
+        val, co = self.lau("C", v, 0, False, n)
+        return ([acb(0)] * val + co)[:n]
+
+    # iterated residue at an integer point --------------------------------
+    def point(self, fu: str, m: int, su: int, ku: bool, fw: str, mp: int, sw: int, kw: bool,
+              cshift: int = 1) -> acb:
+        """``Res_x Res_y [F_u(m + x) F_w(mp + y) C(m + cshift*mp + x + cshift*y)]`` (with the kernels)."""
+        pu = getattr(self.t, fu).pole_order + (1 if ku else 0)
+        pw = getattr(self.t, fw).pole_order + (1 if kw else 0)
+        n = max(pu, pw) + 1
+        v1, a = self.lau(fu, m, su, ku, n)
+        v2, b = self.lau(fw, mp, sw, kw, n)
+        if v1 >= 0 or v2 >= 0:
+            return acb(0)
+        g = self.ctaylor(m + cshift * mp, (-v1) + (-v2))
+        tot = acb(0)
+        for i in range(-v1):
+            p = -1 - v1 - i
+            for j in range(-v2):
+                q = -1 - v2 - j
+                co = g[p + q] * math.comb(p + q, p) * (cshift ** q)
+                tot += a[i] * b[j] * co
+        return tot
+
+    # the pole-corrected trapezoid rule on y0 + tau s ------------------------------
+    def _trap(self, y0: Fraction, vals, laur) -> acb:
+        """``int_{C_y0} g`` from ``vals = [g(y0 + j lstep)]`` and ``laur(k) = (v, coeffs)`` of ``g`` at
+        the integer ``k`` (``None`` when regular): the trapezoid sum minus, for each pole near the
+        line, ``+-2 pi i Res[g q/(1 - q)]``, ``q = exp(+-2 pi i (y - y0)/lstep)``."""
+        tot = acb(0)
+        for x in vals:
+            tot += x
+        tot = tot * self.lstep
+        lo = math.ceil(y0 - self.window)
+        hi = math.floor(y0 + self.window)
+        for k in range(lo, hi + 1):
+            L = laur(k)
+            if L is None:
+                continue
+            v, co = L
+            p = -v
+            if p <= 0:
+                continue
+            sg, kap = self._kappa(k, y0, p)
+            res = acb(0)
+            for i in range(p):
+                res += co[i] * kap[p - 1 - i]
+            tot -= sg * self.twopii * res
+        return tot
+
+    def _line_laurent(self, fixed: str, m: int, s_fix: int, k_fix: bool, s_int: int, a, v):
+        fint = "B" if fixed == "A" else "A"
+        pi_ = getattr(self.t, fint).pole_order
+
+        def laur(k):
+            vf, fc = self.lau(fint, k, s_int, False, pi_ + 1)
+            if vf >= 0:
+                return None
+            p = -vf
+            gam = self.ctaylor(m + k, -v + p)
+            G = []
+            for j in range(p):
+                x = acb(0)
+                for i in range(-v):
+                    li = -1 - v - i
+                    x += a[i] * gam[li + j] * math.comb(li + j, j)
+                G.append(x)
+            return vf, ser_mul(fc[:p], G, p)
+        return laur
+
+    # line integrals -------------------------------------------------------
+    def line(self, fixed: str, m: int, s_fix: int, k_fix: bool, s_int: int, base: Fraction,
+             factor: acb):
+        """``factor * int_{C_base} F_int(y) Res_x[F_fix(m + x) C(m + y + x)] dy`` (conditioned)."""
+        fint = "B" if fixed == "A" else "A"
+        pf = getattr(self.t, fixed).pole_order + (1 if k_fix else 0)
+        v, a = self.lau(fixed, m, s_fix, k_fix, pf + 1)
+        if v >= 0:
+            return
+        ystar = Fraction(-m, 2) - Fraction(3 * self.P * s_int, 2 * self.H)
+        y0 = _half(ystar)
+        sg, ks = _between(base, y0)
+        for k in ks:
+            if fixed == "A":
+                val = self.point("A", m, s_fix, k_fix, "B", k, s_int, False)
+                ph = self._gphase(Fraction(m), Fraction(k), s_fix, s_int)
+            else:
+                val = self.point("A", k, s_int, False, "B", m, s_fix, k_fix)
+                ph = self._gphase(Fraction(k), Fraction(m), s_int, s_fix)
+            if val != 0:
+                self._add(ph, factor * sg * self.twopii * val)
+        # the integral through y0
+        L = -v
+        Fv = self.grid(fint, y0, s_int, 1)
+        Cv = self.grid("C", y0 + m, 0, L)
+        vals = []
+        for fv, cv in zip(Fv, Cv):
+            r = acb(0)
+            for i in range(L):
+                r += a[i] * cv[L - 1 - i]
+            vals.append(fv[0] * r)
+        tot = self._trap(y0, vals, self._line_laurent(fixed, m, s_fix, k_fix, s_int, a, v))
+        # constant factor of the fixed variable is in a (its Laurent data includes it)
+        if fixed == "A":
+            ph = self._gphase(Fraction(m), ystar, s_fix, s_int)
+        else:
+            ph = self._gphase(ystar, Fraction(m), s_int, s_fix)
+        self._add(ph, factor * tot)
+
+    # the plane ----------------------------------------------------------------
+    def plane(self, s: int, r: int, factor: acb):
+        """``factor * int int_{C_{-1/2}^2} A_s(u) B_r(w) C(u + w)`` (conditioned)."""
+        H, P = self.H, self.P
+        us, ws = Fraction(-P * (2 * s - r), H), Fraction(-P * (2 * r - s), H)
+        u0, w0 = _half(us), _half(ws)
+        base = Fraction(-1, 2)
+        sg, ks = _between(base, u0)
+        for k in ks:
+            self.line("A", k, s, False, r, base, factor * sg * self.twopii)
+        sg, ks = _between(base, w0)
+        for k in ks:
+            self.line("B", k, r, False, s, u0, factor * sg * self.twopii)
+        if self.fine_plane:
+            tot = self._plane_fine(u0, w0, s, r)
+        else:
+            tot = self._plane_corrected(u0, w0, s, r)
+        self._add(self._gphase(us, ws, s, r), factor * tot)
+
+    def _plane_fine(self, u0: Fraction, w0: Fraction, s: int, r: int) -> acb:
+        """The plane by the plain tensor trapezoid rule, step below the pole distance (a check)."""
+        J = self.J2
+        u0b = acb(u0.numerator) / u0.denominator
+        w0b = acb(w0.numerator) / w0.denominator
+        Av = [x[0] for x in grid_series(self.t.A, u0b, self.step, J, s, 1, self.sc)]
+        Bv = [x[0] for x in grid_series(self.t.B, w0b, self.step, J, r, 1, self.sc)]
+        Cv = [x[0] for x in grid_series(self.t.C, u0b + w0b, self.step, 2 * J, 0, 1, self.sc)]
+        return self._tensor(Av, Bv, Cv, J) * self.step * self.step
+
+    @staticmethod
+    def _tensor(Av, Bv, Cv, J) -> acb:
+        """``sum_{i,j} A_i B_j C_{i+j}`` (indices ``-J..J``; ``C`` on ``-2J..2J``) by one product."""
+        prod = acb_poly(Bv[::-1]) * acb_poly(Cv)      # x^(J - j) times x^(k + 2J)
+        coeffs = prod.coeffs()
+        tot = acb(0)
+        for i in range(-J, J + 1):
+            tot += Av[i + J] * coeffs[3 * J + i]
+        return tot
+
+    def _kappa(self, k: int, y0: Fraction, p: int) -> tuple[int, list[acb]]:
+        """``(sign, series)`` of the trapezoid-error kernel at the pole ``k`` of a line through ``y0``:
+        ``T_h - I = sum_k sign 2 pi i Res_k[g kappa]``."""
+        up = k > y0
+        a = self.alpha if up else -self.alpha
+        qk = (a * (arb(k) - arb(y0.numerator) / y0.denominator)).exp()
+        qs = [qk]
+        fact = 1
+        for j in range(1, p):
+            fact *= j
+            qs.append(qk * a ** j / fact)
+        den = [1 - qs[0]] + [-x for x in qs[1:]]
+        return (1 if up else -1), ser_mul(qs, ser_inv(den, p), p)
+
+    def _plane_corrected(self, u0: Fraction, w0: Fraction, s: int, r: int) -> acb:
+        """The plane by the tensor trapezoid rule with the Gaussian-limited step, minus the error
+        terms of the poles near the two coordinate lines: ``I = QQ - E_u Q - Q E_w + E_u E_w``."""
+        J = int(math.ceil(1.16 * self.Jl))      # exp(-1.5 pi |c| S^2) on the square's boundary
+        h = self.lstep
+        Av = [x[0] for x in self.grid("A", u0, s, 1, J=J)]
+        Bv = [x[0] for x in self.grid("B", w0, r, 1, J=J)]
+        Cv = [x[0] for x in self.grid("C", u0 + w0, 0, 1, J=2 * J)]
+        tot = self._tensor(Av, Bv, Cv, J) * h * h
+        tpi = self.twopii
+        pa, pb = self.t.A.pole_order, self.t.B.pole_order
+
+        def corr(which: str, y0: Fraction, sv: int, pmax: int):
+            out = []
+            for k in range(math.ceil(y0 - self.window), math.floor(y0 + self.window) + 1):
+                v, a = self.lau(which, k, sv, False, pmax + 1)
+                if v >= 0:
+                    continue
+                sg, kap = self._kappa(k, y0, -v)
+                out.append((k, sg, v, ser_mul(a, kap, -v)))
+            return out
+
+        cu = corr("A", u0, s, pa)
+        cw = corr("B", w0, r, pb)
+        # E_u (x) Q_w and Q_u (x) E_w
+        for k, sg, v, a in cu:
+            L = -v
+            Cg = self.grid("C", k + w0, 0, L, J=J)
+            acc = acb(0)
+            for bj, cg in zip(Bv, Cg):
+                rr = acb(0)
+                for i in range(L):
+                    rr += a[i] * cg[L - 1 - i]
+                acc += bj * rr
+            tot -= sg * tpi * acc * h
+        for k, sg, v, b in cw:
+            L = -v
+            Cg = self.grid("C", u0 + k, 0, L, J=J)
+            acc = acb(0)
+            for ai, cg in zip(Av, Cg):
+                rr = acb(0)
+                for i in range(L):
+                    rr += b[i] * cg[L - 1 - i]
+                acc += ai * rr
+            tot -= sg * tpi * acc * h
+        # E_u (x) E_w
+        for k, sg, v1, a in cu:
+            for kp, sg2, v2, b in cw:
+                g = self.ctaylor(k + kp, (-v1) + (-v2))
+                rr = acb(0)
+                for i in range(-v1):
+                    p = -1 - v1 - i
+                    for j in range(-v2):
+                        q = -1 - v2 - j
+                        rr += a[i] * b[j] * g[p + q] * math.comb(p + q, p)
+                tot += sg * sg2 * tpi * tpi * rr
+        return tot
+
+    # the third family ---------------------------------------------------------
+    def third_line(self, m: int, factor: acb):
+        """``factor * sum_{b mod 3PK, K !| b} A(u) B(m - u) C(m)``, ``u = b/K`` (rank one LR)."""
+        H, P, K = self.H, self.P, self.K
+        Cm = self.ctaylor(m, 1)[0]
+        f = factor * Cm
+        pa, pb = self.t.A.pole_order, self.t.B.pole_order
+        n = pa + pb + 2
+
+        def laur(k: int, s: int, kernel: bool):
+            v1, a = self.lau("A", k, s, kernel, n)
+            v2, b = self.lau("B", m - k, 0, False, n)
+            b = [x * (-1) ** (i + v2) for i, x in enumerate(b)]     # B(m - k - x)
+            v = v1 + v2
+            if v >= 0:
+                return None
+            return v, ser_mul(a, b, n)
+
+        def res(k: int, s: int, kernel: bool) -> acb:
+            L = laur(k, s, kernel)
+            return acb(0) if L is None else L[1][-1 - L[0]]
+
+        def ph(k, t):
+            uu = Fraction(k)
+            return -Fraction(H, 6 * P) * (uu * uu + (m - uu) ** 2 + m * m) - t * uu
+
+        # - 2 pi i K sum_{k < 3P} Res_{u=k}[A(u) B(m-u) k(u - k)]
+        for k in range(3 * P):
+            val = res(k, 0, True)
+            if val != 0:
+                self._add(ph(k, 0), -f * self.twopii * K * val)
+        # K sum_{t < 2H} int_{C_{-1/2}} A_t(u) B(m - u) du
+        base = Fraction(-1, 2)
+        for t in range(2 * H):
+            ustar = Fraction(m, 2) - Fraction(3 * P * t, 2 * H)
+            u0 = _half(ustar)
+            sg, ks = _between(base, u0)
+            for k in ks:
+                val = res(k, t, False)
+                if val != 0:
+                    self._add(ph(k, t), f * K * sg * self.twopii * val)
+            Av = self.grid("A", u0, t, 1)
+            Bv = self.grid("B", m - u0, 0, 1, -1)
+            tot = self._trap(u0, [x[0] * y[0] for x, y in zip(Av, Bv)], lambda k, t=t: laur(k, t, False))
+            self._add(ph(ustar, t), f * K * tot)
+
+    # assembly ------------------------------------------------------------------
+    def run(self) -> dict[Fraction, acb]:
+        H, P, K = self.H, self.P, self.K
+        tpi = self.twopii
+        K2 = K * K
+        third = acb(1) / 3
+        base = Fraction(-1, 2)
+        # bulk
+        for s in range(H):
+            for r in range(H):
+                self.plane(s, r, third * K2)
+        for s in range(H, 2 * H):
+            for r in range(2 * H):
+                self.plane(s, r, third * K2)
+        # - 2 pi i K^2 sum_{m < 3P, r < 2H} int Res_{u=m}[T k(u - m)] e^{-2 pi i K r w} dw
+        for m in range(3 * P):
+            for r in range(2 * H):
+                self.line("A", m, 0, True, r, base, -third * tpi * K2)
+        # + 2 pi i K^2 sum_{m; r, r' < H} int Res_{u=m}[T e^{-2 pi i K r u}] e^{-2 pi i K (H + r') w} dw
+        for m in range(3 * P):
+            for r in range(H):
+                for rp in range(H):
+                    self.line("A", m, r, False, H + rp, base, third * tpi * K2)
+        # - 2 pi i K^2 sum_{m' < 3P, t < 2H} int du Res_{w=m'}[T e^{-2 pi i K t u} k(w - m')]
+        for mp in range(3 * P):
+            for t in range(2 * H):
+                self.line("B", mp, 0, True, t, base, -third * tpi * K2)
+        # + (2 pi i)^2 K^2 sum_{m, m'} Res_{w=m'} Res_{u=m}[T k(u - m) k(w - m')]
+        for m in range(3 * P):
+            for mp in range(3 * P):
+                val = self.point("A", m, 0, True, "B", mp, 0, True)
+                if val != 0:
+                    self._add(self._gphase(Fraction(m), Fraction(mp), 0, 0), third * tpi * tpi * K2 * val)
+        # the third family, subtracted
+        for m in range(P):
+            self.third_line(m, acb(-1))
+        return self.out
+
+
+def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: int,
+                     reduced: bool = True, fine_plane: bool = False) -> dict[Fraction, acb]:
+    """``{phi: piece}`` with ``sum = S(K)`` of §18.1 for SU(3) (``H != 0``, genus 0).
+
+    ``phi`` is the Chern–Simons phase of the piece (``exp(2 pi i K phi)``), reduced to
+    ``(-1/2, 1/2]`` when ``reduced``.
+    """
+    if H < 0:
+        Kc = K.conjugate()
+        res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane)
+        return {-phi: v.conjugate() for phi, v in res.items()}
+    theta = _theta(H, complex(K.mid()))
+    out: dict[Fraction, acb] = {}
+    for term in partial_fraction_terms(orders):
+        ev = _Eval(term, K, H, P, digits, reduced, theta, fine_plane)
+        for phi, v in ev.run().items():
+            out[phi] = out.get(phi, acb(0)) + v
+    return out
+
+
+def _theta(H: int, K: complex) -> float:
+    """Direction of every contour for ``H > 0`` (``K`` conjugated first when ``H < 0``)."""
+    if H < 0:
+        K = K.conjugate()
+    argK = math.atan2(K.imag, K.real)
+    if argK <= -math.pi / 2:
+        argK += 2 * math.pi
+    return -math.pi / 4 - argK / 2
+
+
+#: The contours need ``|sin theta| >= MIN_SIN``: ``K`` away from the cut ``arg K = -sign(H) pi/2``.
+MIN_SIN = 0.05
+
+
+def pole_domain(H: int, K: complex) -> None:
+    """Refuses ``K = 0`` and ``K`` on (or too near) the cut ``arg K = -sign(H) pi/2``.
+
+    >>> pole_domain(1, 7.5 + 0.3j)
+    >>> pole_domain(1, -5j)
+    Traceback (most recent call last):
+    ...
+    knotobs.continuation.level.DomainError: K = -5j lies on the cut arg K = -pi/2 of the SU(3) continuation with poles (H = 1 > 0): the contours through the half-integers would meet the poles; use K off that ray (|sin theta| >= 0.05, theta = -pi/4 - arg(K)/2)
+    """
+    from knotobs.continuation.level import DomainError
+
+    if K == 0:
+        raise DomainError("K = 0: the continuation is defined for K != 0")
+    st = abs(math.sin(_theta(H, K)))
+    if st < MIN_SIN:
+        side = "-pi/2" if H > 0 else "+pi/2"
+        raise DomainError(
+            f"K = {K:g} lies on the cut arg K = {side} of the SU(3) continuation with poles"
+            f" (H = {H} {'>' if H > 0 else '<'} 0): the contours through the half-integers would meet"
+            f" the poles; use K off that ray (|sin theta| >= {MIN_SIN}, theta = -pi/4 - arg(K)/2)")
+
+
+def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int) -> tuple[float, str]:
+    """``(ball operations, description)`` of one evaluation of :func:`pole_sum_sectors`.
+
+    Counts the grid nodes of every line integral (``~ 3P (H^2 + 4H)`` lines per term plus
+    the contour shifts of the planes, ``~ 2P`` each) and the iterated residues (``(3P)^2``
+    per term plus those collected when a line is moved to its saddle).
+
+    >>> ops, what = pole_cost((2, 3, 5), 1, 30, 12.0, 30)
+    >>> 1e5 < ops < 1e8 and "line integrals" in what
+    True
+    """
+    H = abs(H)
+    theta = _theta(H, K)
+    cabs = abs(K) * H / (3 * P)
+    st = abs(math.sin(theta))
+    T = math.log(10) * (digits + 6) + 8
+    growth = math.pi * st * 2 * (sum(1 / p for p in orders) + 1) + 3 * math.pi * cabs + 1
+    b = 2 * cabs
+    h = 2 * math.pi / (growth + math.sqrt(growth * growth + 4 * math.pi * b * T))
+    _, S = pole_plan(abs(K), math.sin(theta), cabs, digits, growth)
+    nodes = 2 * int(math.ceil(S / h)) + 1
+    nterms = len(partial_fraction_terms(tuple(orders)))
+    lines = nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P + 2 * P * H)
+    points = nterms * ((3 * P) ** 2 + lines * P // 2)
+    ops = 25.0 * lines * nodes + 30.0 * points
+    return ops, f"{lines} line integrals of {nodes} nodes, about {points} iterated residues"

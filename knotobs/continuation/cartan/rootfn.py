@@ -1,0 +1,198 @@
+r"""One-variable factors of the SU(3) integrand after partial fractions (CONVENTIONS §18.7).
+
+On the rotated Cartan the SU(3) integrand of §18.1 is a product over the three positive roots
+(§18.6).  After the partial fractions of §18.7 each term is, in coordinates ``(u, w)`` adapted to
+two root families, ``A(u) B(w) C(u + w)`` with every factor of the form
+
+    ``f(y) = sign exp(i pi a y) exp(-i pi c y^2) exp(-2 pi i K s y) prod_p (2i sin(pi y/p))^(e_p)``,
+
+``c = K H/(3P)`` (the Gaussian ``-i pi K H |z|^2/P`` split as
+``|z|^2 = (u^2 + w^2 + (u + w)^2)/3``), ``s`` an integer.  Poles (negative ``e_p``, ``p = 1``) lie at
+the integers.  This module evaluates such factors on straight grids (values and Taylor
+coefficients, by geometric recurrences restarted every :data:`BLOCK` nodes so that the balls stay
+tight) and gives their Laurent expansions at integers, optionally times the Lawrence–Rozansky
+kernel ``k(y) = 1/(1 - exp(-2 pi i K y))`` (CONVENTIONS §9).
+
+References
+----------
+R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314 (the kernel and the residues).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from fractions import Fraction
+
+from flint import acb, arb
+
+from knotobs.ball_series import bernoulli_plus, ser_exp, ser_inv, ser_mul, ser_sin
+
+__all__ = ["RootFunction", "Scale", "laurent", "grid_series", "BLOCK"]
+
+#: Grid recurrences are restarted from directly computed exponentials every ``BLOCK`` nodes.
+BLOCK = 48
+
+
+@dataclass(frozen=True)
+class RootFunction:
+    """``sign exp(i pi a y) prod_p (2i sin(pi y/p))^e`` (the Gaussian and ``s`` come with the call).
+
+    >>> f = RootFunction(1, Fraction(1, 2), ((1, -1), (3, 1)))
+    >>> f.pole_order
+    1
+    """
+
+    sign: int
+    a: Fraction
+    sines: tuple[tuple[int, int], ...]
+
+    @property
+    def pole_order(self) -> int:
+        """Largest order of a pole at an integer (at most ``-sum of negative e``)."""
+        return -sum(e for p, e in self.sines if e < 0)
+
+
+@dataclass
+class Scale:
+    """The numbers every factor shares, as balls at the current precision.
+
+    ``K`` the shifted level, ``c = K H/(3P)``; ``ipi = i pi``.
+    """
+
+    K: acb
+    c: acb
+
+    def __post_init__(self):
+        self.ipi = acb(0, 1) * arb.pi()
+        self.tpiK = 2 * self.ipi * self.K          # 2 pi i K
+
+
+def _q(x: Fraction) -> acb:
+    return acb(x.numerator) / x.denominator
+
+
+def _power(ser: list[acb], e: int, n: int) -> list[acb]:
+    if e < 0:
+        ser = ser_inv(ser, n)
+        e = -e
+    out = [acb(1)] + [acb(0)] * (n - 1)
+    for _ in range(e):
+        out = ser_mul(out, ser, n)
+    return out
+
+
+def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) -> tuple[int, list[acb]]:
+    """Laurent expansion of ``f(m + x) exp(-i pi c (m+x)^2) exp(-2 pi i K s (m+x)) [k(x)]`` at ``x = 0``.
+
+    Returns ``(v, [c_0, ..., c_{n-1}])`` meaning ``x^v (c_0 + c_1 x + ...)``.
+
+    >>> from knotobs.numerics import working_precision
+    >>> with working_precision(20):
+    ...     sc = Scale(acb(5), acb(1))
+    ...     v, c = laurent(RootFunction(1, Fraction(0), ((1, -1),)), 2, 0, False, 2, sc)
+    >>> v, abs(complex(c[0].mid()) * 2j * 3.141592653589793 * complex((-sc.ipi * 4).exp().mid()) ** -1 - 1) < 1e-12
+    (-1, True)
+    """
+    ipi = sc.ipi
+    val = 0
+    out = [acb(f.sign)] + [acb(0)] * (n - 1)
+    for p, e in f.sines:
+        if m % p == 0:
+            # 2i sin(pi (m + x)/p) = (-1)^(m/p) 2i sin(pi x/p) = x * [(-1)^(m/p) 2i sin(pi x/p)/x]
+            sn = ser_sin(acb(0), arb.pi() / p, n + 1)[1:]
+            sg = -1 if (m // p) % 2 else 1
+            ser = [acb(0, 2 * sg) * t for t in sn]
+            val += e
+        else:
+            sn = ser_sin(arb.pi() * m / p, arb.pi() / p, n)
+            ser = [acb(0, 2) * t for t in sn]
+        out = ser_mul(out, _power(ser, e, n), n)
+    lin = ipi * _q(f.a) - sc.tpiK * s
+    g = ser_exp([lin * m - ipi * sc.c * (m * m), lin - 2 * ipi * sc.c * m, -ipi * sc.c], n)
+    out = ser_mul(out, g, n)
+    if kernel:
+        # k(x) = (1/(2 pi i K x)) * X/(1 - e^-X), X = 2 pi i K x
+        bp = bernoulli_plus(n)
+        X = sc.tpiK
+        ker = []
+        pw = 1 / X
+        for k in range(n):
+            ker.append(_q(bp[k]) * pw)
+            pw = pw * X
+        out = ser_mul(out, ker, n)
+        val -= 1
+    return val, out
+
+
+def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc: Scale) -> list[list[acb]]:
+    """Taylor coefficients (length ``L <= 3``) of ``f(y) exp(-i pi c y^2 - 2 pi i K s y)`` at
+    ``y_j = y0 + j step``, ``j = -J, ..., J`` (``y_j`` never an integer when ``f`` has poles).
+
+    >>> from knotobs.numerics import working_precision
+    >>> with working_precision(20):
+    ...     sc = Scale(acb(5), acb(1))
+    ...     f = RootFunction(1, Fraction(0), ((2, 1),))
+    ...     g = grid_series(f, acb(0.5), acb(0.1, -0.1), 3, 0, 2, sc)
+    ...     y = acb(0.5) + 2 * acb(0.1, -0.1)
+    ...     ref = 2j * (arb.pi() * y / 2).sin() * (-sc.ipi * y * y).exp()
+    ...     dref = ref * (-2 * sc.ipi * y) + acb(0, 1) * arb.pi() * (arb.pi() * y / 2).cos() * (-sc.ipi * y * y).exp()
+    >>> abs(complex((g[5][0] - ref).mid())) < 1e-15, abs(complex((g[5][1] - dref).mid())) < 1e-14
+    (True, True)
+    """
+    if L > 3:
+        raise ValueError("grid_series: Taylor length > 3 is not needed here")
+    ipi = sc.ipi
+    lin = ipi * _q(f.a) - sc.tpiK * s
+    quad = -ipi * sc.c
+    out: list[list[acb]] = []
+    total = 2 * J + 1
+    start = y0 - J * step
+    sines = f.sines
+    avals = [ipi / p for p, _ in sines]
+    half_a2 = [a * a / 2 for a in avals]
+    sign = f.sign
+    j = 0
+    while j < total:
+        nb = min(BLOCK, total - j)
+        y = start + j * step
+        E = [((ipi / p) * y).exp() for p, _ in sines]
+        R = [((ipi / p) * step).exp() for p, _ in sines]
+        g = (quad * y * y + lin * y).exp()
+        rho = (quad * (2 * y * step + step * step) + lin * step).exp()
+        Q2 = (2 * quad * step * step).exp()
+        for t in range(nb):
+            if L == 1:
+                v = g if sign == 1 else -g
+                for (p, e), Ek in zip(sines, E):
+                    sv = Ek - 1 / Ek
+                    if e == 1:
+                        v = v * sv
+                    elif e > 0:
+                        v = v * sv ** e
+                    else:
+                        v = v / sv ** (-e)
+                out.append([v])
+            else:
+                yt = y + t * step
+                d1 = 2 * quad * yt + lin
+                x0 = g if sign == 1 else -g
+                x1 = x0 * d1
+                x2 = x0 * (d1 * d1 + 2 * quad) / 2 if L == 3 else None
+                for k, ((p, e), Ek) in enumerate(zip(sines, E)):
+                    iE = 1 / Ek
+                    sv, cv = Ek - iE, Ek + iE
+                    y1 = avals[k] * cv
+                    if e < 0:
+                        raise ValueError("grid_series: Taylor coefficients are for entire factors")
+                    for _ in range(e):
+                        if L == 3:
+                            y2 = half_a2[k] * sv
+                            x0, x1, x2 = x0 * sv, x0 * y1 + x1 * sv, x0 * y2 + x1 * y1 + x2 * sv
+                        else:
+                            x0, x1 = x0 * sv, x0 * y1 + x1 * sv
+                out.append([x0, x1] if L == 2 else [x0, x1, x2])
+            g = g * rho
+            rho = rho * Q2
+            E = [Ek * Rk for Ek, Rk in zip(E, R)]
+        j += nb
+    return out
