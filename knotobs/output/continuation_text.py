@@ -77,7 +77,7 @@ def continued_text(res, phases: str) -> str:
     :class:`~knotobs.continuation.cartan.CartanContinuedValue` (SU(N), with its sectors)."""
     N = getattr(res, "N", 2)
     how = ("Lawrence-Rozansky integral + residues" if N == 2 and not hasattr(res, "sectors")
-           else "Gaussian integrals over the rotated Cartan (one per abelian flat connection)")
+           else getattr(res, "how", "Gaussian integrals over the rotated Cartan (one per abelian flat connection)"))
     text = (f"Z({normal_form_name(res.space)}) at K = {mpmath.nstr(res.K, 12)} (level k = K - {N}), SU({N})\n"
             f"  value = {certified_str(res.numeric, res.digits)}\n"
             f"  normalization: Z(S^3) = S_00, canonical 2-framing\n"

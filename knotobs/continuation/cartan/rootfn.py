@@ -160,18 +160,31 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
         g = (quad * y * y + lin * y).exp()
         rho = (quad * (2 * y * step + step * step) + lin * step).exp()
         Q2 = (2 * quad * step * step).exp()
-        for t in range(nb):
-            if L == 1:
+        if L == 1:
+            iE = [1 / Ek for Ek in E]
+            iR = [1 / Rk for Rk in R]
+            pos = [(k, e) for k, (p, e) in enumerate(sines) if e > 0]
+            neg = [(k, -e) for k, (p, e) in enumerate(sines) if e < 0]
+            for t in range(nb):
                 v = g if sign == 1 else -g
-                for (p, e), Ek in zip(sines, E):
-                    sv = Ek - 1 / Ek
-                    if e == 1:
-                        v = v * sv
-                    elif e > 0:
-                        v = v * sv ** e
-                    else:
-                        v = v / sv ** (-e)
-                out.append([v])
+                for k, e in pos:
+                    sv = E[k] - iE[k]
+                    v = v * sv if e == 1 else v * sv ** e
+                den = None
+                for k, e in neg:
+                    sv = E[k] - iE[k]
+                    sv = sv if e == 1 else sv ** e
+                    den = sv if den is None else den * sv
+                out.append([v if den is None else v / den])
+                g = g * rho
+                rho = rho * Q2
+                E = [Ek * Rk for Ek, Rk in zip(E, R)]
+                iE = [Ek * Rk for Ek, Rk in zip(iE, iR)]
+            j += nb
+            continue
+        for t in range(nb):
+            if False:
+                pass
             else:
                 yt = y + t * step
                 d1 = 2 * quad * yt + lin

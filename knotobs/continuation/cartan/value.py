@@ -148,8 +148,10 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
                 s = gaussian_sectors(d, Ka, reduced)
             elif method == "residues":
                 pre = B_N(d, Ka) / (Ka * Ka)
-                s = {phi: pre * v for phi, v in
-                     pole_sum_sectors(d.big_orders, d.H, d.P, Ka, dg, reduced).items()}
+                s = {}
+                for phi, v in pole_sum_sectors(d.big_orders, d.H, d.P, Ka, dg, reduced).items():
+                    key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
+                    s[key] = s.get(key, acb(0)) + pre * v
             else:
                 s = quadrature_sectors(d, Ka, dg, reduced)
             runs[dg] = s
@@ -158,10 +160,21 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
     total = checked(comp, digits, f"SU({N}) Z({d.space}) at K = {mpmath.nstr(Kv, 10)} ({method})")
     lo, hi = runs[digits + 3], runs[digits + 12]
     out = {}
+    cancelled = 0
+    if method == "residues":
+        # groups of pieces whose phase is no Chern–Simons value cancel identically (checked
+        # here to the working precision of the finer run, relative to the largest group)
+        with working_bits(bits(digits + 12)):
+            mags = {cs: abs(to_mpc(v, 15)) for cs, v in hi.items()}
+        scale = max(list(mags.values()) + [mpmath.mpf(1)])
+        for cs in [c for c, m in mags.items() if m < mpmath.mpf(10) ** (-digits - 6) * scale]:
+            del hi[cs]
+            lo.pop(cs, None)
+            cancelled += 1
     for cs in sorted(hi):
-        out[cs] = checked(lambda dg, cs=cs: (lo if dg == digits + 3 else hi)[cs], digits,
+        out[cs] = checked(lambda dg, cs=cs: (lo if dg == digits + 3 else hi).get(cs, acb(0)), digits,
                           f"sector cs = {cs} of SU({N}) Z({d.space})")
-    return total, out
+    return total, out, cancelled
 
 
 @dataclass(frozen=True, repr=False)
@@ -193,8 +206,35 @@ class CartanContinuedValue(NotebookMixin):
 
     @property
     def pieces(self) -> dict:
-        """``{"integral": ..., "residues": 0}`` (the layout of the SU(2) value)."""
-        return {"integral": self.numeric, "residues": mpmath.mpc(0)}
+        """``{"integral": ..., "residues": ...}`` (the layout of the SU(2) value): the sectors of the
+        abelian flat connections and the rest (``0`` when the integrand has no poles)."""
+        if self.method != "residues":
+            return {"integral": self.numeric, "residues": mpmath.mpc(0)}
+        ab = self.abelian_cs
+        integral = sum((v for cs, v in self.sectors.items() if cs in ab), mpmath.mpc(0))
+        return {"integral": integral, "residues": self.numeric - integral}
+
+    @property
+    def abelian_cs(self) -> set:
+        """CS values mod 1 of the abelian flat connections, ``P |u|^2/(2H)`` for ``u in Q/HQ``
+        (SU(3): ``|u|^2 = 2 (t_1^2 - t_1 t_2 + t_2^2)``; for other N the sectors of the closed form)."""
+        from knotobs.fibrations.seifert import parse_space
+        from knotobs.continuation.level import LRData
+
+        d = LRData.from_space(parse_space(self.space))
+        if self.N != 3:
+            return set(self.sectors)
+        H = abs(d.H)
+        return {Fraction(d.P * (a * a - a * b + b * b), d.H) % 1 for a in range(H) for b in range(H)}
+
+    @property
+    def how(self) -> str:
+        """One line naming the route."""
+        if self.method == "residues":
+            return ("SU(3) two-family Lawrence-Rozansky formula: plane integrals, line integrals of"
+                    " residues and iterated residues, each at its saddle (one sector per flat connection)")
+        return ("Gaussian integrals over the rotated Cartan (one per abelian flat connection"
+                f"{'' if self.method == 'closed' else ', ' + self.method})")
 
     def to_json(self) -> dict[str, Any]:
         def cj(z):
@@ -210,8 +250,7 @@ class CartanContinuedValue(NotebookMixin):
             "numeric": {**cj(self.numeric), "digits": self.digits},
             "pieces": {k: cj(v) for k, v in self.pieces.items()},
             "sectors": {str(cs): cj(v) for cs, v in sorted(self.sectors.items())},
-            "route": ("Gaussian integrals over the rotated Cartan (SU(N) Lawrence-Rozansky form, "
-                      f"{'closed form' if self.method == 'closed' else self.method}; analytic continuation in K)"),
+            "route": f"{self.how}; analytic continuation in K",
             "normalisation": "Z(S^3) = S_00, Z(S^2 x S^1) = 1, canonical 2-framing",
             "notes": list(self.notes),
         }
@@ -262,8 +301,8 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     reduced = phases == "reduced"
     notes = []
     if method == "both":
-        total, sectors = _sectors(d, level, K, N, digits, reduced, "closed")
-        total_q, _ = _sectors(d, level, K, N, digits, reduced, "quadrature")
+        total, sectors, _ = _sectors(d, level, K, N, digits, reduced, "closed")
+        total_q, _, _ = _sectors(d, level, K, N, digits, reduced, "quadrature")
         from knotobs.numerics import working_precision
 
         with working_precision(digits + 10):
@@ -275,7 +314,10 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
                                      f" {mpmath.nstr(diff, 3)} at {digits} digits")
         notes.append(f"closed form and trapezoid rule agree to {digits} digits")
     else:
-        total, sectors = _sectors(d, level, K, N, digits, reduced, method)
+        total, sectors, cancelled = _sectors(d, level, K, N, digits, reduced, method)
+        if method == "residues":
+            notes.append(f"{len(sectors)} sectors (the flat connections); {cancelled} further groups of"
+                         f" line integrals and residues cancel to below 10^-{digits + 6}")
     if Kv.imag == 0 and Kv.real == int(Kv.real):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
     return CartanContinuedValue(total, digits, Kv, N, str(d.space), sectors, method, tuple(notes))
