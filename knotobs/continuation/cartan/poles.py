@@ -62,10 +62,15 @@ def _split(a: int, b: int, c: int) -> dict[tuple[Fraction, Fraction, int, int, i
 
 
 class PoleTerm:
-    """One term ``A(u) B(w) C(u + w)`` of the partial-fraction expansion of ``h``."""
+    """One term ``A(u) B(w) C(u + w)`` of the partial-fraction expansion of ``h``.
 
-    def __init__(self, A: RootFunction, B: RootFunction, C: RootFunction):
+    ``basis`` gives ``(u, w)`` from ``x = (x_1, x_2)``: ``u = basis[0] . x``, ``w = basis[1] . x``.
+    """
+
+    def __init__(self, A: RootFunction, B: RootFunction, C: RootFunction,
+                 basis: tuple[tuple[int, int], tuple[int, int]] = ((1, 0), (0, 1))):
         self.A, self.B, self.C = A, B, C
+        self.basis = basis
 
     def __repr__(self):
         return f"PoleTerm({self.A}, {self.B}, {self.C})"
@@ -84,10 +89,12 @@ def partial_fraction_terms(orders: tuple[int, ...]) -> list[PoleTerm]:
         if c == 0:   # poles on x_1, x_2: (u, w) = (x_1, x_2)
             A = RootFunction(k, al1, num + ((1, -a),))
             B = RootFunction(1, al2, num + ((1, -b),))
+            basis = ((1, 0), (0, 1))
         else:        # poles on x_1, x_1 + x_2: u = x_1, w = -(x_1 + x_2), u + w = -x_2
             A = RootFunction(k * (-1) ** c, al1 - al2, num + ((1, -a),))
             B = RootFunction(1, -al2, num + ((1, -c),))
-        terms.append(PoleTerm(A, B, RootFunction(1, Fraction(0), num)))
+            basis = ((1, 0), (-1, -1))
+        terms.append(PoleTerm(A, B, RootFunction(1, Fraction(0), num), basis))
     return terms
 
 

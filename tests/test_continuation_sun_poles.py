@@ -1,0 +1,149 @@
+"""SU(3) ``Z(K)`` with poles: three exceptional orders (docs/continuation_sun.md §18.7).
+
+External references: the finite-level value of the localisation formula (Lawrence–Rozansky
+1999 for rank one, Mariño 2005 for the Cartan integrals; knotobs' localisation and convolution
+routes are independent implementations of it, §10 and §18.6); the Chern–Simons values of the
+flat SU(2) connections on the Poincaré sphere (Fintushel–Stern 1990); holomorphy in K (the
+Cauchy–Riemann equations).
+"""
+
+from __future__ import annotations
+
+import cmath
+import random
+from fractions import Fraction
+
+import mpmath
+import pytest
+
+from knotobs.continuation.cartan import continued_sun_partition_function
+from knotobs.continuation.cartan.poles import partial_fraction_terms
+from knotobs.evaluation.root_convolution import convolution_partition_function
+from knotobs.guard import limits
+from knotobs.localisation import localisation_partition_function
+
+
+def _S(y: complex) -> complex:
+    return 2j * cmath.sin(cmath.pi * y)
+
+
+def _root_fn(f, y: complex) -> complex:
+    v = f.sign * cmath.exp(1j * cmath.pi * float(f.a) * y)
+    for p, e in f.sines:
+        v *= _S(y / p) ** e
+    return v
+
+
+@pytest.mark.parametrize("orders", [(2, 3, 5), (2, 3, 7), (2, 3, 5, 7)])
+def test_partial_fractions_reproduce_the_sine_ratio(orders):
+    # prod_j Delta(x/p_j) / Delta(x)^(n-2), Delta(x) = S(x_1) S(x_2) S(x_1 + x_2): an algebraic
+    # identity (the Weyl denominator of SU(3) in the simple-root coordinates, common practice)
+    rnd = random.Random(5)
+    n = len(orders)
+    terms = partial_fraction_terms(orders)
+    for _ in range(5):
+        x1 = complex(rnd.uniform(-2, 2), rnd.uniform(-0.5, 0.5))
+        x2 = complex(rnd.uniform(-2, 2), rnd.uniform(-0.5, 0.5))
+        num = 1
+        for p in orders:
+            num *= _S(x1 / p) * _S(x2 / p) * _S((x1 + x2) / p)
+        want = num / (_S(x1) * _S(x2) * _S(x1 + x2)) ** (n - 2)
+        got = 0
+        for t in terms:
+            u = t.basis[0][0] * x1 + t.basis[0][1] * x2
+            w = t.basis[1][0] * x1 + t.basis[1][1] * x2
+            got += _root_fn(t.A, u) * _root_fn(t.B, w) * _root_fn(t.C, u + w)
+        assert abs(got - want) < 1e-9 * max(1, abs(want))
+    # every term has poles on two root families only
+    assert all(not any(e < 0 for _, e in t.C.sines) for t in terms)
+
+
+def _agree(a, b, dg):
+    return abs(a - b) <= mpmath.mpf(10) ** (-dg) * max(1, abs(b))
+
+
+def test_sigma235_at_integer_K_equals_the_finite_level_value_to_30_digits():
+    # Z_k(Sigma(2,3,5)) for SU(3), k = 9: the localisation formula (Marino 2005; §10), evaluated
+    # by the cubic convolution (§18.6) and by the weight sum of the localisation route
+    with limits(seconds=300):
+        z = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=12, digits=30)
+    conv = convolution_partition_function("Sigma(2,3,5)", 9, digits=35).numeric
+    loc = localisation_partition_function("Sigma(2,3,5)", "SU(3)", 9, digits=35).numeric
+    assert _agree(z.numeric, conv, 30) and _agree(z.numeric, loc, 30)
+    assert z.method == "residues"
+    assert any("integer K" in n for n in z.notes)
+
+
+def test_sectors_are_the_flat_connections_of_the_poincare_sphere():
+    # pi_1(Sigma(2,3,5)) is the binary icosahedral group; its SU(3) representations are the
+    # trivial one, the two SU(2) ones plus a trivial line (CS = -1/120, -49/120 mod 1:
+    # Fintushel-Stern, Proc. London Math. Soc. 61 (1990) 109-137) and the two 3-dimensional
+    # irreducibles, which factor through SO(3) and are the adjoints of the SU(2) ones, so their
+    # CS is 4 times (Dynkin index 4 of the principal embedding; the list of irreducible
+    # dimensions 1,2,2,3,3,4,4,5,6 is from memory).  Every other group of pieces cancels.
+    with limits(seconds=300):
+        z = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", level="8.5+0.25i", digits=12)
+    su2 = [Fraction(-1, 120), Fraction(-49, 120)]
+    want = {Fraction(0)} | {c % 1 for c in su2} | {(4 * c) % 1 for c in su2}
+    assert set(z.sectors) == want
+    assert abs(sum(z.sectors.values()) - z.numeric) < 1e-10
+    assert z.pieces["integral"] == z.sectors[Fraction(0)]
+
+
+def test_reversed_orientation_at_integer_K():
+    # -Sigma(2,3,5) (H < 0: the contours of the conjugate level), against the localisation route
+    with limits(seconds=300):
+        z = continued_sun_partition_function("-Sigma(2,3,5)", "SU(3)", K=10, digits=20)
+    loc = localisation_partition_function("-Sigma(2,3,5)", "SU(3)", 7, digits=25).numeric
+    assert _agree(z.numeric, loc, 20)
+
+
+def test_holomorphic_in_K_by_the_cauchy_riemann_equations():
+    # f'(K) from a real and from an imaginary step must agree for a holomorphic f (common
+    # practice); |Z| (not holomorphic) fails the same test
+    K0, eps, dg = mpmath.mpc(10.5, 0.3), mpmath.mpf("1e-3"), 12
+
+    def f(dK):
+        with limits(seconds=300):
+            return continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=K0 + dK, digits=dg).numeric
+
+    fr, fl, fu, fd = f(eps), f(-eps), f(1j * eps), f(-1j * eps)
+    d_re = (fr - fl) / (2 * eps)
+    d_im = (fu - fd) / (2j * eps)
+    assert abs(d_re - d_im) < 1e-5 * abs(d_re)
+    a_re = (abs(fr) - abs(fl)) / (2 * eps)
+    a_im = (abs(fu) - abs(fd)) / (2j * eps)
+    assert abs(a_re - a_im) > 1e-2 * abs(a_re)
+
+
+def test_reduced_phases_change_the_continuation_but_not_the_integer_values():
+    # Carlson's theorem: the reduced phases give the continuation of least exponential type; the
+    # Lawrence-Rozansky phases agree at every integer K and differ in between
+    with limits(seconds=300):
+        a = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=11, digits=15)
+        b = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=11, digits=15, phases="lawrence-rozansky")
+        c = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K="11.5", digits=15)
+        d = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K="11.5", digits=15, phases="lawrence-rozansky")
+    assert _agree(a.numeric, b.numeric, 15)
+    assert abs(c.numeric - d.numeric) > 1e-3
+
+
+@pytest.mark.slow
+def test_sigma237_at_integer_K():
+    with limits(seconds=900):
+        z = continued_sun_partition_function("Sigma(2,3,7)", "SU(3)", K=9, digits=20)
+    conv = convolution_partition_function("Sigma(2,3,7)", 6, digits=25).numeric
+    assert _agree(z.numeric, conv, 20)
+
+
+@pytest.mark.slow
+def test_plane_by_the_corrected_rule_equals_the_plain_trapezoid_rule():
+    from flint import acb
+
+    from knotobs.continuation._num import bits, working_bits
+    from knotobs.continuation.cartan.poles import pole_sum_sectors
+
+    with working_bits(bits(15)):
+        a = sum(pole_sum_sectors((2, 3, 5), 1, 30, acb(11.5, 0.2), 15).values(), acb(0))
+        b = sum(pole_sum_sectors((2, 3, 5), 1, 30, acb(11.5, 0.2), 15, fine_plane=True).values(), acb(0))
+        assert abs(complex((a - b).mid())) < 1e-14 * max(1, abs(complex(a.mid())))
