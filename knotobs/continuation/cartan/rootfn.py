@@ -22,6 +22,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from fractions import Fraction
+from functools import lru_cache
 
 from flint import acb, arb
 
@@ -31,6 +32,11 @@ __all__ = ["RootFunction", "Scale", "laurent", "grid_series", "BLOCK"]
 
 #: Grid recurrences are restarted from directly computed exponentials every ``BLOCK`` nodes.
 BLOCK = 48
+
+
+@lru_cache(maxsize=None)
+def _pole_order(sines) -> int:
+    return -sum(e for p, e in sines if e < 0)
 
 
 @dataclass(frozen=True)
@@ -49,7 +55,7 @@ class RootFunction:
     @property
     def pole_order(self) -> int:
         """Largest order of a pole at an integer (at most ``-sum of negative e``)."""
-        return -sum(e for p, e in self.sines if e < 0)
+        return _pole_order(self.sines)
 
 
 @dataclass
