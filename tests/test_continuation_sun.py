@@ -158,6 +158,8 @@ def test_closed_form_equals_trapezoid_rule_on_the_rotated_cartan(space, K, dg):
 @pytest.mark.parametrize("kwargs,exc,words", [
     (dict(space="Sigma(2,3,5)", group="SU(4)", K="7.5+0.3i"), PolesNotCoveredError, ["2, 3, 5", "SU(4)"]),
     (dict(space="Sigma(2,3,5)", group="SU(3)", K=6, method="closed"), DomainError, ["'closed'", "poles", "'residues'"]),
+    (dict(space="M(0; -1; (2,1), (3,1), (5,1), (7,1))", group="SU(3)", K=6), PolesNotCoveredError, ["2, 3, 5, 7", "four or more"]),
+    (dict(space="M(0; -1; (2,1), (3,1), (5,2))", group="SU(3)", K=6), SizeLimitError, ["line integrals"]),
     (dict(space="L(5,1)", group="SU(3)", K=6, method="residues"), DomainError, ["'residues'", "no poles"]),
     (dict(space="Sigma(2,3,5)", group="SU(3)", K="-5i"), DomainError, ["cut", "-pi/2"]),
     (dict(space="-Sigma(2,3,5)", group="SU(3)", K="5i"), DomainError, ["cut", "+pi/2"]),

@@ -1,19 +1,18 @@
 r"""``Z(K)`` of SU(N) Chern–Simons theory on a Seifert manifold at complex shifted level ``K``.
 
 CONVENTIONS §18 (docs/continuation_sun.md).  The finite-level value is the Gauss sum over the
-weight lattice of :mod:`.data`; for the manifolds covered here (base genus 0, ``H != 0``, at
-most two exceptional orders ``> 1``, orders pairwise coprime: the lens spaces) its integrand is
-entire, and Lawrence–Rozansky's argument gives ``|H|^r`` Gaussian integrals over the rotated
-Cartan and no residues.  They are evaluated in closed form (:mod:`.gaussian`) or by the trapezoid
-rule (:mod:`.quadrature`); each route runs twice (``digits + 3`` and ``digits + 12`` digits, and
-for the trapezoid rule different steps and cut-offs) and the two runs must agree.
+weight lattice of :mod:`.data`.  With at most two exceptional orders ``> 1`` (the lens spaces)
+its integrand is entire, and Lawrence–Rozansky's argument gives ``|H|^r`` Gaussian integrals over
+the rotated Cartan and no residues: closed form (:mod:`.gaussian`) or trapezoid rule
+(:mod:`.quadrature`).  For SU(3) with three exceptional orders the integrand has poles on the root
+hyperplanes, and :mod:`.poles` adds the line integrals of residues and the iterated residues
+(§18.7, ``method="residues"``; ``"auto"`` picks it).  Each route runs twice (``digits + 3`` and
+``digits + 12`` digits, with different steps and cut-offs) and the two runs must agree.
 
 Refused, with a message naming the case: base genus ``g >= 1``, ``H = 0``, orders sharing a
-factor, and — for ``N >= 3`` — three or more exceptional orders ``> 1`` (``h`` then has poles on
-the root hyperplanes, and the residue recursion over their intersections is not implemented;
-docs/continuation_sun.md §18.4 says what is missing).  SU(2) on every Seifert rational homology
-sphere with coprime orders is :func:`knotobs.continuation.level.continued_partition_function`.
-"""
+factor, four or more exceptional orders for SU(3) and three or more for ``N >= 4``
+(docs/continuation_sun.md §18.4), ``K`` on the cut of §18.7.  SU(2) on every Seifert rational
+homology sphere with coprime orders is :func:`knotobs.continuation.level.continued_partition_function`."""
 
 from __future__ import annotations
 
@@ -59,18 +58,25 @@ def _group_N(group) -> int:
 
 
 def _covered(d: CartanData) -> None:
-    if not d.entire and d.N != 3:
-        orders = ", ".join(map(str, d.big_orders))
-        hint = ("the SU(2) continuation with its residue terms is knotobs.continuation.level."
-                "continued_partition_function (knotobs continue without --group)" if d.N == 2 else
-                "SU(2) and SU(3) cover it (--group 'SU(3)'); for SU(N) the finite levels are computed by"
-                " 'knotobs space ... --group SU(N) --level k'")
+    if d.entire or (d.N == 3 and len(d.big_orders) == 3):
+        return
+    orders = ", ".join(map(str, d.big_orders))
+    if d.N == 3:
         raise PolesNotCoveredError(
-            f"{d.space} has {len(d.big_orders)} exceptional orders > 1 ({orders}): for SU({d.N}) the"
-            " integrand has poles on the root hyperplanes of a rank-3 or higher Cartan, whose residue"
-            " recursion is not implemented (SU(3), rank 2, is: docs/continuation_sun.md §18.7);"
-            f" {hint}"
-        )
+            f"{d.space} has {len(d.big_orders)} exceptional orders > 1 ({orders}): the SU(3) continuation"
+            " with poles is built and tested for three exceptional fibers (docs/continuation_sun.md"
+            " §18.7); with four or more the poles have higher order and it is not run; the finite"
+            " levels are computed by 'knotobs space ... --group SU(3) --level k'")
+    hint = ("the SU(2) continuation with its residue terms is knotobs.continuation.level."
+            "continued_partition_function (knotobs continue without --group)" if d.N == 2 else
+            "SU(2) and, with three exceptional fibers, SU(3) cover it; for SU(N) the finite levels are"
+            " computed by 'knotobs space ... --group SU(N) --level k'")
+    raise PolesNotCoveredError(
+        f"{d.space} has {len(d.big_orders)} exceptional orders > 1 ({orders}): for SU({d.N}) the"
+        " integrand has poles on the root hyperplanes of a Cartan of rank 3 or more, whose residue"
+        " recursion is not implemented (rank 2, SU(3), is: docs/continuation_sun.md §18.7);"
+        f" {hint}"
+    )
 
 
 def _method(d: CartanData, method: str) -> str:
@@ -258,13 +264,14 @@ class CartanContinuedValue(NotebookMixin):
 
 def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None, digits: int = 30,
                                      phases: str = "reduced", method: str = "auto") -> CartanContinuedValue:
-    """SU(N) partition function of a Seifert lens space at complex level (CONVENTIONS §18).
+    """SU(N) partition function of a Seifert manifold at complex level (CONVENTIONS §18).
 
     Parameters
     ----------
     space : str or SeifertManifold
-        Base genus 0, ``H != 0``, at most two exceptional orders ``> 1``, coprime
-        (``"L(5,1)"``, ``"L(7,2)"``, ``"M(0; 1; (2,1), (3,1))"``, ``"S^3"``).
+        Base genus 0, ``H != 0``, coprime orders: at most two exceptional orders ``> 1``
+        (``"L(5,1)"``, ``"L(7,2)"``, ``"M(0; 1; (2,1), (3,1))"``, ``"S^3"``), or, for SU(3), three
+        (``"Sigma(2,3,5)"``, §18.7).
     group : str
         ``"SU(N)"``, ``N >= 2``.
     level, K : complex or str
@@ -274,8 +281,10 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
         The sector of ``u`` carries ``exp(2 pi i K cs(u))``; reduced takes ``cs`` in
         ``(-1/2, 1/2]`` (the continuation of smallest exponential type), the other keeps
         ``cs = P |u|^2/(2H)``.  Equal at every integer ``K``.
-    method : ``"closed"``, ``"quadrature"`` or ``"both"``
-        Closed-form Gaussians, the trapezoid rule on the rotated Cartan, or both compared.
+    method : ``"auto"`` (default), ``"closed"``, ``"quadrature"``, ``"both"`` or ``"residues"``
+        Without poles: closed-form Gaussians, the trapezoid rule on the rotated Cartan, or both
+        compared (``auto`` = ``closed``); with poles (SU(3), three orders): the two-family
+        residue formula of §18.7 (``auto`` = ``residues``).
 
     Returns
     -------
