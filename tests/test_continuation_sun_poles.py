@@ -18,7 +18,7 @@ import mpmath
 import pytest
 
 from knotobs.continuation.cartan import continued_sun_partition_function
-from knotobs.continuation.cartan.poles import partial_fraction_terms
+from knotobs.continuation.cartan.poles import merged_terms, partial_fraction_terms
 from knotobs.evaluation.root_convolution import convolution_partition_function
 from knotobs.guard import limits
 from knotobs.localisation import localisation_partition_function
@@ -29,7 +29,7 @@ def _S(y: complex) -> complex:
 
 
 def _root_fn(f, y: complex) -> complex:
-    v = f.sign * cmath.exp(1j * cmath.pi * float(f.a) * y)
+    v = sum(c * cmath.exp(1j * cmath.pi * float(a) * y) for c, a in f.exps)
     for p, e in f.sines:
         v *= _S(y / p) ** e
     return v
@@ -42,6 +42,7 @@ def test_partial_fractions_reproduce_the_sine_ratio(orders):
     rnd = random.Random(5)
     n = len(orders)
     terms = partial_fraction_terms(orders)
+    merged = merged_terms(orders)
     for _ in range(5):
         x1 = complex(rnd.uniform(-2, 2), rnd.uniform(-0.5, 0.5))
         x2 = complex(rnd.uniform(-2, 2), rnd.uniform(-0.5, 0.5))
@@ -55,6 +56,12 @@ def test_partial_fractions_reproduce_the_sine_ratio(orders):
             w = t.basis[1][0] * x1 + t.basis[1][1] * x2
             got += _root_fn(t.A, u) * _root_fn(t.B, w) * _root_fn(t.C, u + w)
         assert abs(got - want) < 1e-9 * max(1, abs(want))
+        # the merged terms: B carries both exponentials, evaluated in the first term's coordinates
+        # (the sums of §18.7 use only the box and the pole lines, common to both)
+        u, w = x1, x2
+        got = sum(_root_fn(t.A, u) * _root_fn(t.B, w) * _root_fn(t.C, u + w) for t in merged)
+        assert abs(got - sum(_root_fn(t.A, u) * _root_fn(t.B, w) * _root_fn(t.C, u + w) for t in terms)) \
+            < 1e-9 * max(1, abs(want))
     # every term has poles on two root families only
     assert all(not any(e < 0 for _, e in t.C.sines) for t in terms)
 

@@ -41,7 +41,8 @@ def _pole_order(sines) -> int:
 
 @dataclass(frozen=True)
 class RootFunction:
-    """``sign exp(i pi a y) prod_p (2i sin(pi y/p))^e`` (the Gaussian and ``s`` come with the call).
+    """``sign exp(i pi a y) prod_p (2i sin(pi y/p))^e`` (the Gaussian and ``s`` come with the call),
+    optionally with further exponentials in the prefactor (``extra``).
 
     >>> f = RootFunction(1, Fraction(1, 2), ((1, -1), (3, 1)))
     >>> f.pole_order
@@ -51,6 +52,14 @@ class RootFunction:
     sign: int
     a: Fraction
     sines: tuple[tuple[int, int], ...]
+    #: further terms ``(coefficient, a')`` of the exponential prefactor: ``f`` is
+    #: ``(sign e^{i pi a y} + sum c e^{i pi a' y}) prod_p (2i sin(pi y/p))^e``
+    extra: tuple[tuple[int, Fraction], ...] = ()
+
+    @property
+    def exps(self) -> tuple[tuple[int, Fraction], ...]:
+        """The exponential prefactor as ``((coefficient, a), ...)``."""
+        return ((self.sign, self.a),) + tuple(self.extra)
 
     @property
     def pole_order(self) -> int:
@@ -101,7 +110,7 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
     """
     ipi = sc.ipi
     val = 0
-    out = [acb(f.sign)] + [acb(0)] * (n - 1)
+    out = [acb(1)] + [acb(0)] * (n - 1)
     for p, e in f.sines:
         if m % p == 0:
             # 2i sin(pi (m + x)/p) = (-1)^(m/p) 2i sin(pi x/p) = x * [(-1)^(m/p) 2i sin(pi x/p)/x]
@@ -113,8 +122,11 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
             sn = ser_sin(arb.pi() * m / p, arb.pi() / p, n)
             ser = [acb(0, 2) * t for t in sn]
         out = ser_mul(out, _power(ser, e, n), n)
-    lin = ipi * _q(f.a) - sc.tpiK * s
-    g = ser_exp([lin * m - ipi * sc.c * (m * m), lin - 2 * ipi * sc.c * m, -ipi * sc.c], n)
+    g = [acb(0)] * n
+    for co, a in f.exps:
+        lin = ipi * _q(a) - sc.tpiK * s
+        gi = ser_exp([lin * m - ipi * sc.c * (m * m), lin - 2 * ipi * sc.c * m, -ipi * sc.c], n)
+        g = [x + co * y for x, y in zip(g, gi)]
     out = ser_mul(out, g, n)
     if kernel:
         # k(x) = (1/(2 pi i K x)) * X/(1 - e^-X), X = 2 pi i K x
@@ -148,7 +160,10 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
     if L > 3:
         raise ValueError("grid_series: Taylor length > 3 is not needed here")
     ipi = sc.ipi
-    lin = ipi * _q(f.a) - sc.tpiK * s
+    if f.extra and L > 1:
+        raise ValueError("grid_series: Taylor coefficients of a sum of exponentials are not needed here")
+    lins = [(co, ipi * _q(a) - sc.tpiK * s) for co, a in f.exps]
+    lin = lins[0][1]
     quad = -ipi * sc.c
     out: list[list[acb]] = []
     total = 2 * J + 1
@@ -171,8 +186,21 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
             iR = [1 / Rk for Rk in R]
             pos = [(k, e) for k, (p, e) in enumerate(sines) if e > 0]
             neg = [(k, -e) for k, (p, e) in enumerate(sines) if e < 0]
+            gs = [(quad * y * y + ln * y).exp() for _, ln in lins]
+            rhos = [(quad * (2 * y * step + step * step) + ln * step).exp() for _, ln in lins]
+            cos_ = [co for co, _ in lins]
+            single = len(lins) == 1
             for t in range(nb):
-                v = g if sign == 1 else -g
+                if single:
+                    v = gs[0] if cos_[0] == 1 else cos_[0] * gs[0]
+                    gs[0] = gs[0] * rhos[0]
+                    rhos[0] = rhos[0] * Q2
+                else:
+                    v = acb(0)
+                    for i in range(len(gs)):
+                        v += cos_[i] * gs[i]
+                        gs[i] = gs[i] * rhos[i]
+                        rhos[i] = rhos[i] * Q2
                 for k, e in pos:
                     sv = E[k] - iE[k]
                     v = v * sv if e == 1 else v * sv ** e
@@ -182,8 +210,6 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
                     sv = sv if e == 1 else sv ** e
                     den = sv if den is None else den * sv
                 out.append([v if den is None else v / den])
-                g = g * rho
-                rho = rho * Q2
                 E = [Ek * Rk for Ek, Rk in zip(E, R)]
                 iE = [Ek * Rk for Ek, Rk in zip(iE, iR)]
             j += nb
