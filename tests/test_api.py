@@ -75,7 +75,7 @@ def test_one_argument_order_and_old_forms():
     (lambda: knotobs.level_loop("T(2,3)", "SU(2)", 2.5), "integer"),
     (lambda: knotobs.level_loop(None, "SU(2)", 3, space="Sigma(2,3,5)", fiber=0), "1..n"),
     (lambda: knotobs.flat_connections("Sigma(2,3,5)", "U(2)"), "SU(N)"),
-    (lambda: knotobs.continued_partition_function("Sigma(2,3,5)", "SU(3)", 3.5), "SU(2)"),
+    (lambda: knotobs.continued_partition_function("Sigma(2,3,5)", "SU(4)", 3.5), "SU(2)"),
     (lambda: knotobs.wilson_loop("T(2,3)", "SU(2)", nonsense=1), "nonsense"),
 ])
 def test_only_knotobs_errors(call, needle):

@@ -234,7 +234,7 @@ CASES = [
     ("continue", "--couplings", ["continue", "T(2,3)", "--couplings", "10+2i,10-2i", "-d", "10"], ["continue", "T(2,3)", "--couplings", "12+2i,12-2i", "-d", "10"], "changes"),
     ("continue", "--couplings", None, ["continue", "Sigma(2,3,5)", "-k", "3.5", "--couplings", "10,10"], "refused:--level"),
     ("continue", "--group", ["continue", "T(2,3)", "--couplings", "10+2i,10-2i", "-d", "10"], ["continue", "T(2,3)", "--couplings", "10+2i,10-2i", "-d", "10", "-g", "SL(3,C)"], "changes"),
-    ("continue", "--group", None, ["continue", "Sigma(2,3,5)", "-k", "3.5", "-g", "SU(3)"], "refused"),
+    ("continue", "--group", None, ["continue", "Sigma(2,3,5)", "-k", "3.5", "-g", "SU(4)"], "refused"),
     ("continue", "--group", ["continue", "L(5,1)", "-k", "3.5", "-d", "10"], ["continue", "L(5,1)", "-k", "3.5", "-d", "10", "-g", "SU(3)"], "changes"),
     ("continue", "--group", None, ["continue", "L(5,1)", "-k", "3.5", "-g", "SO(3)"], "refused"),
     ("continue", "--K", ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "10", "--json"], ["continue", "L(5,1)", "-g", "SU(3)", "--K", "6.5", "-d", "10", "--json"], "same-numeric"),
