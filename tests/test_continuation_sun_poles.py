@@ -110,6 +110,20 @@ def test_reversed_orientation_at_integer_K():
     assert _agree(z.numeric, loc, 20)
 
 
+def test_holomorphic_in_K_by_the_cauchy_riemann_equations():
+    # f'(K) from a real and from an imaginary step must agree for a holomorphic f (common
+    # practice); |Z| (not holomorphic) fails the same test.  The Cauchy-integral form is the
+    # slow test below.
+    eps = mpmath.mpf("1e-4")
+    k0 = mpmath.mpc(10.5, 0.3)
+    f0, fr, fu = _z(k0, 10).numeric, _z(k0 + eps, 10).numeric, _z(k0 + 1j * eps, 10).numeric
+    d_re, d_im = (fr - f0) / eps, (fu - f0) / (1j * eps)
+    assert abs(d_re - d_im) < 1e-2 * abs(d_re)
+    a_re, a_im = (abs(fr) - abs(f0)) / eps, (abs(fu) - abs(f0)) / (1j * eps)
+    assert abs(a_re - a_im) > 0.3 * abs(a_re)
+
+
+@pytest.mark.slow
 def test_holomorphic_between_integers_by_cauchys_integral_formula():
     # the mean of a holomorphic function over a circle is its value at the centre, and its contour
     # integral vanishes (Cauchy; the trapezoid rule on the circle converges geometrically);

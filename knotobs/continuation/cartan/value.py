@@ -104,7 +104,8 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     if method == "residues":
         ops, what = pole_cost(d.big_orders, d.H, d.P, complex(Kv), digits + 12)
         sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
-        return sec, 50 + ops * 1e-4, f"{where} ({what})"
+        # cached grids and Laurent data: about one ball per 10 operations, ~150 bytes each
+        return sec, 40 + ops * 15e-6, f"{where} ({what})"
     terms = gaussian_terms(d)
     sec = ball_seconds(2 * terms * 4, digits + 12) / 3.0
     what = f"{where} ({terms:.3g} exponentials" if terms > 10 ** 9 else f"{where} ({terms} exponentials"
