@@ -36,7 +36,7 @@ import math
 from fractions import Fraction
 from functools import lru_cache
 
-from flint import acb, acb_poly, arb
+from flint import acb, acb_mat, acb_poly, arb
 
 from knotobs.ball_series import ser_inv, ser_mul
 from knotobs.continuation.cartan.rootfn import RootFunction, Scale, grid_series, laurent
@@ -203,6 +203,8 @@ class _Eval:
         self.out: dict[Fraction, acb] = {}
         self._lc: dict = {}
         self._gc: dict = {}
+        self._dc: dict = {}
+        self._mc: dict = {}
         self._ex: dict = {}
         self.Dc = 24 * P * H * H
         self._pmax = max(term.A.pole_order, term.B.pole_order)
@@ -286,6 +288,34 @@ class _Eval:
         return tot
 
     # the pole-corrected trapezoid rule on y0 + tau s ------------------------------
+    def _mat(self, which: str, y0: Fraction, s: int, L: int, row: bool = False) -> acb_mat:
+        """A grid as an ``acb_mat`` (``1 x n`` values, or ``n x L`` Taylor coefficients; cached)."""
+        key = (which, y0, s, L, row)
+        M = self._mc.get(key)
+        if M is None:
+            g = self.grid(which, y0, s, L)
+            if row:
+                M = acb_mat(1, len(g), [x[0] for x in g])
+            else:
+                M = acb_mat(len(g), L, [x for r in g for x in r[:L]])
+            self._mc[key] = M
+        return M
+
+    def _dots(self, fint: str, y0: Fraction, s_int: int, m: int, L: int) -> list[acb]:
+        """``[sum_j F(y_j) gamma_l(m + y_j)]_{l < L}``: the trapezoid sums of a line through ``y0``
+        against each Taylor coefficient of ``C`` (cached: lines that differ only in the Laurent data
+        of the fixed variable share them), all from one matrix product."""
+        key = (fint, y0, s_int, m)
+        D = self._dc.get(key)
+        if D is not None and len(D) >= L:
+            return D
+        Fm = self._mat(fint, y0, s_int, 1, row=True)
+        Cm = self._mat("C", y0 + m, 0, L)
+        R = Fm * Cm                                     # one C-level product for all L sums
+        D = [R[0, l] for l in range(L)]
+        self._dc[key] = D
+        return D
+
     def _trap(self, y0: Fraction, vals, laur) -> acb:
         """``int_{C_y0} g`` from ``vals = [g(y0 + j lstep)]`` and ``laur(k) = (v, coeffs)`` of ``g`` at
         the integer ``k`` (``None`` when regular): the trapezoid sum minus, for each pole near the
@@ -354,15 +384,11 @@ class _Eval:
                 self._add(ph, factor * sg * self.twopii * val)
         # the integral through y0
         L = -v
-        Fv = self.grid(fint, y0, s_int, 1)
-        Cv = self.grid("C", y0 + m, 0, L)
-        vals = []
-        for fv, cv in zip(Fv, Cv):
-            r = acb(0)
-            for i in range(L):
-                r += a[i] * cv[L - 1 - i]
-            vals.append(fv[0] * r)
-        tot = self._trap(y0, vals, self._line_laurent(fixed, m, s_fix, k_fix, s_int, a, v))
+        D = self._dots(fint, y0, s_int, m, L)
+        total = acb(0)
+        for i in range(L):
+            total += a[i] * D[L - 1 - i]
+        tot = self._trap(y0, [total], self._line_laurent(fixed, m, s_fix, k_fix, s_int, a, v))
         # constant factor of the fixed variable is in a (its Laurent data includes it)
         if fixed == "A":
             ph = self._gphase(m, ystar, s_fix, s_int)
