@@ -412,6 +412,25 @@ def _interpret(c: int, e, vs, theta_t: MPoly | None) -> tuple[int, str | None]:
     return 0, str(mono)
 
 
+#: Seconds per term of one convention map tried on a mismatch (substitution, monomial alignment
+#: and the difference of two sparse polynomials with rational exponents; measured: a torus knot
+#: whose Jones polynomial has 10^4 terms takes ~15 s for its 12 maps).
+SECONDS_PER_TERM_AND_MAP = 1.5e-4
+
+
+def _require_search(k, target: MPoly, fam: _Family, want_closest: bool) -> None:
+    """Refuses, before it starts, a search whose estimate exceeds the limits (:mod:`knotobs.guard`)."""
+    from knotobs.guard import require
+
+    terms = max([len(form.terms) for _, form in fam.forms] + [len(target.terms)])
+    nmaps = len(fam.var_maps) * len(fam.forms)
+    # only a mismatch runs the alignment on every map; a match costs one substitution per map
+    sec = nmaps * terms * SECONDS_PER_TERM_AND_MAP * (1.0 if want_closest else 0.3)
+    require(f"comparing {k} ({fam.name}, {terms} terms) under {nmaps} convention maps", seconds=sec,
+            memory_mb=terms * nmaps * 400 / 1e6,
+            accepted="a smaller knot or a polynomial with fewer terms")
+
+
 def _search(target: MPoly, fam: _Family, want_closest: bool = True):
     found: list[ConventionMap] = []
     n = len(target.terms)
@@ -575,6 +594,7 @@ def compare(knot, target, group="SU(2)", rep=(1,), invariant: str = "auto",
         cols = tuple(g.check(c) for c in cols)
     tp = _target_mpoly(target, variables)
     fam = _choose_family(tp, inv, k, g, cols)
+    _require_search(k, tp, fam, _closest)
     maps, closest = _search(tp, fam, _closest)
     base = dict(knot=str(k), invariant=fam.name, group=fam.group, representation=fam.rep,
                 target=str(tp), computed=fam.computed, computed_profile=fam.profile, source=source)
