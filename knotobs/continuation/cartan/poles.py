@@ -473,27 +473,22 @@ class _Eval:
 
         cu = corr("A", u0, s, pa)
         cw = corr("B", w0, r, pb)
-        # E_u (x) Q_w and Q_u (x) E_w
-        for k, sg, v, a in cu:
-            L = -v
-            Cg = self.grid("C", k + w0, 0, L, J=J)
-            acc = acb(0)
-            for bj, cg in zip(Bv, Cg):
-                rr = acb(0)
-                for i in range(L):
-                    rr += a[i] * cg[L - 1 - i]
-                acc += bj * rr
-            tot -= sg * tpi * acc * h
-        for k, sg, v, b in cw:
-            L = -v
-            Cg = self.grid("C", u0 + k, 0, L, J=J)
-            acc = acb(0)
-            for ai, cg in zip(Av, Cg):
-                rr = acb(0)
-                for i in range(L):
-                    rr += b[i] * cg[L - 1 - i]
-                acc += ai * rr
-            tot -= sg * tpi * acc * h
+        # E_u (x) Q_w and Q_u (x) E_w: the pole errors of one variable, summed over the other's nodes
+        def edge(corrs, other0: Fraction, other_vals) -> acb:
+            out = acb(0)
+            for k, sg, v, a in corrs:
+                L = -v
+                Cg = self.grid("C", k + other0, 0, L, J=J)
+                acc = acb(0)
+                for x, cg in zip(other_vals, Cg):
+                    rr = acb(0)
+                    for i in range(L):
+                        rr += a[i] * cg[L - 1 - i]
+                    acc += x * rr
+                out += sg * acc
+            return out
+
+        tot -= tpi * h * (edge(cu, w0, Bv) + edge(cw, u0, Av))
         # E_u (x) E_w
         for k, sg, v1, a in cu:
             for kp, sg2, v2, b in cw:
