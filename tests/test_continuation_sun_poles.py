@@ -123,6 +123,20 @@ def test_holomorphic_in_K_by_the_cauchy_riemann_equations():
     assert abs(a_re - a_im) > 0.3 * abs(a_re)
 
 
+def test_far_from_the_real_axis_the_digits_are_confirmed_and_z_is_holomorphic():
+    # at K = 3 - 5i the sectors differ in size by exp(2 pi |Im K| |phi|) ~ 10^6 and Z is large;
+    # the route adds guard digits for that (without them 30 digits were not confirmed), and the
+    # Cauchy-Riemann equations hold there too (common practice)
+    k0 = mpmath.mpc(3, -5)
+    z = _z(k0, 30)
+    assert abs(z.numeric) > 1e6
+    eps = mpmath.mpf("1e-4")
+    f0, fr, fu = _z(k0, 10).numeric, _z(k0 + eps, 10).numeric, _z(k0 + 1j * eps, 10).numeric
+    d_re, d_im = (fr - f0) / eps, (fu - f0) / (1j * eps)
+    assert abs(d_re - d_im) < 1e-2 * abs(d_re)
+    assert _agree(f0, z.numeric, 10)
+
+
 @pytest.mark.slow
 def test_holomorphic_between_integers_by_cauchys_integral_formula():
     # the mean of a holomorphic function over a circle is its value at the centre, and its contour

@@ -102,7 +102,8 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     """
     where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
     if method == "residues":
-        ops, what = pole_cost(d.big_orders, d.H, d.P, complex(Kv), digits + 12)
+        extra = int(math.ceil(math.pi * abs(float(Kv.imag)) / math.log(10))) + 2    # as in _sectors
+        ops, what = pole_cost(d.big_orders, d.H, d.P, complex(Kv), digits + 12 + extra)
         sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
         # cached grids and Laurent data: about one ball per 10 operations, ~150 bytes each
         return sec, 40 + ops * 15e-6, f"{where} ({what})"
@@ -148,15 +149,19 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
     Kv = resolve_K(level, K, N)
     runs = {}
 
+    # with poles the sectors are exp(2 pi i K phi), |phi| <= 1/2: at complex K they differ in size
+    # by up to exp(2 pi |Im K| |phi|), and their sum is then smaller than its largest term
+    extra = int(math.ceil(math.pi * abs(float(Kv.imag)) / math.log(10))) + 2 if method == "residues" else 0
+
     def comp(dg):
-        with working_bits(bits(dg)):
+        with working_bits(bits(dg + extra)):
             Ka = to_acb(resolve_K(level, K, N))          # read again at this precision
             if method == "closed":
                 s = gaussian_sectors(d, Ka, reduced)
             elif method == "residues":
                 pre = B_N(d, Ka) / (Ka * Ka)
                 s = {}
-                for phi, v in pole_sum_sectors(d.big_orders, d.H, d.P, Ka, dg, reduced).items():
+                for phi, v in pole_sum_sectors(d.big_orders, d.H, d.P, Ka, dg + extra, reduced).items():
                     key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
                     s[key] = s.get(key, acb(0)) + pre * v
             else:
