@@ -137,3 +137,19 @@ def test_bad_input():
         compare("T(2,3)", "t", invariant="bracket")
     with pytest.raises(ParseError, match="Kauffman polynomial is written in a and z"):
         compare("T(2,3)", "t", invariant="kauffman")          # known since issue #13
+
+
+def test_an_oversized_comparison_is_refused_before_the_search():
+    # T(9999,10000): a Jones polynomial of 10^4 terms under 12 convention maps, about 15 s of
+    # search; with a 2 s limit it must be refused by its estimate at once, naming the size
+    import time
+
+    from knotobs.errors import SizeLimitError
+    from knotobs.guard import limits
+
+    t = time.perf_counter()
+    with limits(seconds=2), pytest.raises(SizeLimitError) as e:
+        compare("T(9999,10000)", "t + t^3 - t^4")
+    assert time.perf_counter() - t < 5
+    assert "terms" in str(e.value) and "convention maps" in str(e.value)
+    assert compare("T(2,3)", "t + t^3 - t^4").equal        # small ones are untouched

@@ -29,7 +29,7 @@ from flint import acb, arb
 
 from knotobs.continuation.cartan.data import B_N, CartanData, weyl_vectors
 
-__all__ = ["gaussian_sectors", "gaussian_terms", "ia_power", "root_vectors"]
+__all__ = ["gaussian_sectors", "gaussian_terms", "ia_power", "root_vectors", "abelian_cs", "abelian_cs_values"]
 
 
 def _sym(x: Fraction) -> Fraction:
@@ -48,6 +48,24 @@ def root_vectors(N: int, H: int) -> list[tuple[int, ...]]:
     for t in itertools.product(range(abs(H)), repeat=r):
         out.append(tuple((t[i] if i < r else 0) - (t[i - 1] if i > 0 else 0) for i in range(N)))
     return out
+
+
+def abelian_cs(P: int, H: int, u) -> Fraction:
+    """Chern–Simons value ``P |u|^2/(2H)`` of the abelian flat connection ``u in Q/HQ`` (§18.2).
+
+    >>> abelian_cs(1, 5, (1, -1, 0))
+    Fraction(1, 5)
+    """
+    return Fraction(P * sum(ui * ui for ui in u), 2 * H)
+
+
+def abelian_cs_values(d: CartanData) -> frozenset:
+    """The CS values mod 1 of all abelian flat connections (``u in Q/HQ``).
+
+    >>> sorted(str(c) for c in abelian_cs_values(CartanData.from_space("L(5,1)", 3)))
+    ['0', '1/5', '2/5', '3/5', '4/5']
+    """
+    return frozenset(abelian_cs(d.P, d.H, u) % 1 for u in root_vectors(d.N, d.H))
 
 
 def gaussian_terms(d: CartanData) -> int:
@@ -120,7 +138,7 @@ def gaussian_sectors(d: CartanData, K: acb, reduced: bool = True) -> dict[Fracti
             x = Fraction(-P) * sum(ci * ui for ci, ui in zip(c, u)) / H      # exp(2 pi i x)
             x = x % 1
             amp += e * (2 * ipi * x.numerator / x.denominator).exp()
-        cs = Fraction(P * sum(ui * ui for ui in u), 2 * H)
+        cs = abelian_cs(P, H, u)
         ph = _sym(cs) if reduced else cs
         val = pref * amp * (2 * ipi * K * ph.numerator / ph.denominator).exp()
         key = cs % 1

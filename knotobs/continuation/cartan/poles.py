@@ -34,7 +34,6 @@ from __future__ import annotations
 
 import math
 from fractions import Fraction
-from functools import lru_cache
 
 from flint import acb, acb_mat, acb_poly, arb
 
@@ -135,30 +134,32 @@ def _between(a: Fraction, b: Fraction) -> tuple[int, list[int]]:
     return -1, list(range(math.ceil(b), math.floor(a) + 1))
 
 
-def _reduce(phi: Fraction) -> int:
-    """The integer ``n`` with ``phi - n`` in ``(-1/2, 1/2]``."""
-    a, b = phi.numerator, phi.denominator
-    n = (2 * a + b) // (2 * b)
-    if 2 * (a - n * b) == -b:
-        n -= 1
-    return n
+def pole_plan(sin_theta: float, c_abs: float, digits: int, growth: float) -> tuple[float, float, float, float]:
+    """Quadrature plan of a line integral with Gaussian ``exp(-pi b s^2)``, ``b = 2 |c|``, and
+    sines growing like ``exp(growth |s|)``: ``(h_fine, h, S, T)``.
 
+    ``h`` is the step of the pole-corrected trapezoid rule (aliasing ``exp(-pi/(b h^2) + growth/(b h))``
+    below ``e^-T``), ``S`` the half-length of the line, ``h_fine`` the plain rule's step (below the
+    pole distance ``|sin theta|/2``; the check of the plane uses it), ``T`` the target in nats.
 
-def pole_plan(absK: float, sin_theta: float, c_abs: float, digits: int, growth: float) -> tuple[float, float]:
-    """Trapezoid step ``h`` and the half-length ``S`` of a line integral with Gaussian
-    ``exp(-pi b s^2)``, ``b = 2 |c|`` (the line integrals; the plane uses its smallest direction).
-
-    >>> h, S = pole_plan(30.0, 0.7, 0.33, 30, 6.0)
-    >>> 0 < h < 0.05 and S > 3
+    >>> hf, h, S, T = pole_plan(0.7, 0.33, 30, 6.0)
+    >>> 0 < hf < 0.05 < h and S > 3
     True
     """
     T = math.log(10) * (digits + 6) + 8
-    dist = abs(sin_theta) / 2
-    h = 2 * math.pi * dist / (T + 2)
     b = 2 * c_abs
-    g = growth
-    S = (g + math.sqrt(g * g + 4 * math.pi * b * T)) / (2 * math.pi * b)
-    return h, S
+    root = math.sqrt(growth * growth + 4 * math.pi * b * T)
+    h_fine = 2 * math.pi * (abs(sin_theta) / 2) / (T + 2)
+    h = 2 * math.pi / (growth + root)
+    S = (growth + root) / (2 * math.pi * b)
+    return h_fine, h, S, T
+
+
+def _growth(st: float, cabs: float, rates: float) -> float:
+    """``growth`` of :func:`pole_plan`: the sines grow like ``exp(pi |Im y| rate)``,
+    ``Im y = s sin(theta)``; the offset of the contour from the saddle (at most 1/2 plus the shift by
+    the linear exponentials) adds about ``3 pi |c| |s|``."""
+    return math.pi * st * rates + 3 * math.pi * cabs + 1
 
 
 class _Eval:
@@ -180,24 +181,16 @@ class _Eval:
             # |2i sin(pi y/p)|^e ~ exp(e pi |Im y|/p) once |Im y| >~ 1/2 (denominators decay)
             return max(0.0, sum(e / p for p, e in f.sines)) + max(abs(float(a)) for _, a in f.exps)
 
-        # |integrand| <= exp(-pi b s^2 + growth |s|) on a line: the sines grow like
-        # exp(pi |Im y| / p), Im y = s sin(theta); the offset of the contour from the saddle
-        # (at most 1/2 plus the shift by the linear exponentials) adds 4 pi |c| |s|.
-        growth = math.pi * st * (max(rate(term.A), rate(term.B)) + rate(term.C)) + 3 * math.pi * cabs + 1
-        self.h, self.S = pole_plan(float(abs(complex(K.mid()))), math.sin(theta), cabs, digits, growth)
-        self.J = int(math.ceil(self.S / self.h))
-        # the plane: exp(-pi |c| Q), Q >= 1.5 s^2 on the boundary of the square
+        growth = _growth(st, cabs, max(rate(term.A), rate(term.B)) + rate(term.C))
+        self.h, self.hl, self.S, T = pole_plan(math.sin(theta), cabs, digits, growth)
+        # the plain rule for the plane (a check): exp(-pi |c| Q), Q >= 1.5 s^2 on the square's boundary
         self.J2 = int(math.ceil(self.S * math.sqrt(2 / 1.5) / self.h))
         self.step = self.tau * arb(self.h)
         # line integrals: the pole-corrected trapezoid rule (step limited by the Gaussian only)
-        T = math.log(10) * (digits + 6) + 8
-        b = 2 * cabs
-        gam = growth
-        self.hl = 2 * math.pi / (gam + math.sqrt(gam * gam + 4 * math.pi * b * T))
         self.Jl = int(math.ceil(self.S / self.hl))
         self.lstep = self.tau * arb(self.hl)
         self.alpha = 2 * acb(0, 1) * arb.pi() / self.lstep
-        self.window = (T + 20) * self.hl / (2 * math.pi * abs(math.sin(theta)))
+        self.window = (T + 20) * self.hl / (2 * math.pi * st)
         self.twopii = 2 * acb(0, 1) * pi
         self.K = K
         self.out: dict[Fraction, acb] = {}
@@ -207,7 +200,6 @@ class _Eval:
         self._mc: dict = {}
         self._ex: dict = {}
         self.Dc = 24 * P * H * H
-        self._pmax = max(term.A.pole_order, term.B.pole_order)
         self._nl = term.A.pole_order + term.B.pole_order + 2
 
     # phases ------------------------------------------------------------
@@ -236,9 +228,9 @@ class _Eval:
         return -self.H * (U * U + W * W + (U + W) ** 2) - 12 * self.P * self.H * (s * U + r * W)
 
     # Laurent data (cached) ---------------------------------------------
-    def lau(self, which: str, m: int, s: int, kernel: bool, n: int = 0):
+    def lau(self, which: str, m: int, s: int, kernel: bool):
         """Laurent data of a factor at the integer ``m`` (cached; always ``pa + pb + 2`` terms,
-        enough for every product taken here, so ``n`` is only a lower bound)."""
+        enough for every product taken here)."""
         key = (which, m, s, kernel)
         r = self._lc.get(key)
         if r is None:
@@ -262,22 +254,16 @@ class _Eval:
 
     def ctaylor(self, v: int, n: int) -> list[acb]:
         """Taylor coefficients of ``C`` at the integer ``v`` (``C`` is entire)."""
-        val, co = self.lau("C", v, 0, False, n)
+        val, co = self.lau("C", v, 0, False)
         if n > len(co):
             raise ValueError(f"Taylor length {n} > {len(co)}")
         return ([acb(0)] * val + co)[:n]
 
     # iterated residue at an integer point --------------------------------
-    def point(self, fu: str, m: int, su: int, ku: bool, fw: str, mp: int, sw: int, kw: bool) -> acb:
-        """``Res_x Res_y [F_u(m + x) F_w(mp + y) C(m + mp + x + y)]`` (with the kernels)."""
-        n = self._pmax + 2
-        v1, a = self.lau(fu, m, su, ku, n)
-        if v1 >= 0:
-            return acb(0)
-        v2, b = self.lau(fw, mp, sw, kw, n)
-        if v2 >= 0:
-            return acb(0)
-        g = self.ctaylor(m + mp, (-v1) + (-v2))
+    def _res2(self, v1: int, a, v2: int, b, v: int) -> acb:
+        """``Res_x Res_y [x^v1 a(x) y^v2 b(y) C(v + x + y)]``: ``C(v + x + y)`` has the Taylor
+        coefficients ``c_{p+q} binom(p+q, p)`` in ``(x, y)``."""
+        g = self.ctaylor(v, (-v1) + (-v2))
         tot = acb(0)
         for i in range(-v1):
             p = -1 - v1 - i
@@ -286,6 +272,16 @@ class _Eval:
                 q = -1 - v2 - j
                 tot += ai * b[j] * (g[p + q] * _COMB[p + q][p])
         return tot
+
+    def point(self, fu: str, m: int, su: int, ku: bool, fw: str, mp: int, sw: int, kw: bool) -> acb:
+        """``Res_x Res_y [F_u(m + x) F_w(mp + y) C(m + mp + x + y)]`` (with the kernels)."""
+        v1, a = self.lau(fu, m, su, ku)
+        if v1 >= 0:
+            return acb(0)
+        v2, b = self.lau(fw, mp, sw, kw)
+        if v2 >= 0:
+            return acb(0)
+        return self._res2(v1, a, v2, b, m + mp)
 
     # the pole-corrected trapezoid rule on y0 + tau s ------------------------------
     def _mat(self, which: str, y0: Fraction, s: int, L: int, row: bool = False) -> acb_mat:
@@ -343,10 +339,8 @@ class _Eval:
 
     def _line_laurent(self, fixed: str, m: int, s_fix: int, k_fix: bool, s_int: int, a, v):
         fint = "B" if fixed == "A" else "A"
-        pi_ = getattr(self.t, fint).pole_order
-
         def laur(k):
-            vf, fc = self.lau(fint, k, s_int, False, pi_ + 1)
+            vf, fc = self.lau(fint, k, s_int, False)
             if vf >= 0:
                 return None
             p = -vf
@@ -356,7 +350,7 @@ class _Eval:
                 x = acb(0)
                 for i in range(-v):
                     li = -1 - v - i
-                    x += a[i] * gam[li + j] * math.comb(li + j, j)
+                    x += a[i] * gam[li + j] * _COMB[li + j][j]
                 G.append(x)
             return vf, ser_mul(fc[:p], G, p)
         return laur
@@ -366,8 +360,7 @@ class _Eval:
              factor: acb):
         """``factor * int_{C_base} F_int(y) Res_x[F_fix(m + x) C(m + y + x)] dy`` (conditioned)."""
         fint = "B" if fixed == "A" else "A"
-        pf = getattr(self.t, fixed).pole_order + (1 if k_fix else 0)
-        v, a = self.lau(fixed, m, s_fix, k_fix, pf + 1)
+        v, a = self.lau(fixed, m, s_fix, k_fix)
         if v >= 0:
             return
         ystar = Fraction(-m, 2) - Fraction(3 * self.P * s_int, 2 * self.H)
@@ -459,20 +452,19 @@ class _Eval:
         Cv = [x[0] for x in self.grid("C", u0 + w0, 0, 1, J=2 * J)]
         tot = self._tensor(Av, Bv, Cv, J) * h * h
         tpi = self.twopii
-        pa, pb = self.t.A.pole_order, self.t.B.pole_order
 
-        def corr(which: str, y0: Fraction, sv: int, pmax: int):
+        def corr(which: str, y0: Fraction, sv: int):
             out = []
             for k in range(math.ceil(y0 - self.window), math.floor(y0 + self.window) + 1):
-                v, a = self.lau(which, k, sv, False, pmax + 1)
+                v, a = self.lau(which, k, sv, False)
                 if v >= 0:
                     continue
                 sg, kap = self._kappa(k, y0, -v)
                 out.append((k, sg, v, ser_mul(a, kap, -v)))
             return out
 
-        cu = corr("A", u0, s, pa)
-        cw = corr("B", w0, r, pb)
+        cu = corr("A", u0, s)
+        cw = corr("B", w0, r)
         # E_u (x) Q_w and Q_u (x) E_w: the pole errors of one variable, summed over the other's nodes
         def edge(corrs, other0: Fraction, other_vals) -> acb:
             out = acb(0)
@@ -492,14 +484,7 @@ class _Eval:
         # E_u (x) E_w
         for k, sg, v1, a in cu:
             for kp, sg2, v2, b in cw:
-                g = self.ctaylor(k + kp, (-v1) + (-v2))
-                rr = acb(0)
-                for i in range(-v1):
-                    p = -1 - v1 - i
-                    for j in range(-v2):
-                        q = -1 - v2 - j
-                        rr += a[i] * b[j] * g[p + q] * math.comb(p + q, p)
-                tot += sg * sg2 * tpi * tpi * rr
+                tot += sg * sg2 * tpi * tpi * self._res2(v1, a, v2, b, k + kp)
         return tot
 
     # the third family ---------------------------------------------------------
@@ -508,12 +493,11 @@ class _Eval:
         H, P, K = self.H, self.P, self.K
         Cm = self.ctaylor(m, 1)[0]
         f = factor * Cm
-        pa, pb = self.t.A.pole_order, self.t.B.pole_order
-        n = pa + pb + 2
+        n = self._nl
 
         def laur(k: int, s: int, kernel: bool):
-            v1, a = self.lau("A", k, s, kernel, n)
-            v2, b = self.lau("B", m - k, 0, False, n)
+            v1, a = self.lau("A", k, s, kernel)
+            v2, b = self.lau("B", m - k, 0, False)
             b = [x * (-1) ** (i + v2) for i, x in enumerate(b)]     # B(m - k - x)
             v = v1 + v2
             if v >= 0:
@@ -677,11 +661,8 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int) 
     theta = _theta(H, K)
     cabs = abs(K) * H / (3 * P)
     st = abs(math.sin(theta))
-    T = math.log(10) * (digits + 6) + 8
-    growth = math.pi * st * 2 * (sum(1 / p for p in orders) + 1) + 3 * math.pi * cabs + 1
-    b = 2 * cabs
-    h = 2 * math.pi / (growth + math.sqrt(growth * growth + 4 * math.pi * b * T))
-    _, S = pole_plan(abs(K), math.sin(theta), cabs, digits, growth)
+    growth = _growth(st, cabs, 2 * (sum(1 / p for p in orders) + 1))
+    _, h, S, _ = pole_plan(math.sin(theta), cabs, digits, growth)
     nodes = 2 * int(math.ceil(S / h)) + 1
     nterms = len(merged_terms(tuple(orders)))
     lines = nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P + 2 * P * H)

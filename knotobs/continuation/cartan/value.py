@@ -27,7 +27,7 @@ from flint import acb
 from knotobs._notebook import NotebookMixin
 from knotobs.continuation._num import ball_seconds, bits, checked, to_acb, to_mpc, working_bits
 from knotobs.continuation.cartan.data import B_N, CartanData, PolesNotCoveredError
-from knotobs.continuation.cartan.gaussian import gaussian_sectors, gaussian_terms
+from knotobs.continuation.cartan.gaussian import abelian_cs_values, gaussian_sectors, gaussian_terms
 from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_sum_sectors
 from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_sectors
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
@@ -93,6 +93,15 @@ def _method(d: CartanData, method: str) -> str:
     return method
 
 
+def _guard_digits(Kv, method: str) -> int:
+    """Extra digits of the residue route at complex ``K``: its sectors ``exp(2 pi i K phi)``,
+    ``|phi| <= 1/2``, differ in size by up to ``exp(pi |Im K|)``, and their sum is then smaller
+    than its largest term."""
+    if method != "residues":
+        return 0
+    return int(math.ceil(math.pi * abs(float(Kv.imag)) / math.log(10))) + 2
+
+
 def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed") -> tuple[float, float, str]:
     """Estimated ``(seconds, megabytes, description)`` of one continued value (both runs).
 
@@ -102,8 +111,7 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     """
     where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
     if method == "residues":
-        extra = int(math.ceil(math.pi * abs(float(Kv.imag)) / math.log(10))) + 2    # as in _sectors
-        ops, what = pole_cost(d.big_orders, d.H, d.P, complex(Kv), digits + 12 + extra)
+        ops, what = pole_cost(d.big_orders, d.H, d.P, complex(Kv), digits + 12 + _guard_digits(Kv, method))
         sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
         # cached grids and Laurent data: about one ball per 10 operations, ~150 bytes each
         return sec, 40 + ops * 15e-6, f"{where} ({what})"
@@ -149,9 +157,7 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
     Kv = resolve_K(level, K, N)
     runs = {}
 
-    # with poles the sectors are exp(2 pi i K phi), |phi| <= 1/2: at complex K they differ in size
-    # by up to exp(2 pi |Im K| |phi|), and their sum is then smaller than its largest term
-    extra = int(math.ceil(math.pi * abs(float(Kv.imag)) / math.log(10))) + 2 if method == "residues" else 0
+    extra = _guard_digits(Kv, method)
 
     def comp(dg):
         with working_bits(bits(dg + extra)):
@@ -215,6 +221,8 @@ class CartanContinuedValue(NotebookMixin):
     sectors: dict = field(default_factory=dict, compare=False)
     method: str = "closed"
     notes: tuple[str, ...] = ()
+    #: CS values mod 1 of the abelian flat connections (their sectors are ``pieces["integral"]``)
+    abelian: frozenset = field(default_factory=frozenset, compare=False)
 
     @property
     def pieces(self) -> dict:
@@ -222,22 +230,8 @@ class CartanContinuedValue(NotebookMixin):
         abelian flat connections and the rest (``0`` when the integrand has no poles)."""
         if self.method != "residues":
             return {"integral": self.numeric, "residues": mpmath.mpc(0)}
-        ab = self.abelian_cs
-        integral = sum((v for cs, v in self.sectors.items() if cs in ab), mpmath.mpc(0))
+        integral = sum((v for cs, v in self.sectors.items() if cs in self.abelian), mpmath.mpc(0))
         return {"integral": integral, "residues": self.numeric - integral}
-
-    @property
-    def abelian_cs(self) -> set:
-        """CS values mod 1 of the abelian flat connections, ``P |u|^2/(2H)`` for ``u in Q/HQ``
-        (SU(3): ``|u|^2 = 2 (t_1^2 - t_1 t_2 + t_2^2)``; for other N the sectors of the closed form)."""
-        from knotobs.fibrations.seifert import parse_space
-        from knotobs.continuation.level import LRData
-
-        d = LRData.from_space(parse_space(self.space))
-        if self.N != 3:
-            return set(self.sectors)
-        H = abs(d.H)
-        return {Fraction(d.P * (a * a - a * b + b * b), d.H) % 1 for a in range(H) for b in range(H)}
 
     @property
     def how(self) -> str:
@@ -335,7 +329,8 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
                          f" line integrals and residues cancel to below 10^-{digits + 6}")
     if Kv.imag == 0 and Kv.real == int(Kv.real):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
-    return CartanContinuedValue(total, digits, Kv, N, str(d.space), sectors, method, tuple(notes))
+    return CartanContinuedValue(total, digits, Kv, N, str(d.space), sectors, method, tuple(notes),
+                                abelian_cs_values(d))
 
 
 def continued_sun_Z(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> mpmath.mpc:
