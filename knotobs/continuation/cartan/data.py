@@ -26,6 +26,7 @@ import itertools
 import math
 from dataclasses import dataclass
 from fractions import Fraction
+from functools import lru_cache
 
 from flint import acb, arb
 
@@ -33,7 +34,7 @@ from knotobs.continuation.level import LRData
 from knotobs.errors import InvalidGroupError, InvalidSeifertDataError, KnotobsError
 from knotobs.representations.permutations import permutation_sign
 
-__all__ = ["CartanData", "weyl_vectors", "B_N"]
+__all__ = ["CartanData", "Coset", "weyl_vectors", "B_N"]
 
 
 class PolesNotCoveredError(KnotobsError, NotImplementedError):
@@ -79,7 +80,14 @@ class CartanData:
     def from_space(cls, space, N: int) -> "CartanData":
         if isinstance(N, bool) or not isinstance(N, int) or N < 2:
             raise InvalidGroupError(f"SU(N) needs an integer N >= 2, got N = {N!r}")
-        lr = LRData.from_space(_lens_form(space))
+        lr = LRData.from_space(_lens_form(space), allow_shared=True)
+        if lr.shared and (N != 3 or len([p for p in lr.ps if p > 1]) != 3):
+            orders = ", ".join(str(p) for p in lr.ps if p > 1)
+            raise InvalidSeifertDataError(
+                f"{lr.space}: the exceptional orders {orders} share a factor; the SU(N) continuation"
+                " in K splits such a sum into cosets (docs/continuation_sun.md §18.8) for SU(3) with"
+                " three exceptional fibers only; the finite levels are computed by"
+                f" 'knotobs space ... --group SU({N}) --level k'")
         if lr.space.genus != 0:
             raise InvalidSeifertDataError(
                 f"{lr.space} has base genus {lr.space.genus}: the continuation in K is built for"
@@ -135,10 +143,123 @@ class CartanData:
         ``prod_j Delta(z/p_j)/Delta(z)^(n-2) = Delta(z/p_a) Delta(z/p_b)``, missing ones ``= 1``)."""
         return len(self.big_orders) <= 2
 
+    @property
+    def shared(self) -> bool:
+        """Two exceptional orders share a factor (``L = lcm p_j < P``)."""
+        return self.lr.shared
+
+    @property
+    def L(self) -> int:
+        """Period of every coset: ``lcm p_j`` (``P`` for coprime orders)."""
+        return math.lcm(*self.lr.ps) if self.lr.ps else 1
+
+    @property
+    def HL(self) -> int:
+        """``H L/P``: ``H`` of every coset."""
+        return self.H * self.L // self.P
+
+    def cosets(self) -> list["Coset"]:
+        """The cosets of §18.8 up to the Weyl group, with their orbit sizes (SU(3)).
+
+        The per-fiber Gauss sums run over ``n_j in Q/p_j Q``; the tuples ``(n_j)`` are the cosets
+        ``n_j = n + s_j`` of the diagonal ``Q/LQ``, ``(P/L)^2`` of them, and ``W`` permutes them
+        (``h_{ws}(w z) = h_s(z)``).  One coset ``s = 0`` for coprime orders.
+
+        >>> cs = CartanData.from_space("M(0; -1; (2,1), (4,1), (6,1))", 3).cosets()
+        >>> sum(c.weight for c in cs), len(cs)
+        (16, 5)
+        """
+        return list(_cosets(tuple(self.lr.pq), self.sigma))
+
     def two_orders(self) -> tuple[int, int]:
         """``(p_a, p_b)`` with ``G = Delta(z/p_a) Delta(z/p_b)`` in the entire case."""
         b = list(self.big_orders) + [1, 1]
         return b[0], b[1]
+
+
+@dataclass(frozen=True)
+class Coset:
+    """One coset ``s = (s_j)`` of §18.8 (SU(3), root coordinates ``s_j = t_1 alpha_1 + t_2 alpha_2``).
+
+    Attributes
+    ----------
+    shifts : tuple
+        ``(<alpha_1, s_j>, <alpha_2, s_j>)`` for each exceptional order: the shifts of its sines.
+    lin : tuple of Fraction
+        ``c = sum_j q_j s_j/p_j`` in root coordinates, ``sigma c`` reduced to ``[0, 1)^2``
+        (allowed at integer ``K``): the linear phase ``exp(-2 pi i K <z, c>)``.
+    const : Fraction
+        ``sum_j q_j |s_j|^2/(2 p_j)``: the constant ``exp(-2 pi i K const)``.
+    weight : int
+        Size of the Weyl orbit of the coset (every member contributes the same at integer ``K``).
+    """
+
+    shifts: tuple[tuple[int, int], ...]
+    lin: tuple[Fraction, Fraction]
+    const: Fraction
+    weight: int
+
+    def negated(self) -> "Coset":
+        """The coset data of ``-M`` (``q_j -> -q_j``)."""
+        return Coset(self.shifts, (-self.lin[0], -self.lin[1]), -self.const, self.weight)
+
+
+def _weyl_root_coords() -> list[tuple[tuple[int, int], tuple[int, int]]]:
+    """The six elements of ``W(A_2)`` as integer matrices on root coordinates ``(t_1, t_2)``."""
+    s1 = ((-1, 1), (0, 1))          # alpha_1 -> -alpha_1, alpha_2 -> alpha_1 + alpha_2
+    s2 = ((1, 0), (1, -1))          # alpha_2 -> -alpha_2, alpha_1 -> alpha_1 + alpha_2
+
+    def mul(a, b):
+        return tuple(tuple(sum(a[i][k] * b[k][j] for k in range(2)) for j in range(2)) for i in range(2))
+
+    group = {((1, 0), (0, 1))}
+    todo = list(group)
+    while todo:
+        g = todo.pop()
+        for s in (s1, s2):
+            h = mul(s, g)
+            if h not in group:
+                group.add(h)
+                todo.append(h)
+    return sorted(group)
+
+
+@lru_cache(maxsize=32)
+def _cosets(pq: tuple[tuple[int, int], ...], sigma: int) -> tuple[Coset, ...]:
+    big = [(p, q) for p, q in pq if p > 1]
+    ps = [p for p, _ in big]
+    L = math.lcm(*ps) if ps else 1
+    per = [list(itertools.product(range(p), repeat=2)) for p in ps]
+    coset_of: dict = {}
+    reps: list = []
+    for tup in itertools.product(*per):
+        if tup in coset_of:
+            continue
+        cid = len(reps)
+        reps.append(tup)
+        for n1 in range(L):
+            for n2 in range(L):
+                coset_of[tuple(((t1 + n1) % p, (t2 + n2) % p) for (t1, t2), p in zip(tup, ps))] = cid
+    W = _weyl_root_coords()
+    seen: set = set()
+    out = []
+    for cid, tup in enumerate(reps):
+        if cid in seen:
+            continue
+        orbit = set()
+        for g in W:
+            img = tuple(((g[0][0] * t1 + g[0][1] * t2) % p, (g[1][0] * t1 + g[1][1] * t2) % p)
+                        for (t1, t2), p in zip(tup, ps))
+            orbit.add(coset_of[img])
+        seen |= orbit
+        c1 = sum((Fraction(q * t1, p) for (t1, _), (p, q) in zip(tup, big)), Fraction(0))
+        c2 = sum((Fraction(q * t2, p) for (_, t2), (p, q) in zip(tup, big)), Fraction(0))
+        lin = tuple(sigma * ((sigma * c) % 1) for c in (c1, c2))
+        const = sum((Fraction(q * (2 * t1 * t1 - 2 * t1 * t2 + 2 * t2 * t2), 2 * p)
+                     for (t1, t2), (p, q) in zip(tup, big)), Fraction(0))
+        shifts = tuple((2 * t1 - t2, -t1 + 2 * t2) for t1, t2 in tup)
+        out.append(Coset(shifts, lin, const, len(orbit)))
+    return tuple(out)
 
 
 def B_N(d: CartanData, K: acb) -> acb:

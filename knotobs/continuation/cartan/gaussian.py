@@ -65,7 +65,26 @@ def abelian_cs_values(d: CartanData) -> frozenset:
     >>> sorted(str(c) for c in abelian_cs_values(CartanData.from_space("L(5,1)", 3)))
     ['0', '1/5', '2/5', '3/5', '4/5']
     """
+    if d.shared:
+        return _coset_abelian_cs_values(d)
     return frozenset(abelian_cs(d.P, d.H, u) % 1 for u in root_vectors(d.N, d.H))
+
+
+def _coset_abelian_cs_values(d: CartanData) -> frozenset:
+    """Orders sharing a factor (§18.8, SU(3)): the Gaussian of the coset ``s`` and the Fourier index
+    ``u in Q/H'Q`` (``H' = H L/P``) complete to ``exp(2 pi i K (L |u + c_s|^2/(2 H') - const_s))``.
+
+    >>> sorted(str(c) for c in abelian_cs_values(CartanData.from_space("M(0; -1; (2,1), (2,1), (3,1))", 3)))
+    ['0', '1/4', '3/4']
+    """
+    Hp, L = d.HL, d.L
+    out = set()
+    for co in d.cosets():
+        for t in itertools.product(range(abs(Hp)), repeat=2):
+            v1, v2 = t[0] + co.lin[0], t[1] + co.lin[1]
+            norm = 2 * v1 * v1 - 2 * v1 * v2 + 2 * v2 * v2          # |v|^2, roots of length^2 2
+            out.add((Fraction(L) * norm / (2 * Hp) - co.const) % 1)
+    return frozenset(out)
 
 
 def gaussian_terms(d: CartanData) -> int:

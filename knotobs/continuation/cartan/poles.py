@@ -64,40 +64,72 @@ class PoleTerm:
     """One term ``A(u) B(w) C(u + w)`` of the partial-fraction expansion of ``h``.
 
     ``basis`` gives ``(u, w)`` from ``x = (x_1, x_2)``: ``u = basis[0] . x``, ``w = basis[1] . x``.
+    ``offsets`` ``(c_u, c_w)``: the linear phase ``exp(-2 pi i K (c_u u + c_w w))`` of a coset
+    (§18.8; zero for coprime orders), added to the Fourier indices of ``A`` and ``B``.
     """
 
     def __init__(self, A: RootFunction, B: RootFunction, C: RootFunction,
-                 basis: tuple[tuple[int, int], tuple[int, int]] = ((1, 0), (0, 1))):
+                 basis: tuple[tuple[int, int], tuple[int, int]] = ((1, 0), (0, 1)),
+                 offsets: tuple[Fraction, Fraction] = (Fraction(0), Fraction(0))):
         self.A, self.B, self.C = A, B, C
         self.basis = basis
+        self.offsets = offsets
 
     def __repr__(self):
         return f"PoleTerm({self.A}, {self.B}, {self.C})"
 
 
-def partial_fraction_terms(orders: tuple[int, ...]) -> list[PoleTerm]:
-    """The terms of ``prod_j Delta(z/p_j) / Delta(z)^(n-2)`` (``n = len(orders)``, orders ``> 1``).
+def partial_fraction_terms(orders: tuple[int, ...], shifts=None, lin=None) -> list[PoleTerm]:
+    """The terms of ``prod_j Delta((z + s_j)/p_j) / Delta(z)^(n-2)`` (``n = len(orders)``, orders ``> 1``).
+
+    ``shifts``: for orders sharing a factor, ``(<alpha_1, s_j>, <alpha_2, s_j>)`` for each order
+    (the coset of §18.8); ``None`` for ``s_j = 0``.  A sine of the root ``beta . x`` is then
+    shifted by ``beta . (<alpha_1, s_j>, <alpha_2, s_j>)``.  ``lin``: the coset's linear phase
+    ``exp(-2 pi i K c . x)`` as ``c`` (root coordinates), or ``None``; in ``(u, w)`` it is
+    ``offsets = c . basis^-1``.
 
     >>> [t.A.pole_order + t.B.pole_order for t in partial_fraction_terms((2, 3, 5))]
     [3, 3]
+    >>> partial_fraction_terms((2, 4, 6), ((0, 0), (1, 0), (2, -1)))[0].C.shifts
+    (0, 1, 1)
     """
     n = len(orders)
     num = tuple((p, 1) for p in orders)
+    sh = tuple(shifts) if shifts is not None else ((0, 0),) * n
+
+    def f(sign, a, dens, beta):
+        t = tuple(beta[0] * a1 + beta[1] * a2 for a1, a2 in sh)
+        sines = num + dens
+        shifts_ = (t + (0,) * len(dens)) if any(t) else ()
+        return RootFunction(sign, a, sines, (), shifts_)
+
     terms = []
     for (al1, al2, a, b, c), k in sorted(_split(n - 2, n - 2, n - 2).items()):
         if c == 0:   # poles on x_1, x_2: (u, w) = (x_1, x_2)
-            A = RootFunction(k, al1, num + ((1, -a),))
-            B = RootFunction(1, al2, num + ((1, -b),))
             basis = ((1, 0), (0, 1))
+            A = f(k, al1, ((1, -a),), basis[0])
+            B = f(1, al2, ((1, -b),), basis[1])
         else:        # poles on x_1, x_1 + x_2: u = x_1, w = -(x_1 + x_2), u + w = -x_2
-            A = RootFunction(k * (-1) ** c, al1 - al2, num + ((1, -a),))
-            B = RootFunction(1, -al2, num + ((1, -c),))
             basis = ((1, 0), (-1, -1))
-        terms.append(PoleTerm(A, B, RootFunction(1, Fraction(0), num), basis))
+            A = f(k * (-1) ** c, al1 - al2, ((1, -a),), basis[0])
+            B = f(1, -al2, ((1, -c),), basis[1])
+        both = (basis[0][0] + basis[1][0], basis[0][1] + basis[1][1])
+        terms.append(PoleTerm(A, B, f(1, Fraction(0), (), both), basis, _offsets(basis, lin)))
     return terms
 
 
-def merged_terms(orders: tuple[int, ...]) -> list[PoleTerm]:
+def _offsets(basis, lin) -> tuple[Fraction, Fraction]:
+    """``c . basis^-1``: the linear phase ``c . x`` written as ``c_u u + c_w w`` (``basis`` unimodular)."""
+    if lin is None:
+        return Fraction(0), Fraction(0)
+    (a, b), (c, d) = basis
+    det = a * d - b * c
+    # x = basis^-1 (u, w) = (d u - b w, -c u + a w)/det
+    c1, c2 = lin
+    return Fraction(c1 * d - c2 * c, det), Fraction(-c1 * b + c2 * a, det)
+
+
+def merged_terms(orders: tuple[int, ...], shifts=None, lin=None) -> list[PoleTerm]:
     """The terms with equal ``A`` and ``C`` and equal sines of ``B`` combined into one, whose ``B``
     carries a sum of exponentials.  Every step of §18.7 is linear in ``B`` and uses only the
     ``3P``-quasi-periodicity and the pole lines, which such terms share, so their sums may be
@@ -107,14 +139,14 @@ def merged_terms(orders: tuple[int, ...]) -> list[PoleTerm]:
     (2, 1)
     """
     groups: dict = {}
-    for t in partial_fraction_terms(orders):
-        key = (t.A, t.C, t.B.sines)
+    for t in partial_fraction_terms(orders, shifts, lin):
+        key = (t.A, t.C, t.B.sines, t.B.shifts, t.offsets)
         groups.setdefault(key, []).append(t)
     out = []
-    for (A, C, sines), ts in groups.items():
+    for (A, C, sines, bshifts, offsets), ts in groups.items():
         exps = [e for t in ts for e in t.B.exps]
-        B = RootFunction(exps[0][0], exps[0][1], sines, tuple(exps[1:]))
-        out.append(PoleTerm(A, B, C, ts[0].basis))
+        B = RootFunction(exps[0][0], exps[0][1], sines, tuple(exps[1:]), bshifts)
+        out.append(PoleTerm(A, B, C, ts[0].basis, offsets))
     return out
 
 
@@ -166,8 +198,10 @@ class _Eval:
     """All pieces of one term at one ``K`` (``H > 0``), at the current precision."""
 
     def __init__(self, term: PoleTerm, K: acb, H: int, P: int, digits: int, reduced: bool, theta: float,
-                 fine_plane: bool = False):
+                 fine_plane: bool = False, phi0: Fraction = Fraction(0)):
         self.t = term
+        cu, cw = term.offsets
+        self.off = {"A": cu, "B": cw, "C": 0}
         self.fine_plane = fine_plane
         self.H, self.P = H, P
         self.reduced = reduced
@@ -199,7 +233,14 @@ class _Eval:
         self._dc: dict = {}
         self._mc: dict = {}
         self._ex: dict = {}
-        self.Dc = 24 * P * H * H
+        # phases are integers over Dc = 24 P H^2 D^2 (D: denominators of the coset offsets)
+        D = math.lcm(Fraction(cu).denominator, Fraction(cw).denominator)
+        while (Fraction(phi0) * 24 * P * H * H * D * D).denominator != 1:
+            D *= (Fraction(phi0) * 24 * P * H * H * D * D).denominator
+        self.D = D
+        self.Dc = 24 * P * H * H * D * D
+        self.CU, self.CW = int(cu * D), int(cw * D)
+        self.PHI0 = int(phi0 * self.Dc)
         self._nl = term.A.pole_order + term.B.pole_order + 2
 
     # phases ------------------------------------------------------------
@@ -220,12 +261,19 @@ class _Eval:
         out[phi] = out[phi] + value if phi in out else value
 
     def _gphase(self, u, w, s: int, r: int) -> int:
-        """``phi * Dc`` for ``exp(-i pi c (u^2 + w^2 + (u+w)^2) - 2 pi i K (s u + r w)) = exp(2 pi i K phi)``
-        (``u``, ``w`` integers or multiples of ``1/(2H)``)."""
-        H2 = 2 * self.H
-        U = int(u * H2)
-        W = int(w * H2)
-        return -self.H * (U * U + W * W + (U + W) ** 2) - 12 * self.P * self.H * (s * U + r * W)
+        """``phi * Dc`` for ``exp(-i pi c (u^2 + w^2 + (u+w)^2) - 2 pi i K ((s + c_u) u + (r + c_w) w))``
+        times the coset constant ``exp(2 pi i K phi_0)``, ``= exp(2 pi i K phi)`` (``u``, ``w``
+        integers or multiples of ``1/(2 H D)``)."""
+        H2 = 2 * self.H * self.D
+        U = u * H2
+        W = w * H2
+        if U.denominator != 1 or W.denominator != 1:
+            raise ArithmeticError(f"phase at ({u}, {w}) is not on the grid 1/{H2}")
+        U, W = int(U), int(W)
+        S = s * self.D + self.CU
+        R = r * self.D + self.CW
+        return (-self.H * (U * U + W * W + (U + W) ** 2) - 12 * self.P * self.H * (S * U + R * W)
+                + self.PHI0)
 
     # Laurent data (cached) ---------------------------------------------
     def lau(self, which: str, m: int, s: int, kernel: bool):
@@ -234,7 +282,8 @@ class _Eval:
         key = (which, m, s, kernel)
         r = self._lc.get(key)
         if r is None:
-            r = self._lc[key] = laurent(getattr(self.t, which), m, s, kernel, self._nl, self.sc)
+            r = self._lc[key] = laurent(getattr(self.t, which), m, s + self.off[which], kernel, self._nl,
+                                        self.sc)
         return r
 
     def grid(self, which: str, y0: Fraction, s: int, L: int, sign: int = 1, J: int | None = None) -> list[list[acb]]:
@@ -248,7 +297,7 @@ class _Eval:
                 if g2 is not None:
                     return [x[:L] for x in g2]
             y0b = acb(y0.numerator) / y0.denominator
-            g = grid_series(getattr(self.t, which), y0b, sign * self.lstep, J, s, L, self.sc)
+            g = grid_series(getattr(self.t, which), y0b, sign * self.lstep, J, s + self.off[which], L, self.sc)
             self._gc[key] = g
         return g
 
@@ -363,7 +412,7 @@ class _Eval:
         v, a = self.lau(fixed, m, s_fix, k_fix)
         if v >= 0:
             return
-        ystar = Fraction(-m, 2) - Fraction(3 * self.P * s_int, 2 * self.H)
+        ystar = Fraction(-m, 2) - Fraction(3 * self.P) * (s_int + self.off[fint]) / (2 * self.H)
         y0 = _half(ystar)
         sg, ks = _between(base, y0)
         for k in ks:
@@ -393,7 +442,8 @@ class _Eval:
     def plane(self, s: int, r: int, factor: acb):
         """``factor * int int_{C_{-1/2}^2} A_s(u) B_r(w) C(u + w)`` (conditioned)."""
         H, P = self.H, self.P
-        us, ws = Fraction(-P * (2 * s - r), H), Fraction(-P * (2 * r - s), H)
+        sp, rp = s + self.off["A"], r + self.off["B"]
+        us, ws = Fraction(-P) * (2 * sp - rp) / H, Fraction(-P) * (2 * rp - sp) / H
         u0, w0 = _half(us), _half(ws)
         base = Fraction(-1, 2)
         sg, ks = _between(base, u0)
@@ -413,8 +463,8 @@ class _Eval:
         J = self.J2
         u0b = acb(u0.numerator) / u0.denominator
         w0b = acb(w0.numerator) / w0.denominator
-        Av = [x[0] for x in grid_series(self.t.A, u0b, self.step, J, s, 1, self.sc)]
-        Bv = [x[0] for x in grid_series(self.t.B, w0b, self.step, J, r, 1, self.sc)]
+        Av = [x[0] for x in grid_series(self.t.A, u0b, self.step, J, s + self.off["A"], 1, self.sc)]
+        Bv = [x[0] for x in grid_series(self.t.B, w0b, self.step, J, r + self.off["B"], 1, self.sc)]
         Cv = [x[0] for x in grid_series(self.t.C, u0b + w0b, self.step, 2 * J, 0, 1, self.sc)]
         return self._tensor(Av, Bv, Cv, J) * self.step * self.step
 
@@ -519,7 +569,7 @@ class _Eval:
         # K sum_{t < 2H} int_{C_{-1/2}} A_t(u) B(m - u) du
         base = Fraction(-1, 2)
         for t in range(2 * H):
-            ustar = Fraction(m, 2) - Fraction(3 * P * t, 2 * H)
+            ustar = Fraction(m, 2) - Fraction(3 * P) * (t + self.off["A"] - self.off["B"]) / (2 * H)
             u0 = _half(ustar)
             sg, ks = _between(base, u0)
             for k in ks:
@@ -567,12 +617,21 @@ class _Eval:
         # the third family, subtracted
         for m in range(P):
             self.third_line(m, acb(-1))
+        if self.PHI0:
+            # the coset constant exp(2 pi i K phi_0): in every label (``_gphase``), here in the values
+            f0 = (self.sc.tpiK * (acb(self.PHI0) / self.Dc)).exp()
+            return {Fraction(k, self.Dc): v * f0 for k, v in self.out.items()}
         return {Fraction(k, self.Dc): v for k, v in self.out.items()}
 
 
 def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: int,
-                     reduced: bool = True, fine_plane: bool = False) -> dict[Fraction, acb]:
+                     reduced: bool = True, fine_plane: bool = False, cosets=None) -> dict[Fraction, acb]:
     """``{phi: piece}`` with ``sum = S(K)`` of §18.1 for SU(3) (``H != 0``, genus 0, three orders).
+
+    Orders sharing a factor (§18.8): ``cosets`` lists the cosets (objects with ``shifts``, ``lin``,
+    ``const`` and ``weight``, :meth:`CartanData.cosets`, given for the orientation of ``H``), and
+    ``H``, ``P`` are the period data ``H L/P``, ``L = lcm p_j`` of every coset; the sum is
+    ``sum_s weight_s exp(-2 pi i K const_s) S_s(K)``.
 
     ``phi`` is the Chern–Simons phase of the piece (``exp(2 pi i K phi)``), reduced to
     ``(-1/2, 1/2]`` when ``reduced``.  One run at the current precision (the caller compares two).
@@ -598,14 +657,20 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
     """
     if H < 0:
         Kc = K.conjugate()
-        res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane)
+        neg = None if cosets is None else [c.negated() for c in cosets]
+        res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane, neg)
         return {-phi: v.conjugate() for phi, v in res.items()}
     theta = _theta(H, complex(K.mid()))
     out: dict[Fraction, acb] = {}
-    for term in merged_terms(orders):
-        ev = _Eval(term, K, H, P, digits, reduced, theta, fine_plane)
-        for phi, v in ev.run().items():
-            out[phi] = out.get(phi, acb(0)) + v
+    for co in (cosets if cosets is not None else [None]):
+        shifts, lin, phi0, wt = (None, None, Fraction(0), 1) if co is None else (
+            co.shifts, co.lin, -co.const, co.weight)
+        for term in merged_terms(orders, shifts, lin):
+            ev = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, phi0)
+            for phi, v in ev.run().items():
+                if wt != 1:
+                    v = v * wt
+                out[phi] = out.get(phi, acb(0)) + v
     return out
 
 
@@ -646,7 +711,8 @@ def pole_domain(H: int, K: complex) -> None:
             f" the poles; use K off that ray (|sin theta| >= {MIN_SIN}, theta = -pi/4 - arg(K)/2)")
 
 
-def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int) -> tuple[float, str]:
+def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
+              cosets=None) -> tuple[float, str]:
     """``(ball operations, description)`` of one evaluation of :func:`pole_sum_sectors`.
 
     Counts the grid nodes of every line integral (``~ 3P (H^2 + 4H)`` lines per term plus
@@ -664,7 +730,8 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int) 
     growth = _growth(st, cabs, 2 * (sum(1 / p for p in orders) + 1))
     _, h, S, _ = pole_plan(math.sin(theta), cabs, digits, growth)
     nodes = 2 * int(math.ceil(S / h)) + 1
-    nterms = len(merged_terms(tuple(orders)))
+    nterms = (len(merged_terms(tuple(orders))) if cosets is None else
+              sum(len(merged_terms(tuple(orders), c.shifts, c.lin)) for c in cosets))
     lines = nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P + 2 * P * H)
     points = nterms * ((3 * P) ** 2 + lines * P // 2)
     ops = 25.0 * lines * nodes + 30.0 * points

@@ -4,10 +4,12 @@ On the rotated Cartan the SU(3) integrand of §18.1 is a product over the three 
 (§18.6).  After the partial fractions of §18.7 each term is, in coordinates ``(u, w)`` adapted to
 two root families, ``A(u) B(w) C(u + w)`` with every factor of the form
 
-    ``f(y) = sign exp(i pi a y) exp(-i pi c y^2) exp(-2 pi i K s y) prod_p (2i sin(pi y/p))^(e_p)``,
+    ``f(y) = sign exp(i pi a y) exp(-i pi c y^2) exp(-2 pi i K s y) prod_p (2i sin(pi (y + t_p)/p))^(e_p)``,
 
 ``c = K H/(3P)`` (the Gaussian ``-i pi K H |z|^2/P`` split as
-``|z|^2 = (u^2 + w^2 + (u + w)^2)/3``), ``s`` an integer.  Poles (negative ``e_p``, ``p = 1``) lie at
+``|z|^2 = (u^2 + w^2 + (u + w)^2)/3``), ``s`` an integer or, for orders sharing a factor, a
+rational (the linear phase of a coset, §18.8), ``t_p`` integer shifts (also from the coset; zero
+otherwise).  Poles (negative ``e_p``, ``p = 1``) lie at
 the integers.  This module evaluates such factors on straight grids (values and Taylor
 coefficients, by geometric recurrences restarted every :data:`BLOCK` nodes so that the balls stay
 tight) and gives their Laurent expansions at integers, optionally times the Lawrence–Rozansky
@@ -41,8 +43,9 @@ def _pole_order(sines) -> int:
 
 @dataclass(frozen=True)
 class RootFunction:
-    """``sign exp(i pi a y) prod_p (2i sin(pi y/p))^e`` (the Gaussian and ``s`` come with the call),
-    optionally with further exponentials in the prefactor (``extra``).
+    """``sign exp(i pi a y) prod_p (2i sin(pi (y + t)/p))^e`` (the Gaussian and ``s`` come with the
+    call), optionally with further exponentials in the prefactor (``extra``) and integer shifts
+    ``t`` of the sines (``shifts``, parallel to ``sines``; empty means all zero).
 
     >>> f = RootFunction(1, Fraction(1, 2), ((1, -1), (3, 1)))
     >>> f.pole_order
@@ -55,6 +58,14 @@ class RootFunction:
     #: further terms ``(coefficient, a')`` of the exponential prefactor: ``f`` is
     #: ``(sign e^{i pi a y} + sum c e^{i pi a' y}) prod_p (2i sin(pi y/p))^e``
     extra: tuple[tuple[int, Fraction], ...] = ()
+    #: integer shifts ``t`` of the sines (one per entry of ``sines``), or ``()`` for none
+    shifts: tuple[int, ...] = ()
+
+    @property
+    def shifted_sines(self) -> tuple[tuple[int, int, int], ...]:
+        """``((p, e, t), ...)``: every sine with its shift."""
+        sh = self.shifts or (0,) * len(self.sines)
+        return tuple((p, e, t) for (p, e), t in zip(self.sines, sh))
 
     @property
     def exps(self) -> tuple[tuple[int, Fraction], ...]:
@@ -86,6 +97,11 @@ def _q(x: Fraction) -> acb:
     return acb(x.numerator) / x.denominator
 
 
+def _num(s):
+    """An integer as is, a rational as a ball (``acb`` takes no ``Fraction``)."""
+    return _q(s) if isinstance(s, Fraction) else s
+
+
 def _power(ser: list[acb], e: int, n: int) -> list[acb]:
     if e < 0:
         ser = ser_inv(ser, n)
@@ -111,15 +127,17 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
     ipi = sc.ipi
     val = 0
     out = [acb(1)] + [acb(0)] * (n - 1)
-    for p, e in f.sines:
-        if m % p == 0:
+    s = _num(s)
+    for p, e, sh in f.shifted_sines:
+        ms = m + sh
+        if ms % p == 0:
             # 2i sin(pi (m + x)/p) = (-1)^(m/p) 2i sin(pi x/p) = x * [(-1)^(m/p) 2i sin(pi x/p)/x]
             sn = ser_sin(acb(0), arb.pi() / p, n + 1)[1:]
-            sg = -1 if (m // p) % 2 else 1
+            sg = -1 if (ms // p) % 2 else 1
             ser = [acb(0, 2 * sg) * t for t in sn]
             val += e
         else:
-            sn = ser_sin(arb.pi() * m / p, arb.pi() / p, n)
+            sn = ser_sin(arb.pi() * ms / p, arb.pi() / p, n)
             ser = [acb(0, 2) * t for t in sn]
         out = ser_mul(out, _power(ser, e, n), n)
     g = [acb(0)] * n
@@ -160,6 +178,7 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
     if L > 3:
         raise ValueError("grid_series: Taylor length > 3 is not needed here")
     ipi = sc.ipi
+    s = _num(s)
     if f.extra and L > 1:
         raise ValueError("grid_series: Taylor coefficients of a sum of exponentials are not needed here")
     lins = [(co, ipi * _q(a) - sc.tpiK * s) for co, a in f.exps]
@@ -176,7 +195,7 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
     while j < total:
         nb = min(BLOCK, total - j)
         y = start + j * step
-        E = [((ipi / p) * y).exp() for p, _ in sines]
+        E = [((ipi / p) * (y + t)).exp() for p, _, t in f.shifted_sines]
         R = [((ipi / p) * step).exp() for p, _ in sines]
         g = (quad * y * y + lin * y).exp()
         rho = (quad * (2 * y * step + step * step) + lin * step).exp()

@@ -111,7 +111,8 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     """
     where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
     if method == "residues":
-        ops, what = pole_cost(d.big_orders, d.H, d.P, complex(Kv), digits + 12 + _guard_digits(Kv, method))
+        ops, what = pole_cost(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
+                              d.cosets() if d.shared else None)
         sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
         # cached grids and Laurent data: about one ball per 10 operations, ~150 bytes each
         return sec, 40 + ops * 15e-6, f"{where} ({what})"
@@ -167,7 +168,9 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
             elif method == "residues":
                 pre = B_N(d, Ka) / (Ka * Ka)
                 s = {}
-                for phi, v in pole_sum_sectors(d.big_orders, d.H, d.P, Ka, dg + extra, reduced).items():
+                cos = d.cosets() if d.shared else None
+                for phi, v in pole_sum_sectors(d.big_orders, d.HL, d.L, Ka, dg + extra, reduced,
+                                               cosets=cos).items():
                     key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
                     s[key] = s.get(key, acb(0)) + pre * v
             else:
