@@ -80,19 +80,23 @@ class CartanData:
     def from_space(cls, space, N: int) -> "CartanData":
         if isinstance(N, bool) or not isinstance(N, int) or N < 2:
             raise InvalidGroupError(f"SU(N) needs an integer N >= 2, got N = {N!r}")
-        lr = LRData.from_space(_lens_form(space), allow_shared=True)
-        if lr.shared and (N != 3 or len([p for p in lr.ps if p > 1]) != 3):
+        lr = LRData.from_space(_lens_form(space), allow_shared=True, allow_genus=True)
+        nbig = len([p for p in lr.ps if p > 1])
+        if lr.genus and N != 3:
+            hint = ("the SU(2) continuation is knotobs.continuation.level.continued_partition_function"
+                    " (knotobs continue without --group)" if N == 2 else
+                    f"the finite levels are computed by 'knotobs space ... --group SU({N}) --level k'")
+            raise InvalidSeifertDataError(
+                f"{lr.space} has base genus {lr.genus}: the SU(N) continuation in K on a base of genus"
+                " g >= 1 (poles of order 2g + n - 2 on the root hyperplanes, docs/continuation_sun.md"
+                f" §18.9) is built for SU(3); {hint}")
+        if lr.shared and (N != 3 or (nbig <= 2 and not lr.genus)):
             orders = ", ".join(str(p) for p in lr.ps if p > 1)
             raise InvalidSeifertDataError(
                 f"{lr.space}: the exceptional orders {orders} share a factor; the SU(N) continuation"
                 " in K splits such a sum into cosets (docs/continuation_sun.md §18.8) for SU(3) with"
-                " three exceptional fibers only; the finite levels are computed by"
-                f" 'knotobs space ... --group SU({N}) --level k'")
-        if lr.space.genus != 0:
-            raise InvalidSeifertDataError(
-                f"{lr.space} has base genus {lr.space.genus}: the continuation in K is built for"
-                " base genus 0 (Seifert rational homology spheres over S^2)"
-            )
+                " three or more exceptional fibers (or base genus >= 1); the finite levels are"
+                f" computed by 'knotobs space ... --group SU({N}) --level k'")
         return cls(lr, N)
 
     # ---------------------------------------------------------------- numbers
@@ -138,10 +142,21 @@ class CartanData:
         return tuple(p for p in self.lr.ps if p > 1)
 
     @property
+    def genus(self) -> int:
+        return self.lr.genus
+
+    @property
+    def deg(self) -> int:
+        """Power of ``Delta(z)`` left in the denominator: ``n_> - 2 + 2g`` (``n_>`` orders ``> 1``;
+        every fiber of order 1 cancels one power)."""
+        return len(self.big_orders) - 2 + 2 * self.genus
+
+    @property
     def entire(self) -> bool:
-        """``h`` is entire (no poles) iff at most two orders exceed 1 (then
-        ``prod_j Delta(z/p_j)/Delta(z)^(n-2) = Delta(z/p_a) Delta(z/p_b)``, missing ones ``= 1``)."""
-        return len(self.big_orders) <= 2
+        """``h`` is entire and given by the closed form iff the base has genus 0 and at most two
+        orders exceed 1 (then ``prod_j Delta(z/p_j)/Delta(z)^(n-2) = Delta(z/p_a) Delta(z/p_b)``,
+        missing ones ``= 1``); with genus ``g >= 1`` the residue route is used (§18.9)."""
+        return self.genus == 0 and len(self.big_orders) <= 2
 
     @property
     def shared(self) -> bool:
@@ -277,7 +292,11 @@ def B_N(d: CartanData, K: acb) -> acb:
     rho2 = acb(d.rho2.numerator) / d.rho2.denominator
     mod = 1 / (arb(math.factorial(N) * N) * arb(d.P).sqrt() ** r)
     sign = -1 if d.npos % 2 else 1
-    return (sign * mod) * (acb(0, d.sigma * (N * N - 1)) * pi / 4).exp() * (acb(0, -1) * pi * rho2 * ph / K).exp()
+    out = (sign * mod) * (acb(0, d.sigma * (N * N - 1)) * pi / 4).exp() * (acb(0, -1) * pi * rho2 * ph / K).exp()
+    if d.genus:
+        # base genus g: S_0lam^(-2g) = ((-1)^{|Delta+|} N K^r)^g Delta(lam/K)^(-2g) (§18.9)
+        out = out * ((-1) ** d.npos * N * K ** r) ** d.genus
+    return out
 
 
 def _lens_form(space):

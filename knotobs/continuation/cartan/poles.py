@@ -79,8 +79,9 @@ class PoleTerm:
         return f"PoleTerm({self.A}, {self.B}, {self.C})"
 
 
-def partial_fraction_terms(orders: tuple[int, ...], shifts=None, lin=None) -> list[PoleTerm]:
-    """The terms of ``prod_j Delta((z + s_j)/p_j) / Delta(z)^(n-2)`` (``n = len(orders)``, orders ``> 1``).
+def partial_fraction_terms(orders: tuple[int, ...], shifts=None, lin=None, deg=None) -> list[PoleTerm]:
+    """The terms of ``prod_j Delta((z + s_j)/p_j) / Delta(z)^deg`` (orders ``> 1``; ``deg = n - 2``,
+    ``n = len(orders)``, unless given: ``n - 2 + 2g`` on a base of genus ``g``).
 
     ``shifts``: for orders sharing a factor, ``(<alpha_1, s_j>, <alpha_2, s_j>)`` for each order
     (the coset of §18.8); ``None`` for ``s_j = 0``.  A sine of the root ``beta . x`` is then
@@ -94,6 +95,7 @@ def partial_fraction_terms(orders: tuple[int, ...], shifts=None, lin=None) -> li
     (0, 1, 1)
     """
     n = len(orders)
+    deg = n - 2 if deg is None else deg
     num = tuple((p, 1) for p in orders)
     sh = tuple(shifts) if shifts is not None else ((0, 0),) * n
 
@@ -104,7 +106,7 @@ def partial_fraction_terms(orders: tuple[int, ...], shifts=None, lin=None) -> li
         return RootFunction(sign, a, sines, (), shifts_)
 
     terms = []
-    for (al1, al2, a, b, c), k in sorted(_split(n - 2, n - 2, n - 2).items()):
+    for (al1, al2, a, b, c), k in sorted(_split(deg, deg, deg).items()):
         if c == 0:   # poles on x_1, x_2: (u, w) = (x_1, x_2)
             basis = ((1, 0), (0, 1))
             A = f(k, al1, ((1, -a),), basis[0])
@@ -129,7 +131,7 @@ def _offsets(basis, lin) -> tuple[Fraction, Fraction]:
     return Fraction(c1 * d - c2 * c, det), Fraction(-c1 * b + c2 * a, det)
 
 
-def merged_terms(orders: tuple[int, ...], shifts=None, lin=None) -> list[PoleTerm]:
+def merged_terms(orders: tuple[int, ...], shifts=None, lin=None, deg=None) -> list[PoleTerm]:
     """The terms with equal ``A`` and ``C`` and equal sines of ``B`` combined into one, whose ``B``
     carries a sum of exponentials.  Every step of §18.7 is linear in ``B`` and uses only the
     ``3P``-quasi-periodicity and the pole lines, which such terms share, so their sums may be
@@ -139,19 +141,24 @@ def merged_terms(orders: tuple[int, ...], shifts=None, lin=None) -> list[PoleTer
     (2, 1)
     """
     groups: dict = {}
-    for t in partial_fraction_terms(orders, shifts, lin):
+    for t in partial_fraction_terms(orders, shifts, lin, deg):
         key = (t.A, t.C, t.B.sines, t.B.shifts, t.offsets)
         groups.setdefault(key, []).append(t)
     out = []
     for (A, C, sines, bshifts, offsets), ts in groups.items():
         exps = [e for t in ts for e in t.B.exps]
+        spread = max(a for _, a in exps) - min(a for _, a in exps)
+        if spread > 2 * ts[0].B.pole_order:
+            # exponentials far apart have saddles far apart: each term keeps its own contours
+            out.extend(ts)
+            continue
         B = RootFunction(exps[0][0], exps[0][1], sines, tuple(exps[1:]), bshifts)
         out.append(PoleTerm(A, B, C, ts[0].basis, offsets))
     return out
 
 
 # ------------------------------------------------------------------ the evaluator
-_COMB = [[math.comb(n, k) for k in range(n + 1)] for n in range(16)]
+_COMB = [[math.comb(n, k) for k in range(n + 1)] for n in range(48)]
 
 
 def _half(y: Fraction) -> Fraction:
@@ -242,6 +249,24 @@ class _Eval:
         self.CU, self.CW = int(cu * D), int(cw * D)
         self.PHI0 = int(phi0 * self.Dc)
         self._nl = term.A.pole_order + term.B.pole_order + 2
+        # the exponentials e^{i pi a y} of a factor act as a shift -a/(2K) of its Fourier index:
+        # the contours go through the half-integer next to the saddle they move (conditioning
+        # only: the residues crossed are collected exactly, the phase labels are unchanged)
+        Kc = complex(K.mid())
+
+        def mean_a(f: RootFunction) -> float:
+            return sum(float(a) for _, a in f.exps) / len(f.exps)
+
+        self.aK = {w: mean_a(getattr(term, w)) / Kc for w in "ABC"}
+        self._cot = math.cos(theta) / math.sin(theta)
+
+    def _seat(self, y: Fraction, dy: complex) -> Fraction:
+        """The half-integer next to where the steepest-descent line through the saddle ``y + dy``
+        (direction ``e^{i theta}``) meets the real axis; ``floor(y) + 1/2`` when ``dy = 0``."""
+        if dy == 0:
+            return _half(y)
+        x = float(y) + dy.real - dy.imag * self._cot
+        return Fraction(math.floor(x)) + Fraction(1, 2)
 
     # phases ------------------------------------------------------------
     def _add(self, phi: int, value: acb):
@@ -292,7 +317,7 @@ class _Eval:
         key = (which, y0, s, L, sign, J)
         g = self._gc.get(key)
         if g is None:
-            for L2 in range(L + 1, 4):      # a longer Taylor grid serves shorter requests
+            for L2 in range(L + 1, self._nl + 1):      # a longer Taylor grid serves shorter requests
                 g2 = self._gc.get((which, y0, s, L2, sign, J))
                 if g2 is not None:
                     return [x[:L] for x in g2]
@@ -413,7 +438,7 @@ class _Eval:
         if v >= 0:
             return
         ystar = Fraction(-m, 2) - Fraction(3 * self.P) * (s_int + self.off[fint]) / (2 * self.H)
-        y0 = _half(ystar)
+        y0 = self._seat(ystar, 3 * self.P * self.aK[fint] / (4 * self.H))
         sg, ks = _between(base, y0)
         for k in ks:
             if fixed == "A":
@@ -444,7 +469,9 @@ class _Eval:
         H, P = self.H, self.P
         sp, rp = s + self.off["A"], r + self.off["B"]
         us, ws = Fraction(-P) * (2 * sp - rp) / H, Fraction(-P) * (2 * rp - sp) / H
-        u0, w0 = _half(us), _half(ws)
+        dA, dB = -self.aK["A"] / 2, -self.aK["B"] / 2        # shifts of the Fourier indices
+        u0 = self._seat(us, -P * (2 * dA - dB) / H)
+        w0 = self._seat(ws, -P * (2 * dB - dA) / H)
         base = Fraction(-1, 2)
         sg, ks = _between(base, u0)
         for k in ks:
@@ -570,7 +597,7 @@ class _Eval:
         base = Fraction(-1, 2)
         for t in range(2 * H):
             ustar = Fraction(m, 2) - Fraction(3 * P) * (t + self.off["A"] - self.off["B"]) / (2 * H)
-            u0 = _half(ustar)
+            u0 = self._seat(ustar, -3 * P * (self.aK["B"] - self.aK["A"]) / (4 * H))
             sg, ks = _between(base, u0)
             for k in ks:
                 val = res(k, t, False)
@@ -625,13 +652,15 @@ class _Eval:
 
 
 def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: int,
-                     reduced: bool = True, fine_plane: bool = False, cosets=None) -> dict[Fraction, acb]:
+                     reduced: bool = True, fine_plane: bool = False, cosets=None,
+                     genus: int = 0) -> dict[Fraction, acb]:
     """``{phi: piece}`` with ``sum = S(K)`` of §18.1 for SU(3) (``H != 0``, genus 0, three orders).
 
     Orders sharing a factor (§18.8): ``cosets`` lists the cosets (objects with ``shifts``, ``lin``,
     ``const`` and ``weight``, :meth:`CartanData.cosets`, given for the orientation of ``H``), and
     ``H``, ``P`` are the period data ``H L/P``, ``L = lcm p_j`` of every coset; the sum is
-    ``sum_s weight_s exp(-2 pi i K const_s) S_s(K)``.
+    ``sum_s weight_s exp(-2 pi i K const_s) S_s(K)``.  Base genus ``g``: ``Delta(z)^(n - 2 + 2g)`` in
+    the denominator (§18.9).
 
     ``phi`` is the Chern–Simons phase of the piece (``exp(2 pi i K phi)``), reduced to
     ``(-1/2, 1/2]`` when ``reduced``.  One run at the current precision (the caller compares two).
@@ -658,14 +687,14 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
     if H < 0:
         Kc = K.conjugate()
         neg = None if cosets is None else [c.negated() for c in cosets]
-        res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane, neg)
+        res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane, neg, genus)
         return {-phi: v.conjugate() for phi, v in res.items()}
     theta = _theta(H, complex(K.mid()))
     out: dict[Fraction, acb] = {}
     for co in (cosets if cosets is not None else [None]):
         shifts, lin, phi0, wt = (None, None, Fraction(0), 1) if co is None else (
             co.shifts, co.lin, -co.const, co.weight)
-        for term in merged_terms(orders, shifts, lin):
+        for term in merged_terms(orders, shifts, lin, len(orders) - 2 + 2 * genus):
             ev = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, phi0)
             for phi, v in ev.run().items():
                 if wt != 1:
@@ -712,7 +741,7 @@ def pole_domain(H: int, K: complex) -> None:
 
 
 def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
-              cosets=None) -> tuple[float, str]:
+              cosets=None, genus: int = 0) -> tuple[float, str]:
     """``(ball operations, description)`` of one evaluation of :func:`pole_sum_sectors`.
 
     Counts the grid nodes of every line integral (``~ 3P (H^2 + 4H)`` lines per term plus
@@ -730,8 +759,9 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
     growth = _growth(st, cabs, 2 * (sum(1 / p for p in orders) + 1))
     _, h, S, _ = pole_plan(math.sin(theta), cabs, digits, growth)
     nodes = 2 * int(math.ceil(S / h)) + 1
-    nterms = (len(merged_terms(tuple(orders))) if cosets is None else
-              sum(len(merged_terms(tuple(orders), c.shifts, c.lin)) for c in cosets))
+    deg = len(orders) - 2 + 2 * genus
+    nterms = (len(merged_terms(tuple(orders), deg=deg)) if cosets is None else
+              sum(len(merged_terms(tuple(orders), c.shifts, c.lin, deg)) for c in cosets))
     lines = nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P + 2 * P * H)
     points = nterms * ((3 * P) ** 2 + lines * P // 2)
     ops = 25.0 * lines * nodes + 30.0 * points

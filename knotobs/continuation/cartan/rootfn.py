@@ -161,7 +161,7 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
 
 
 def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc: Scale) -> list[list[acb]]:
-    """Taylor coefficients (length ``L <= 3``) of ``f(y) exp(-i pi c y^2 - 2 pi i K s y)`` at
+    """Taylor coefficients (length ``L``) of ``f(y) exp(-i pi c y^2 - 2 pi i K s y)`` at
     ``y_j = y0 + j step``, ``j = -J, ..., J`` (``y_j`` never an integer when ``f`` has poles).
 
     >>> from knotobs.numerics import working_precision
@@ -175,8 +175,6 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
     >>> abs(complex((g[5][0] - ref).mid())) < 1e-15, abs(complex((g[5][1] - dref).mid())) < 1e-14
     (True, True)
     """
-    if L > 3:
-        raise ValueError("grid_series: Taylor length > 3 is not needed here")
     ipi = sc.ipi
     s = _num(s)
     if f.extra and L > 1:
@@ -231,6 +229,31 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
                 out.append([v if den is None else v / den])
                 E = [Ek * Rk for Ek, Rk in zip(E, R)]
                 iE = [Ek * Rk for Ek, Rk in zip(iE, iR)]
+            j += nb
+            continue
+        if L > 3:
+            # higher poles (four or more orders, base genus >= 1): generic truncated series
+            for t in range(nb):
+                yt = y + t * step
+                d1 = 2 * quad * yt + lin
+                x = ser_exp([acb(0), d1, quad], L)
+                x0 = g if sign == 1 else -g
+                x = [x0 * c for c in x]
+                for k, ((p, e), Ek) in enumerate(zip(sines, E)):
+                    if e < 0:
+                        raise ValueError("grid_series: Taylor coefficients are for entire factors")
+                    iE = 1 / Ek
+                    ser, pw, fact = [], acb(1), 1
+                    for i in range(L):
+                        ser.append(pw / fact * (Ek - iE if i % 2 == 0 else Ek + iE))
+                        pw = pw * avals[k]
+                        fact *= i + 1
+                    for _ in range(e):
+                        x = ser_mul(x, ser, L)
+                out.append(x)
+                g = g * rho
+                rho = rho * Q2
+                E = [Ek * Rk for Ek, Rk in zip(E, R)]
             j += nb
             continue
         for t in range(nb):

@@ -60,7 +60,7 @@ def _group_N(group) -> int:
 
 
 def _covered(d: CartanData) -> None:
-    if d.entire or (d.N == 3 and len(d.big_orders) == 3):
+    if d.entire or d.N == 3:
         return
     orders = ", ".join(map(str, d.big_orders))
     if d.N == 3:
@@ -114,7 +114,7 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
     if method == "residues":
         ops, what = pole_cost(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
-                              d.cosets() if d.shared else None)
+                              d.cosets() if d.shared else None, d.genus)
         sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
         # cached grids and Laurent data: about one ball per 10 operations, ~150 bytes each
         return sec, 40 + ops * 15e-6, f"{where} ({what})"
@@ -172,7 +172,7 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
                 s = {}
                 cos = d.cosets() if d.shared else None
                 for phi, v in pole_sum_sectors(d.big_orders, d.HL, d.L, Ka, dg + extra, reduced,
-                                               cosets=cos).items():
+                                               cosets=cos, genus=d.genus).items():
                     key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
                     s[key] = s.get(key, acb(0)) + pre * v
             else:
@@ -243,7 +243,8 @@ class CartanContinuedValue(NotebookMixin):
         """One line naming the route."""
         if self.method == "residues":
             return ("SU(3) two-family Lawrence-Rozansky formula: plane integrals, line integrals of"
-                    " residues and iterated residues, each at its saddle (one sector per flat connection)")
+                    " residues and iterated residues, each at its saddle (one sector per Chern-Simons value"
+                    " of the flat connections)")
         return ("Gaussian integrals over the rotated Cartan (one per abelian flat connection"
                 f"{'' if self.method == 'closed' else ', ' + self.method})")
 
@@ -330,7 +331,9 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     else:
         total, sectors, cancelled = _sectors(d, level, K, N, digits, reduced, method)
         if method == "residues":
-            notes.append(f"{len(sectors)} sectors (the flat connections); {cancelled} further groups of"
+            what = ("the flat connections" if not d.genus else
+                    f"one per Chern-Simons value; on a base of genus {d.genus} the flat connections come in families")
+            notes.append(f"{len(sectors)} sectors ({what}); {cancelled} further groups of"
                          f" line integrals and residues cancel to below 10^-{digits + 6}")
     if Kv.imag == 0 and Kv.real == int(Kv.real):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
