@@ -9,10 +9,10 @@ hyperplanes, and :mod:`.poles` adds the line integrals of residues and the itera
 (§18.7, ``method="residues"``; ``"auto"`` picks it).  Each route runs twice (``digits + 3`` and
 ``digits + 12`` digits, with different steps and cut-offs) and the two runs must agree.
 
-Orders sharing a factor (SU(3), three orders): the sum splits into cosets of period
-``L = lcm p_j``, each summed by the same formula (§18.8).  Refused, with a message naming the
-case: base genus ``g >= 1``, ``H = 0``, four or more exceptional orders for SU(3) and three or more
-for ``N >= 4`` (orders sharing a factor: outside SU(3) with three orders)
+Orders sharing a factor (SU(3)): the sum splits into cosets of period ``L = lcm p_j``, each
+summed by the same formula (§18.8); base genus ``g >= 1`` and four or more fibers give poles of
+higher order (§18.9).  Refused, with a message naming the case: ``H = 0``, poles for ``N >= 4``
+(three or more exceptional orders or base genus ``g >= 1``)
 (docs/continuation_sun.md §18.4), ``K`` on the cut of §18.7.  SU(2) on every Seifert rational
 homology sphere with coprime orders is :func:`knotobs.continuation.level.continued_partition_function`."""
 
@@ -275,9 +275,10 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     Parameters
     ----------
     space : str or SeifertManifold
-        Base genus 0, ``H != 0``: at most two exceptional orders ``> 1`` (``"L(5,1)"``,
-        ``"L(7,2)"``, ``"M(0; 1; (2,1), (3,1))"``, ``"S^3"``), or, for SU(3), three
-        (``"Sigma(2,3,5)"``, §18.7; sharing a factor, ``"M(0; -1; (2,1), (4,1), (6,1))"``, §18.8).
+        ``H != 0``.  Base genus 0 with at most two exceptional orders ``> 1`` (``"L(5,1)"``,
+        ``"L(7,2)"``, ``"M(0; 1; (2,1), (3,1))"``, ``"S^3"``); for SU(3) also three or more
+        (``"Sigma(2,3,5)"``, §18.7; sharing a factor, ``"M(0; -1; (2,1), (4,1), (6,1))"``, §18.8)
+        and base genus ``g >= 1`` (``"M(1; -1; (2,1), (3,1))"``, ``"M(2; -1)"``, §18.9).
     group : str
         ``"SU(N)"``, ``N >= 2``.
     level, K : complex or str
