@@ -180,6 +180,15 @@ def test_sectors_contain_the_abelian_flat_connections():
     assert abs(z.pieces["integral"] + z.pieces["residues"] - z.numeric) < 1e-9
 
 
+def test_the_sectors_do_not_depend_on_K():
+    # each sector is one holomorphic piece exp(2 pi i K cs) f(K) (§18.9, seating the contours):
+    # the set of Chern-Simons values is the same at integer and at complex K.  A version that let
+    # the contour's residues move between sectors with K gave 13 sectors at one K and 19 at another
+    at_int = set(_z(NAMED, 4, 30).sectors)
+    at_cx = set(_z(NAMED, mpmath.mpc(5.5, 0.2), 12).sectors)
+    assert at_int == at_cx and len(at_int) == 13
+
+
 @pytest.mark.slow
 def test_named_space_at_two_more_levels():
     # M(0; -1; (2,1), (4,1), (6,1)) at k = 3, 5 (where SU(2) vanishes exactly) to 30 digits

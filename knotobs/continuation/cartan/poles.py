@@ -249,6 +249,7 @@ class _Eval:
         self.CU, self.CW = int(cu * D), int(cw * D)
         self.PHI0 = int(phi0 * self.Dc)
         self._nl = term.A.pole_order + term.B.pole_order + 2
+        self._label = None       # set while the pieces of one integral are collected under its label
         # the exponentials e^{i pi a y} of a factor act as a shift -a/(2K) of its Fourier index:
         # the contours go through the half-integer next to the saddle they move (conditioning
         # only: the residues crossed are collected exactly, the phase labels are unchanged)
@@ -271,6 +272,8 @@ class _Eval:
     # phases ------------------------------------------------------------
     def _add(self, phi: int, value: acb):
         """Adds a piece ``value ~ exp(2 pi i K phi / Dc)`` (``phi`` an integer, ``Dc = 24 P H^2``)."""
+        if self._label is not None:
+            phi = self._label
         if self.reduced:
             Dc = self.Dc
             n = (2 * phi + Dc) // (2 * Dc)
@@ -438,24 +441,33 @@ class _Eval:
         if v >= 0:
             return
         ystar = Fraction(-m, 2) - Fraction(3 * self.P) * (s_int + self.off[fint]) / (2 * self.H)
+        yg = _half(ystar)
         y0 = self._seat(ystar, 3 * self.P * self.aK[fint] / (4 * self.H))
-        sg, ks = _between(base, y0)
-        for k in ks:
+
+        def res(k: int) -> tuple[acb, int]:
             if fixed == "A":
-                val = self.point("A", m, s_fix, k_fix, "B", k, s_int, False)
-                ph = self._gphase(m, k, s_fix, s_int)
-            else:
-                val = self.point("A", k, s_int, False, "B", m, s_fix, k_fix)
-                ph = self._gphase(k, m, s_int, s_fix)
+                return (self.point("A", m, s_fix, k_fix, "B", k, s_int, False), self._gphase(m, k, s_fix, s_int))
+            return self.point("A", k, s_int, False, "B", m, s_fix, k_fix), self._gphase(k, m, s_int, s_fix)
+
+        # to the Gaussian's half-integer yg: each residue a piece of its own
+        sg, ks = _between(base, yg)
+        for k in ks:
+            val, ph = res(k)
             if val != 0:
                 self._add(ph, factor * sg * self.twopii * val)
-        # the integral through y0
+        # int_{C_yg} = int_{C_y0} + residues between (one piece: its label and its K-dependence
+        # are those of the Gaussian's contour; y0 only conditions the quadrature)
         L = -v
         D = self._dots(fint, y0, s_int, m, L)
         total = acb(0)
         for i in range(L):
             total += a[i] * D[L - 1 - i]
         tot = self._trap(y0, [total], self._line_laurent(fixed, m, s_fix, k_fix, s_int, a, v))
+        sg, ks = _between(yg, y0)
+        for k in ks:
+            val, _ = res(k)
+            if val != 0:
+                tot += sg * self.twopii * val
         # constant factor of the fixed variable is in a (its Laurent data includes it)
         if fixed == "A":
             ph = self._gphase(m, ystar, s_fix, s_int)
@@ -470,20 +482,35 @@ class _Eval:
         sp, rp = s + self.off["A"], r + self.off["B"]
         us, ws = Fraction(-P) * (2 * sp - rp) / H, Fraction(-P) * (2 * rp - sp) / H
         dA, dB = -self.aK["A"] / 2, -self.aK["B"] / 2        # shifts of the Fourier indices
+        ug, wg = _half(us), _half(ws)
         u0 = self._seat(us, -P * (2 * dA - dB) / H)
         w0 = self._seat(ws, -P * (2 * dB - dA) / H)
         base = Fraction(-1, 2)
-        sg, ks = _between(base, u0)
+        tpi = self.twopii
+        sg, ks = _between(base, ug)
         for k in ks:
-            self.line("A", k, s, False, r, base, factor * sg * self.twopii)
-        sg, ks = _between(base, w0)
+            self.line("A", k, s, False, r, base, factor * sg * tpi)
+        sg, ks = _between(base, wg)
         for k in ks:
-            self.line("B", k, r, False, s, u0, factor * sg * self.twopii)
+            self.line("B", k, r, False, s, ug, factor * sg * tpi)
+        # the plane on C_ug x C_wg is one piece; it is evaluated on the seated contours plus the
+        # lines between, all under the plane's label
+        label = self._gphase(us, ws, s, r)
+        prev, self._label = self._label, label
+        try:
+            sg, ks = _between(ug, u0)
+            for k in ks:
+                self.line("A", k, s, False, r, wg, factor * sg * tpi)
+            sg, ks = _between(wg, w0)
+            for k in ks:
+                self.line("B", k, r, False, s, u0, factor * sg * tpi)
+        finally:
+            self._label = prev
         if self.fine_plane:
             tot = self._plane_fine(u0, w0, s, r)
         else:
             tot = self._plane_corrected(u0, w0, s, r)
-        self._add(self._gphase(us, ws, s, r), factor * tot)
+        self._add(label, factor * tot)
 
     def _plane_fine(self, u0: Fraction, w0: Fraction, s: int, r: int) -> acb:
         """The plane by the plain tensor trapezoid rule, step below the pole distance (a check)."""
@@ -597,8 +624,9 @@ class _Eval:
         base = Fraction(-1, 2)
         for t in range(2 * H):
             ustar = Fraction(m, 2) - Fraction(3 * P) * (t + self.off["A"] - self.off["B"]) / (2 * H)
+            ug = _half(ustar)
             u0 = self._seat(ustar, -3 * P * (self.aK["B"] - self.aK["A"]) / (4 * H))
-            sg, ks = _between(base, u0)
+            sg, ks = _between(base, ug)
             for k in ks:
                 val = res(k, t, False)
                 if val != 0:
@@ -606,6 +634,9 @@ class _Eval:
             Av = self.grid("A", u0, t, 1)
             Bv = self.grid("B", m - u0, 0, 1, -1)
             tot = self._trap(u0, [x[0] * y[0] for x, y in zip(Av, Bv)], lambda k, t=t: laur(k, t, False))
+            sg, ks = _between(ug, u0)          # the piece is the integral on C_ug (see line)
+            for k in ks:
+                tot += sg * self.twopii * res(k, t, False)
             self._add(ph(ustar, t), f * K * tot)
 
     # assembly ------------------------------------------------------------------
