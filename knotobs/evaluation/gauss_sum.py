@@ -99,9 +99,11 @@ def lr_data(pq: Sequence[tuple[int, int]], coprime: bool = True) -> tuple[list[t
         for j in range(i + 1, len(orders)):
             if math.gcd(orders[i], orders[j]) != 1:
                 raise InvalidSeifertDataError(
-                    f"the Lawrence-Rozansky closed formula is used here only for pairwise coprime"
-                    f" orders; {orders[i]} and {orders[j]} share a factor (its finite-sum form then"
-                    f" misses residue terms). Use the surgery route (partition_function)."
+                    f"this computation takes pairwise coprime exceptional orders; {orders[i]} and"
+                    f" {orders[j]} share a factor (the single Lawrence-Rozansky sum then misses the"
+                    f" other cosets of the per-fiber Gauss sums). Such spaces are computed at finite"
+                    f" level by 'knotobs space' (partition_function) and continued in K by"
+                    f" 'knotobs continue' (SU(2), and SU(3) with --group)"
                 )
     P = math.prod(p for p, _ in out)
     H = sum(P // p * q for p, q in out)
