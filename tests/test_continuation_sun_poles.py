@@ -181,3 +181,31 @@ def test_plane_by_the_corrected_rule_equals_the_plain_trapezoid_rule():
         a = sum(pole_sum_sectors((2, 3, 5), 1, 30, acb(11.5, 0.2), 15).values(), acb(0))
         b = sum(pole_sum_sectors((2, 3, 5), 1, 30, acb(11.5, 0.2), 15, fine_plane=True).values(), acb(0))
         assert abs(complex((a - b).mid())) < 1e-14 * max(1, abs(complex(a.mid())))
+
+
+def test_grid_kernels_equal_the_generic_loop(monkeypatch):
+    # the written-out grid loops (rootfn._value_kernel, _taylor_kernel) against the generic loop
+    # they replace (an internal check: the same products in another order), values and Taylor
+    # coefficients, with shifts, several exponentials and poles
+    from flint import acb
+
+    from knotobs.continuation._num import bits, working_bits
+    from knotobs.continuation.cartan import rootfn
+    from knotobs.continuation.cartan.rootfn import RootFunction
+
+    fs = [(RootFunction(1, Fraction(0), ((2, 1), (3, 1), (5, 1), (1, -2))), 1),
+          (RootFunction(-3, Fraction(1), ((2, 1), (3, 1), (1, -1)), ((1, Fraction(-1)),), (1, 0, 0)), 1),
+          (RootFunction(1, Fraction(0), ((2, 1), (3, 1), (5, 1))), 2),
+          (RootFunction(-1, Fraction(1, 2), ((2, 2), (3, 1)), (), (1, 2)), 3)]
+    with working_bits(bits(20)):
+        sc = rootfn.Scale(acb(9.5, 0.3), acb(0.1, 0.003))
+        for f, L in fs:
+            fast = rootfn.grid_series(f, acb(0.5), acb(0.2, -0.15), 70, Fraction(2, 3), L, sc)
+            with monkeypatch.context() as m:
+                m.setattr(rootfn, "_value_kernel", lambda *a: None)
+                m.setattr(rootfn, "_taylor_kernel", lambda *a: None)
+                slow = rootfn.grid_series(f, acb(0.5), acb(0.2, -0.15), 70, Fraction(2, 3), L, sc)
+            assert len(fast) == len(slow) == 141
+            for x, y in zip(fast, slow):
+                for a, b in zip(x, y):
+                    assert abs(complex((a - b).mid())) <= 1e-25 * max(1.0, abs(complex(b.mid())))

@@ -160,6 +160,89 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
     return val, out
 
 
+@lru_cache(maxsize=256)
+def _value_kernel(coefs: tuple[int, ...], exps: tuple[int, ...]):
+    """A loop over ``nb`` grid nodes for one signature of factor (its exponential coefficients and
+    sine powers), written out with local variables: the same operations as the generic loop of
+    :func:`grid_series` without its per-node list building (about twice as fast).  ``None`` when
+    the signature is unusual (the generic loop is used)."""
+    if len(coefs) > 4 or len(exps) > 8 or any(abs(e) > 12 for e in exps):
+        return None
+    ne, ns = len(coefs), len(exps)
+    g = [f"g{i}" for i in range(ne)]
+    r = [f"r{i}" for i in range(ne)]
+    E = [f"E{k}" for k in range(ns)]
+    iE = [f"iE{k}" for k in range(ns)]
+    R = [f"R{k}" for k in range(ns)]
+    iR = [f"iR{k}" for k in range(ns)]
+    args = ", ".join(["nb", "emit", "Q2"] + g + r + E + iE + R + iR)
+    terms = []
+    for i, c in enumerate(coefs):
+        terms.append(g[i] if c == 1 else f"(-{g[i]})" if c == -1 else f"({c} * {g[i]})")
+    body = [f"        v = {' + '.join(terms)}"]
+    for i in range(ne):
+        body.append(f"        {g[i]} = {g[i]} * {r[i]}")
+        body.append(f"        {r[i]} = {r[i]} * Q2")
+    den = []
+    for k, e in enumerate(exps):
+        if e == 0:
+            continue
+        body.append(f"        s{k} = {E[k]} - {iE[k]}")
+        pw = " * ".join([f"s{k}"] * abs(e)) if abs(e) <= 4 else f"s{k} ** {abs(e)}"
+        if e > 0:
+            body.append(f"        v = v * {pw}")
+        else:
+            den.append(pw)
+    body.append(f"        emit([v / ({' * '.join(den)})])" if den else "        emit([v])")
+    for k in range(ns):
+        body.append(f"        {E[k]} = {E[k]} * {R[k]}")
+        body.append(f"        {iE[k]} = {iE[k]} * {iR[k]}")
+    src = f"def kernel({args}):\n    for _ in range(nb):\n" + "\n".join(body) + "\n"
+    scope: dict = {}
+    exec(compile(src, f"<grid kernel {coefs} {exps}>", "exec"), scope)
+    return scope["kernel"]
+
+
+@lru_cache(maxsize=256)
+def _taylor_kernel(sign: int, exps: tuple[int, ...], L: int):
+    """As :func:`_value_kernel` for the Taylor coefficients (``L = 2, 3``) of an entire factor: the
+    product rule of the generic loop, ``1/E`` and ``d/dy`` of the Gaussian kept by recurrences."""
+    if L not in (2, 3) or any(e < 0 or e > 6 for e in exps) or len(exps) > 8:
+        return None
+    ns = len(exps)
+    E = [f"E{k}" for k in range(ns)]
+    iE = [f"iE{k}" for k in range(ns)]
+    R = [f"R{k}" for k in range(ns)]
+    iR = [f"iR{k}" for k in range(ns)]
+    A = [f"a{k}" for k in range(ns)]
+    A2 = [f"b{k}" for k in range(ns)]
+    args = ", ".join(["nb", "emit", "g", "rho", "Q2", "d1", "dstep", "q2", "half"] + E + iE + R + iR + A + A2)
+    body = ["        x0 = g" if sign == 1 else "        x0 = -g", "        x1 = x0 * d1"]
+    if L == 3:
+        body.append("        x2 = x0 * (d1 * d1 + q2) * half")
+    for k, e in enumerate(exps):
+        if e == 0:
+            continue
+        body.append(f"        sv = {E[k]} - {iE[k]}")
+        body.append(f"        y1 = {A[k]} * ({E[k]} + {iE[k]})")
+        if L == 3:
+            body.append(f"        y2 = {A2[k]} * sv")
+        for _ in range(e):
+            if L == 3:
+                body.append("        x0, x1, x2 = x0 * sv, x0 * y1 + x1 * sv, x0 * y2 + x1 * y1 + x2 * sv")
+            else:
+                body.append("        x0, x1 = x0 * sv, x0 * y1 + x1 * sv")
+    body.append("        emit([x0, x1, x2])" if L == 3 else "        emit([x0, x1])")
+    body += ["        g = g * rho", "        rho = rho * Q2", "        d1 = d1 + dstep"]
+    for k in range(ns):
+        body.append(f"        {E[k]} = {E[k]} * {R[k]}")
+        body.append(f"        {iE[k]} = {iE[k]} * {iR[k]}")
+    src = f"def kernel({args}):\n    for _ in range(nb):\n" + "\n".join(body) + "\n"
+    scope: dict = {}
+    exec(compile(src, f"<taylor kernel {sign} {exps} {L}>", "exec"), scope)
+    return scope["kernel"]
+
+
 def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc: Scale) -> list[list[acb]]:
     """Taylor coefficients (length ``L``) of ``f(y) exp(-i pi c y^2 - 2 pi i K s y)`` at
     ``y_j = y0 + j step``, ``j = -J, ..., J`` (``y_j`` never an integer when ``f`` has poles).
@@ -206,6 +289,11 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
             gs = [(quad * y * y + ln * y).exp() for _, ln in lins]
             rhos = [(quad * (2 * y * step + step * step) + ln * step).exp() for _, ln in lins]
             cos_ = [co for co, _ in lins]
+            kern = _value_kernel(tuple(cos_), tuple(e for _, (p, e) in enumerate(sines)))
+            if kern is not None:
+                kern(nb, out.append, Q2, *gs, *rhos, *E, *iE, *R, *iR)
+                j += nb
+                continue
             single = len(lins) == 1
             for t in range(nb):
                 if single:
@@ -254,6 +342,14 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
                 g = g * rho
                 rho = rho * Q2
                 E = [Ek * Rk for Ek, Rk in zip(E, R)]
+            j += nb
+            continue
+        kern = _taylor_kernel(sign, tuple(e for _, e in sines), L)
+        if kern is not None:
+            iE = [1 / Ek for Ek in E]
+            iR = [1 / Rk for Rk in R]
+            kern(nb, out.append, g, rho, Q2, 2 * quad * y + lin, 2 * quad * step, 2 * quad, acb(1) / 2,
+                 *E, *iE, *R, *iR, *avals, *half_a2)
             j += nb
             continue
         for t in range(nb):
