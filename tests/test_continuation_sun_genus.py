@@ -11,11 +11,8 @@ cubic convolution route (independent implementations, §10 and §18.6); holomorp
 from __future__ import annotations
 
 import functools
-import math
-from fractions import Fraction
 
 import mpmath
-import numpy as np
 import pytest
 from flint import acb
 
@@ -23,7 +20,6 @@ from knotobs.continuation._num import bits, working_bits
 from knotobs.continuation.cartan import continued_sun_partition_function
 from knotobs.continuation.cartan.data import CartanData
 from knotobs.continuation.cartan.poles import pole_sum_sectors
-from knotobs.continuation.level import LRData
 from knotobs.guard import limits
 from knotobs.localisation import localisation_partition_function
 
@@ -38,35 +34,13 @@ def _z(space, K, digits):
         return continued_sun_partition_function(space, "SU(3)", K=K, digits=digits)
 
 
-def _finite_sum_genus(space, K):
-    """``B_3 ((-1)^3 3 K^2)^g K^-2 sum'_{lam in Lambda/PKQ} h(lam/K)`` with ``Delta^(n - 2 + 2g)`` in
-    the denominator of ``h``, double precision, written out independently of the continuation."""
-    lr = LRData.from_space(space, allow_genus=True)
-    P, H, g, n, N = lr.P, lr.H, lr.genus, len(lr.pq), 3
-    A = np.array([[2.0, -1.0], [-1.0, 2.0]])
-    x = np.indices((N * P * K,) * 2).reshape(2, -1).T.astype(float) / K
-    h = np.exp(-1j * np.pi * K * H * np.einsum("ti,ij,tj->t", x, np.linalg.inv(A), x) / P)
-    keep = np.ones(len(x), dtype=bool)
-    for i, j in ((0, 1), (1, 2), (0, 2)):
-        y = x[:, i:j].sum(axis=1)
-        for p, _ in lr.pq:
-            h = h * 2j * np.sin(np.pi * y / p)
-        wall = np.abs(np.round(y * K) % K) < 0.5
-        keep &= ~wall
-        h = h / np.where(wall, 1.0, 2j * np.sin(np.pi * y)) ** (n - 2 + 2 * g)
-    sigma = 1 if H > 0 else -1
-    B = (-np.exp(2j * np.pi * sigma) / (18 * P) * np.exp(-2j * np.pi * float(lr.phi) / K)
-         * (-3 * K ** 2) ** g)
-    return complex(B * h[keep].sum() / N / K ** 2)
-
-
 @pytest.mark.parametrize("space,k", [("M(1; -1; (2,1), (3,1))", 2), ("M(1; -1; (2,1), (3,1))", 3),
                                      ("M(2; -1)", 2), ("M(2; 1; (2,1))", 2), ("M(1; -2; (2,1), (3,1), (5,1))", 2)])
-def test_the_genus_sum_is_the_localisation_value(space, k):
-    # the torsion S_0lam^(2-2g-n) (Blau-Thompson 2006) in the Gauss sum of §18.1: against the
-    # weight sum of the localisation route (double precision, 1e-9)
+def test_the_genus_sum_is_the_localisation_value(space, k, su3_lattice_sum):
+    # the torsion S_0lam^(2-2g-n) (Blau-Thompson 2006) in the Gauss sum of §18.1 (written out in
+    # tests/conftest.py): against the weight sum of the localisation route (double precision)
     z = complex(localisation_partition_function(space, "SU(3)", k, digits=15).numeric)
-    assert abs(_finite_sum_genus(space, k + 3) - z) < 1e-9 * max(1, abs(z))
+    assert abs(su3_lattice_sum(space, k + 3) - z) < 1e-9 * max(1, abs(z))
 
 
 @pytest.mark.parametrize("space,ks", [("M(2; -1)", (2, 4)), ("M(1; -1; (2,1), (3,1))", (2,)), ("M(1; -1)", (1, 2)),

@@ -13,11 +13,9 @@ from __future__ import annotations
 
 import functools
 import itertools
-import math
 from fractions import Fraction
 
 import mpmath
-import numpy as np
 import pytest
 from flint import acb
 
@@ -25,7 +23,6 @@ from knotobs.continuation._num import bits, working_bits
 from knotobs.continuation.cartan import continued_sun_partition_function
 from knotobs.continuation.cartan.data import CartanData, Coset
 from knotobs.continuation.cartan.poles import pole_sum_sectors
-from knotobs.continuation.level import LRData
 from knotobs.guard import limits
 from knotobs.localisation import localisation_partition_function
 
@@ -45,47 +42,12 @@ def _z(space, K, digits):
 
 
 # ---------------------------------------------------------------- the coset split itself
-def _finite_coset_sum(space, K):
-    """``B_3 K^-2 sum_s sum'_{mu in Lambda/LKQ} h_s(mu/K)`` in double precision, every coset of the
-    diagonal ``Q/LQ`` in ``prod_j Q/p_j Q`` enumerated directly (no Weyl reduction), in the
-    fundamental-weight coordinates of the weight lattice."""
-    lr = LRData.from_space(space, allow_shared=True)
-    pq = list(lr.pq)
-    ps = [p for p, _ in pq]
-    L, N, r = math.lcm(*ps), 3, 2
-    A = np.array([[2.0, -1.0], [-1.0, 2.0]])
-    x = np.indices((N * L * K,) * r).reshape(r, -1).T.astype(float) / K
-    gauss = np.exp(-1j * np.pi * K * lr.H * np.einsum("ti,ij,tj->t", x, np.linalg.inv(A), x) / lr.P)
-    seen, total = set(), 0
-    for s in itertools.product(*[list(itertools.product(range(p), repeat=r)) for p in ps]):
-        if s in seen:
-            continue
-        for n in itertools.product(range(L), repeat=r):
-            seen.add(tuple(tuple((a + b) % p for a, b in zip(sj, n)) for sj, p in zip(s, ps)))
-        c = sum(np.array(sj, dtype=float) * q / p for sj, (p, q) in zip(s, pq))
-        const = sum(q * (np.array(sj) @ A @ np.array(sj)) / (2 * p) for sj, (p, q) in zip(s, pq))
-        h = gauss * np.exp(-2j * np.pi * K * (x @ c + const))
-        keep = np.ones(len(x), dtype=bool)
-        for i, j in ((0, 1), (1, 2), (0, 2)):
-            y = x[:, i:j].sum(axis=1)                       # <alpha, z>, alpha = e_i - e_j
-            for sj, (p, q) in zip(s, pq):
-                h = h * 2j * np.sin(np.pi * (y + A[i:j].sum(axis=0) @ np.array(sj)) / p)
-            wall = np.abs(np.round(y * K) % K) < 0.5
-            keep &= ~wall
-            h = h / np.where(wall, 1.0, 2j * np.sin(np.pi * y)) ** (len(pq) - 2)
-        total += h[keep].sum() / N / K ** r
-    sigma = 1 if lr.H > 0 else -1
-    B = (-np.exp(1j * np.pi * sigma * 8 / 4) / (6 * 3 * lr.P)
-         * np.exp(-1j * np.pi * 2 * float(lr.phi) / K))
-    return complex(B * total)
-
-
 @pytest.mark.parametrize("space,k", [(PRISM, 2), (QUATERNION, 3), (NAMED, 1), (NAMED, 2),
                                      ("M(0; 1; (3,1), (3,1), (3,1))", 1)])
-def test_the_coset_split_is_the_localisation_value(space, k):
-    # §18.8 written out in numpy against the weight sum of the localisation route (1e-9)
+def test_the_coset_split_is_the_localisation_value(space, k, su3_lattice_sum):
+    # §18.8 written out in numpy (tests/conftest.py) against the weight sum of the localisation route
     z = complex(localisation_partition_function(space, "SU(3)", k, digits=15).numeric)
-    assert abs(_finite_coset_sum(space, k + 3) - z) < 1e-9
+    assert abs(su3_lattice_sum(space, k + 3) - z) < 1e-9
 
 
 def test_without_cosets_the_single_sum_is_wrong():

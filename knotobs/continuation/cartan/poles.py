@@ -486,24 +486,13 @@ class _Eval:
         u0 = self._seat(us, -P * (2 * dA - dB) / H)
         w0 = self._seat(ws, -P * (2 * dB - dA) / H)
         base = Fraction(-1, 2)
-        tpi = self.twopii
-        sg, ks = _between(base, ug)
-        for k in ks:
-            self.line("A", k, s, False, r, base, factor * sg * tpi)
-        sg, ks = _between(base, wg)
-        for k in ks:
-            self.line("B", k, r, False, s, ug, factor * sg * tpi)
+        self._move_plane(s, r, base, ug, base, wg, factor)
         # the plane on C_ug x C_wg is one piece; it is evaluated on the seated contours plus the
         # lines between, all under the plane's label
         label = self._gphase(us, ws, s, r)
         prev, self._label = self._label, label
         try:
-            sg, ks = _between(ug, u0)
-            for k in ks:
-                self.line("A", k, s, False, r, wg, factor * sg * tpi)
-            sg, ks = _between(wg, w0)
-            for k in ks:
-                self.line("B", k, r, False, s, u0, factor * sg * tpi)
+            self._move_plane(s, r, ug, u0, wg, w0, factor)
         finally:
             self._label = prev
         if self.fine_plane:
@@ -511,6 +500,17 @@ class _Eval:
         else:
             tot = self._plane_corrected(u0, w0, s, r)
         self._add(label, factor * tot)
+
+    def _move_plane(self, s: int, r: int, ua: Fraction, ub: Fraction, wa: Fraction, wb: Fraction, factor: acb):
+        """The lines shed by moving the plane from ``C_ua x C_wa`` to ``C_ub x C_wb``: first ``u``
+        (lines at ``u = k``, ``w`` on ``C_wa``), then ``w`` (lines at ``w = k``, ``u`` on ``C_ub``)."""
+        tpi = self.twopii
+        sg, ks = _between(ua, ub)
+        for k in ks:
+            self.line("A", k, s, False, r, wa, factor * sg * tpi)
+        sg, ks = _between(wa, wb)
+        for k in ks:
+            self.line("B", k, r, False, s, ub, factor * sg * tpi)
 
     def _plane_fine(self, u0: Fraction, w0: Fraction, s: int, r: int) -> acb:
         """The plane by the plain tensor trapezoid rule, step below the pole distance (a check)."""

@@ -171,11 +171,8 @@ def _value_kernel(coefs: tuple[int, ...], exps: tuple[int, ...]):
     ne, ns = len(coefs), len(exps)
     g = [f"g{i}" for i in range(ne)]
     r = [f"r{i}" for i in range(ne)]
-    E = [f"E{k}" for k in range(ns)]
-    iE = [f"iE{k}" for k in range(ns)]
-    R = [f"R{k}" for k in range(ns)]
-    iR = [f"iR{k}" for k in range(ns)]
-    args = ", ".join(["nb", "emit", "Q2"] + g + r + E + iE + R + iR)
+    E, iE, names = _sine_names(ns)
+    args = ", ".join(["nb", "emit", "Q2"] + g + r + names)
     terms = []
     for i, c in enumerate(coefs):
         terms.append(g[i] if c == 1 else f"(-{g[i]})" if c == -1 else f"({c} * {g[i]})")
@@ -194,12 +191,25 @@ def _value_kernel(coefs: tuple[int, ...], exps: tuple[int, ...]):
         else:
             den.append(pw)
     body.append(f"        emit([v / ({' * '.join(den)})])" if den else "        emit([v])")
+    return _compile_kernel(f"grid kernel {coefs} {exps}", args, body, ns)
+
+
+def _sine_names(ns: int) -> tuple[list[str], list[str], list[str]]:
+    """Local names of the kernels: ``E_k``, ``1/E_k`` and all four lists ``E, 1/E, R, 1/R`` in order."""
+    E = [f"E{k}" for k in range(ns)]
+    iE = [f"iE{k}" for k in range(ns)]
+    return E, iE, E + iE + [f"R{k}" for k in range(ns)] + [f"iR{k}" for k in range(ns)]
+
+
+def _compile_kernel(name: str, args: str, body: list[str], ns: int):
+    """The loop ``for _ in range(nb): body`` with the recurrences ``E_k *= R_k``, ``1/E_k *= 1/R_k``
+    of the ``ns`` sines appended, compiled once."""
     for k in range(ns):
-        body.append(f"        {E[k]} = {E[k]} * {R[k]}")
-        body.append(f"        {iE[k]} = {iE[k]} * {iR[k]}")
+        body.append(f"        E{k} = E{k} * R{k}")
+        body.append(f"        iE{k} = iE{k} * iR{k}")
     src = f"def kernel({args}):\n    for _ in range(nb):\n" + "\n".join(body) + "\n"
     scope: dict = {}
-    exec(compile(src, f"<grid kernel {coefs} {exps}>", "exec"), scope)
+    exec(compile(src, f"<{name}>", "exec"), scope)
     return scope["kernel"]
 
 
@@ -210,13 +220,10 @@ def _taylor_kernel(sign: int, exps: tuple[int, ...], L: int):
     if L not in (2, 3) or any(e < 0 or e > 6 for e in exps) or len(exps) > 8:
         return None
     ns = len(exps)
-    E = [f"E{k}" for k in range(ns)]
-    iE = [f"iE{k}" for k in range(ns)]
-    R = [f"R{k}" for k in range(ns)]
-    iR = [f"iR{k}" for k in range(ns)]
+    E, iE, names = _sine_names(ns)
     A = [f"a{k}" for k in range(ns)]
     A2 = [f"b{k}" for k in range(ns)]
-    args = ", ".join(["nb", "emit", "g", "rho", "Q2", "d1", "dstep", "q2", "half"] + E + iE + R + iR + A + A2)
+    args = ", ".join(["nb", "emit", "g", "rho", "Q2", "d1", "dstep", "q2", "half"] + names + A + A2)
     body = ["        x0 = g" if sign == 1 else "        x0 = -g", "        x1 = x0 * d1"]
     if L == 3:
         body.append("        x2 = x0 * (d1 * d1 + q2) * half")
@@ -234,13 +241,7 @@ def _taylor_kernel(sign: int, exps: tuple[int, ...], L: int):
                 body.append("        x0, x1 = x0 * sv, x0 * y1 + x1 * sv")
     body.append("        emit([x0, x1, x2])" if L == 3 else "        emit([x0, x1])")
     body += ["        g = g * rho", "        rho = rho * Q2", "        d1 = d1 + dstep"]
-    for k in range(ns):
-        body.append(f"        {E[k]} = {E[k]} * {R[k]}")
-        body.append(f"        {iE[k]} = {iE[k]} * {iR[k]}")
-    src = f"def kernel({args}):\n    for _ in range(nb):\n" + "\n".join(body) + "\n"
-    scope: dict = {}
-    exec(compile(src, f"<taylor kernel {sign} {exps} {L}>", "exec"), scope)
-    return scope["kernel"]
+    return _compile_kernel(f"taylor kernel {sign} {exps} {L}", args, body, ns)
 
 
 def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc: Scale) -> list[list[acb]]:
