@@ -150,8 +150,10 @@ def _prepare(space, group, level, K, digits, phases, method):
     if method == "residues":
         pole_domain(d.H, complex(Kv))
     sec, mb, what = continuation_sun_cost(d, Kv, digits, method)
-    require(what, seconds=sec, memory_mb=mb,
-            accepted="ask for fewer digits, a smaller N or a lens space with smaller |H|")
+    accepted = ("ask for fewer digits, or a space with smaller |H|, fewer exceptional fibers or a lower"
+                " base genus" if method == "residues" else
+                "ask for fewer digits, a smaller N or a lens space with smaller |H|")
+    require(what, seconds=sec, memory_mb=mb, accepted=accepted)
     return digits, N, d, Kv, method
 
 
