@@ -572,8 +572,10 @@ def continued_partition_function(space, group="SU(2)", level=None, *, K=None, di
                                  phases: str = "reduced"):
     """Partition function at complex level (``level`` = k, or ``K = k + N``).
 
-    SU(2) on every Seifert manifold with ``e != 0``; SU(N), N >= 3, on lens spaces
-    (:mod:`knotobs.continuation.cartan`; three or more exceptional fibers are refused).
+    SU(2) on every Seifert manifold with ``e != 0``; SU(3) on every Seifert manifold with
+    ``e != 0`` within the size limits (orders sharing a factor and base genus ``g >= 1`` included);
+    SU(N), N >= 4, on lens spaces (:mod:`knotobs.continuation.cartan`; poles for N >= 4 are
+    refused).
 
     >>> z = continued_partition_function("Sigma(2,3,5)", "SU(2)", 3, digits=15)
     >>> abs(z.numeric - partition_function("Sigma(2,3,5)", "SU(2)", 3).numeric) < 1e-12
