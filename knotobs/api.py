@@ -592,7 +592,12 @@ def continued_partition_function(space, group="SU(2)", level=None, *, K=None, di
             else:
                 as_group(group)
     g = str(group).replace(" ", "").upper() if isinstance(group, str) else str(group)
-    if g.startswith("SU(") and g != "SU(2)":
+    from knotobs.continuation.cartan.verlinde import is_circle_product
+    from knotobs.fibrations.seifert import SeifertManifold, parse_space
+
+    M = space if isinstance(space, SeifertManifold) else parse_space(space)
+    if g.startswith("SU(") and (g != "SU(2)" or is_circle_product(M)):
+        # SU(N), and S^1 x Sigma_g for every N (the Verlinde polynomial, H = 0)
         from knotobs.continuation.cartan import continued_sun_partition_function
 
         return continued_sun_partition_function(space, g, level, K=K, digits=digits, phases=phases)

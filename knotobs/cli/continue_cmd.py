@@ -123,6 +123,12 @@ def continue_(
         raise ParseError("give --level k (complex, e.g. 7.5+0.3i), --K, or --couplings t,tt")
     if level is not None and K is not None:
         refuse("--K", f"give the level once: --level k or --K (= k + {sun or 2})")
+    if sun is None:
+        from knotobs.continuation.cartan.verlinde import is_circle_product
+        from knotobs.fibrations.seifert import parse_space
+
+        if is_circle_product(parse_space(target)):
+            sun = 2                  # S^1 x Sigma_g: the Verlinde polynomial, for every SU(N)
     if sun is not None:
         from knotobs.continuation.cartan import continued_sun_partition_function
         from knotobs.output.continuation_text import continued_text

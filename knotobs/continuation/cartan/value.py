@@ -243,6 +243,8 @@ class CartanContinuedValue(NotebookMixin):
     @property
     def how(self) -> str:
         """One line naming the route."""
+        if self.method == "verlinde":
+            return "the Verlinde polynomial in K (S^1 x Sigma_g, H = 0)"
         if self.method == "residues":
             return ("SU(3) two-family Lawrence-Rozansky formula: plane integrals, line integrals of"
                     " residues and iterated residues, each at its saddle (one sector per Chern-Simons value"
@@ -315,6 +317,9 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314 (rank one);
     M. Mariño, Commun. Math. Phys. 253 (2005) 25–49 (the Cartan integrals for simply-laced groups).
     """
+    circle = _circle_product(space, group, level, K, digits, phases, method)
+    if circle is not None:
+        return circle
     digits, N, d, Kv, method = _prepare(space, group, level, K, digits, phases, method)
     reduced = phases == "reduced"
     notes = []
@@ -342,6 +347,42 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
     return CartanContinuedValue(total, digits, Kv, N, str(d.space), sectors, method, tuple(notes),
                                 abelian_cs_values(d))
+
+
+def _circle_product(space, group, level, K, digits, phases, method):
+    """``S^1 x Sigma_g`` (``H = 0``): the Verlinde polynomial in ``K`` (§18.10), or ``None`` for
+    any other space."""
+    from knotobs.continuation.cartan.verlinde import is_circle_product, verlinde_degree, verlinde_value
+    from knotobs.fibrations.seifert import SeifertManifold, parse_space
+
+    M = space if isinstance(space, SeifertManifold) else parse_space(space)
+    if not is_circle_product(M):
+        return None
+    if phases not in PHASES:
+        raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
+    if method not in ("auto", "closed"):
+        raise DomainError(f"method = {method!r}: {M} is S^1 x Sigma_{M.genus}, whose partition function is"
+                          " the Verlinde polynomial in K; use 'auto'")
+    digits = check_digits(digits)
+    N = _group_N(group)
+    Kv = resolve_K(level, K, N)
+    from knotobs.numerics import working_precision
+
+    def comp(dg):
+        with working_bits(bits(dg)):
+            return verlinde_value(N, M.genus, to_acb(resolve_K(level, K, N)))
+
+    total = checked(comp, digits, f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)} (Verlinde polynomial)")
+    notes = ([f"S^1 x Sigma_{M.genus}: the Verlinde number, a polynomial of degree"
+              f" {verlinde_degree(N, M.genus)} in K with exact rational coefficients (interpolated from"
+              " the finite levels and checked at two more); no exponential factors"] if M.genus else
+             ["S^2 x S^1: Z = 1 at every level (the Verlinde number in genus 0)"])
+    if Kv.imag == 0 and Kv.real == int(Kv.real):
+        notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
+    with working_precision(digits + 5):
+        sectors = {Fraction(0): total}
+    return CartanContinuedValue(total, digits, Kv, N, str(M), sectors, "verlinde", tuple(notes),
+                                frozenset({Fraction(0)}))
 
 
 def continued_sun_Z(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> mpmath.mpc:
