@@ -575,7 +575,7 @@ def continued_partition_function(space, group="SU(2)", level=None, *, K=None, di
     SU(2) on every Seifert manifold with ``e != 0``; SU(3) on every Seifert manifold with
     ``e != 0`` within the size limits (orders sharing a factor and base genus ``g >= 1`` included);
     SU(N), N >= 4, on lens spaces (:mod:`knotobs.continuation.cartan`; poles for N >= 4 are
-    refused).
+    refused); ``S^1 x Sigma_g`` for every SU(N), as its Verlinde polynomial in ``K``.
 
     >>> z = continued_partition_function("Sigma(2,3,5)", "SU(2)", 3, digits=15)
     >>> abs(z.numeric - partition_function("Sigma(2,3,5)", "SU(2)", 3).numeric) < 1e-12
