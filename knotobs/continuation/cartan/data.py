@@ -214,29 +214,22 @@ class Coset:
     const: Fraction
     weight: int
 
+    @classmethod
+    def trivial(cls, n: int) -> "Coset":
+        """The one coset ``s = 0`` of ``n`` pairwise coprime orders."""
+        return cls(((0, 0),) * n, (Fraction(0), Fraction(0)), Fraction(0), 1)
+
     def negated(self) -> "Coset":
         """The coset data of ``-M`` (``q_j -> -q_j``)."""
         return Coset(self.shifts, (-self.lin[0], -self.lin[1]), -self.const, self.weight)
 
 
-def _weyl_root_coords() -> list[tuple[tuple[int, int], tuple[int, int]]]:
-    """The six elements of ``W(A_2)`` as integer matrices on root coordinates ``(t_1, t_2)``."""
-    s1 = ((-1, 1), (0, 1))          # alpha_1 -> -alpha_1, alpha_2 -> alpha_1 + alpha_2
-    s2 = ((1, 0), (1, -1))          # alpha_2 -> -alpha_2, alpha_1 -> alpha_1 + alpha_2
-
-    def mul(a, b):
-        return tuple(tuple(sum(a[i][k] * b[k][j] for k in range(2)) for j in range(2)) for i in range(2))
-
-    group = {((1, 0), (0, 1))}
-    todo = list(group)
-    while todo:
-        g = todo.pop()
-        for s in (s1, s2):
-            h = mul(s, g)
-            if h not in group:
-                group.add(h)
-                todo.append(h)
-    return sorted(group)
+def _weyl_image(perm: tuple[int, ...], t1: int, t2: int) -> tuple[int, int]:
+    """``w(t_1 alpha_1 + t_2 alpha_2)`` in root coordinates, ``w`` the permutation ``perm`` of the
+    coordinates of ``R^3`` (the convention of :func:`weyl_vectors`): ``t alpha = (t_1, t_2 - t_1, -t_2)``."""
+    v = (t1, t2 - t1, -t2)
+    w = tuple(v[perm[i]] for i in range(3))
+    return w[0], -w[2]
 
 
 @lru_cache(maxsize=32)
@@ -255,16 +248,15 @@ def _cosets(pq: tuple[tuple[int, int], ...], sigma: int) -> tuple[Coset, ...]:
         for n1 in range(L):
             for n2 in range(L):
                 coset_of[tuple(((t1 + n1) % p, (t2 + n2) % p) for (t1, t2), p in zip(tup, ps))] = cid
-    W = _weyl_root_coords()
+    W = list(itertools.permutations(range(3)))
     seen: set = set()
     out = []
     for cid, tup in enumerate(reps):
         if cid in seen:
             continue
         orbit = set()
-        for g in W:
-            img = tuple(((g[0][0] * t1 + g[0][1] * t2) % p, (g[1][0] * t1 + g[1][1] * t2) % p)
-                        for (t1, t2), p in zip(tup, ps))
+        for w in W:
+            img = tuple(tuple(x % p for x in _weyl_image(w, t1, t2)) for (t1, t2), p in zip(tup, ps))
             orbit.add(coset_of[img])
         seen |= orbit
         c1 = sum((Fraction(q * t1, p) for (t1, _), (p, q) in zip(tup, big)), Fraction(0))

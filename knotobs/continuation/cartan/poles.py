@@ -38,6 +38,7 @@ from fractions import Fraction
 from flint import acb, acb_mat, acb_poly, arb
 
 from knotobs.ball_series import ser_inv, ser_mul
+from knotobs.continuation.cartan.data import Coset
 from knotobs.continuation.cartan.rootfn import RootFunction, Scale, grid_series, laurent
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain"]
@@ -241,9 +242,7 @@ class _Eval:
         self._mc: dict = {}
         self._ex: dict = {}
         # phases are integers over Dc = 24 P H^2 D^2 (D: denominators of the coset offsets)
-        D = math.lcm(Fraction(cu).denominator, Fraction(cw).denominator)
-        while (Fraction(phi0) * 24 * P * H * H * D * D).denominator != 1:
-            D *= (Fraction(phi0) * 24 * P * H * H * D * D).denominator
+        D = math.lcm(Fraction(cu).denominator, Fraction(cw).denominator, Fraction(phi0).denominator)
         self.D = D
         self.Dc = 24 * P * H * H * D * D
         self.CU, self.CW = int(cu * D), int(cw * D)
@@ -687,8 +686,8 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
                      genus: int = 0) -> dict[Fraction, acb]:
     """``{phi: piece}`` with ``sum = S(K)`` of §18.1 for SU(3) (``H != 0``, genus 0, three orders).
 
-    Orders sharing a factor (§18.8): ``cosets`` lists the cosets (objects with ``shifts``, ``lin``,
-    ``const`` and ``weight``, :meth:`CartanData.cosets`, given for the orientation of ``H``), and
+    Orders sharing a factor (§18.8): ``cosets`` lists the cosets (:meth:`CartanData.cosets`, given
+    for the orientation of ``H``; default: the one coset of pairwise coprime orders), and
     ``H``, ``P`` are the period data ``H L/P``, ``L = lcm p_j`` of every coset; the sum is
     ``sum_s weight_s exp(-2 pi i K const_s) S_s(K)``.  Base genus ``g``: ``Delta(z)^(n - 2 + 2g)`` in
     the denominator (§18.9).
@@ -717,19 +716,17 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
     """
     if H < 0:
         Kc = K.conjugate()
-        neg = None if cosets is None else [c.negated() for c in cosets]
+        neg = None if cosets is None else [c.negated() for c in cosets]       # (the trivial one is its own)
         res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane, neg, genus)
         return {-phi: v.conjugate() for phi, v in res.items()}
     theta = _theta(H, complex(K.mid()))
     out: dict[Fraction, acb] = {}
-    for co in (cosets if cosets is not None else [None]):
-        shifts, lin, phi0, wt = (None, None, Fraction(0), 1) if co is None else (
-            co.shifts, co.lin, -co.const, co.weight)
-        for term in merged_terms(orders, shifts, lin, len(orders) - 2 + 2 * genus):
-            ev = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, phi0)
+    for co in (cosets if cosets is not None else [Coset.trivial(len(orders))]):
+        for term in merged_terms(orders, co.shifts, co.lin, len(orders) - 2 + 2 * genus):
+            ev = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, -co.const)
             for phi, v in ev.run().items():
-                if wt != 1:
-                    v = v * wt
+                if co.weight != 1:
+                    v = v * co.weight
                 out[phi] = out.get(phi, acb(0)) + v
     return out
 
@@ -791,8 +788,8 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
     _, h, S, _ = pole_plan(math.sin(theta), cabs, digits, growth)
     nodes = 2 * int(math.ceil(S / h)) + 1
     deg = len(orders) - 2 + 2 * genus
-    nterms = (len(merged_terms(tuple(orders), deg=deg)) if cosets is None else
-              sum(len(merged_terms(tuple(orders), c.shifts, c.lin, deg)) for c in cosets))
+    cosets = cosets if cosets is not None else [Coset.trivial(len(orders))]
+    nterms = sum(len(merged_terms(tuple(orders), c.shifts, c.lin, deg)) for c in cosets)
     lines = nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P + 2 * P * H)
     points = nterms * ((3 * P) ** 2 + lines * P // 2)
     # measured: higher poles cost more per line (Taylor grids) and per residue (longer series)

@@ -354,27 +354,24 @@ def grid_series(f: RootFunction, y0: acb, step: acb, J: int, s: int, L: int, sc:
             j += nb
             continue
         for t in range(nb):
-            if False:
-                pass
-            else:
-                yt = y + t * step
-                d1 = 2 * quad * yt + lin
-                x0 = g if sign == 1 else -g
-                x1 = x0 * d1
-                x2 = x0 * (d1 * d1 + 2 * quad) / 2 if L == 3 else None
-                for k, ((p, e), Ek) in enumerate(zip(sines, E)):
-                    iE = 1 / Ek
-                    sv, cv = Ek - iE, Ek + iE
-                    y1 = avals[k] * cv
-                    if e < 0:
-                        raise ValueError("grid_series: Taylor coefficients are for entire factors")
-                    for _ in range(e):
-                        if L == 3:
-                            y2 = half_a2[k] * sv
-                            x0, x1, x2 = x0 * sv, x0 * y1 + x1 * sv, x0 * y2 + x1 * y1 + x2 * sv
-                        else:
-                            x0, x1 = x0 * sv, x0 * y1 + x1 * sv
-                out.append([x0, x1] if L == 2 else [x0, x1, x2])
+            yt = y + t * step
+            d1 = 2 * quad * yt + lin
+            x0 = g if sign == 1 else -g
+            x1 = x0 * d1
+            x2 = x0 * (d1 * d1 + 2 * quad) / 2 if L == 3 else None
+            for k, ((p, e), Ek) in enumerate(zip(sines, E)):
+                iE = 1 / Ek
+                sv, cv = Ek - iE, Ek + iE
+                y1 = avals[k] * cv
+                if e < 0:
+                    raise ValueError("grid_series: Taylor coefficients are for entire factors")
+                for _ in range(e):
+                    if L == 3:
+                        y2 = half_a2[k] * sv
+                        x0, x1, x2 = x0 * sv, x0 * y1 + x1 * sv, x0 * y2 + x1 * y1 + x2 * sv
+                    else:
+                        x0, x1 = x0 * sv, x0 * y1 + x1 * sv
+            out.append([x0, x1] if L == 2 else [x0, x1, x2])
             g = g * rho
             rho = rho * Q2
             E = [Ek * Rk for Ek, Rk in zip(E, R)]

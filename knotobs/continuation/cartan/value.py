@@ -114,7 +114,7 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
     if method == "residues":
         ops, what = pole_cost(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
-                              d.cosets() if d.shared else None, d.genus)
+                              d.cosets(), d.genus)
         sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
         # cached grids and Laurent data: about one ball per 10 operations, ~150 bytes each
         return sec, 40 + ops * 15e-6, f"{where} ({what})"
@@ -172,9 +172,8 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
             elif method == "residues":
                 pre = B_N(d, Ka) / (Ka * Ka)
                 s = {}
-                cos = d.cosets() if d.shared else None
                 for phi, v in pole_sum_sectors(d.big_orders, d.HL, d.L, Ka, dg + extra, reduced,
-                                               cosets=cos, genus=d.genus).items():
+                                               cosets=d.cosets(), genus=d.genus).items():
                     key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
                     s[key] = s.get(key, acb(0)) + pre * v
             else:
@@ -366,8 +365,6 @@ def _circle_product(space, group, level, K, digits, phases, method):
     digits = check_digits(digits)
     N = _group_N(group)
     Kv = resolve_K(level, K, N)
-    from knotobs.numerics import working_precision
-
     def comp(dg):
         with working_bits(bits(dg)):
             return verlinde_value(N, M.genus, to_acb(resolve_K(level, K, N)))
@@ -379,9 +376,7 @@ def _circle_product(space, group, level, K, digits, phases, method):
              ["S^2 x S^1: Z = 1 at every level (the Verlinde number in genus 0)"])
     if Kv.imag == 0 and Kv.real == int(Kv.real):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
-    with working_precision(digits + 5):
-        sectors = {Fraction(0): total}
-    return CartanContinuedValue(total, digits, Kv, N, str(M), sectors, "verlinde", tuple(notes),
+    return CartanContinuedValue(total, digits, Kv, N, str(M), {Fraction(0): total}, "verlinde", tuple(notes),
                                 frozenset({Fraction(0)}))
 
 
