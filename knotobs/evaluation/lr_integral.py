@@ -83,10 +83,10 @@ class LRData:
     >>> d = LRData.from_space("Sigma(2,3,5)")
     >>> d.P, d.H, d.n
     (30, 1, 4)
-    >>> LRData.from_space("S^2xS^1")
+    >>> LRData.from_space("S^2xS^1")  # doctest: +ELLIPSIS
     Traceback (most recent call last):
     ...
-    knotobs.errors.InvalidSeifertDataError: M(0; 0) has H = 0 (infinite H_1): the Lawrence-Rozansky continuation needs a rational homology sphere
+    knotobs.errors.InvalidSeifertDataError: M(0; 0) has H = 0 (infinite H_1): ... continued in K as its Verlinde polynomial ...
 
     References
     ----------
@@ -125,9 +125,13 @@ class LRData:
         raw = list(M.fibers) + ([(1, M.b)] if M.b else []) if M.genus else list(M.surgery_presentation())
         pq, P, H, phi = data_of(raw) if raw else ([], 1, 0, Fraction(0))
         if H == 0:
+            fibered = any(a > 1 for a, _ in M.fibers)
+            where = ("with exceptional fibers and H = 0 the value is not continued in K;" if fibered else
+                     "S^1 x Sigma_g (no exceptional fibers, b = 0) is continued in K as its Verlinde"
+                     " polynomial by knotobs.continued_partition_function (knotobs continue SPACE);")
             raise InvalidSeifertDataError(
                 f"{M} has H = 0 (infinite H_1): the Lawrence-Rozansky continuation needs a"
-                " rational homology sphere"
+                f" rational homology sphere; {where} finite levels: knotobs space SPACE --level k"
             )
         return cls(M, tuple(pq), P, H, phi, M.genus)
 
