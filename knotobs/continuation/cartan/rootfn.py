@@ -26,7 +26,7 @@ from dataclasses import dataclass
 from fractions import Fraction
 from functools import lru_cache
 
-from flint import acb, arb
+from flint import acb, arb, ctx
 
 from knotobs.ball_series import bernoulli_plus, ser_exp, ser_inv, ser_mul, ser_sin
 
@@ -112,6 +112,30 @@ def _power(ser: list[acb], e: int, n: int) -> list[acb]:
     return out
 
 
+@lru_cache(maxsize=4096)
+def _sine_laurent(sines: tuple[tuple[int, int, int], ...], m: int, n: int, prec: int) -> tuple[int, list[acb]]:
+    """The sine product ``prod_p (2i sin(pi (m + x + t)/p))^e`` at ``x = 0`` as ``(v, n coefficients)``.
+
+    It does not depend on ``K``, so it is cached (keyed by the working precision ``prec``, which
+    the balls were computed at) and shared by every ``s``, kernel flag and level; callers must
+    not modify the list."""
+    val = 0
+    out = [acb(1)] + [acb(0)] * (n - 1)
+    for p, e, sh in sines:
+        ms = m + sh
+        if ms % p == 0:
+            # 2i sin(pi (m + x)/p) = (-1)^(m/p) 2i sin(pi x/p) = x * [(-1)^(m/p) 2i sin(pi x/p)/x]
+            sn = ser_sin(acb(0), arb.pi() / p, n + 1)[1:]
+            sg = -1 if (ms // p) % 2 else 1
+            ser = [acb(0, 2 * sg) * t for t in sn]
+            val += e
+        else:
+            sn = ser_sin(arb.pi() * ms / p, arb.pi() / p, n)
+            ser = [acb(0, 2) * t for t in sn]
+        out = ser_mul(out, _power(ser, e, n), n)
+    return val, out
+
+
 def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) -> tuple[int, list[acb]]:
     """Laurent expansion of ``f(m + x) exp(-i pi c (m+x)^2) exp(-2 pi i K s (m+x)) [k(x)]`` at ``x = 0``.
 
@@ -125,21 +149,8 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
     (-1, True)
     """
     ipi = sc.ipi
-    val = 0
-    out = [acb(1)] + [acb(0)] * (n - 1)
+    val, out = _sine_laurent(f.shifted_sines, m, n, ctx.prec)
     s = _num(s)
-    for p, e, sh in f.shifted_sines:
-        ms = m + sh
-        if ms % p == 0:
-            # 2i sin(pi (m + x)/p) = (-1)^(m/p) 2i sin(pi x/p) = x * [(-1)^(m/p) 2i sin(pi x/p)/x]
-            sn = ser_sin(acb(0), arb.pi() / p, n + 1)[1:]
-            sg = -1 if (ms // p) % 2 else 1
-            ser = [acb(0, 2 * sg) * t for t in sn]
-            val += e
-        else:
-            sn = ser_sin(arb.pi() * ms / p, arb.pi() / p, n)
-            ser = [acb(0, 2) * t for t in sn]
-        out = ser_mul(out, _power(ser, e, n), n)
     g = [acb(0)] * n
     for co, a in f.exps:
         lin = ipi * _q(a) - sc.tpiK * s
