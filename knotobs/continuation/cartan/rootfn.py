@@ -113,12 +113,12 @@ def _power(ser: list[acb], e: int, n: int) -> list[acb]:
 
 
 @lru_cache(maxsize=4096)
-def _sine_laurent(sines: tuple[tuple[int, int, int], ...], m: int, n: int, prec: int) -> tuple[int, list[acb]]:
+def _sine_laurent(sines: tuple[tuple[int, int, int], ...], m: int, n: int, prec: int) -> tuple[int, tuple[acb, ...]]:
     """The sine product ``prod_p (2i sin(pi (m + x + t)/p))^e`` at ``x = 0`` as ``(v, n coefficients)``.
 
     It does not depend on ``K``, so it is cached (keyed by the working precision ``prec``, which
-    the balls were computed at) and shared by every ``s``, kernel flag and level; callers must
-    not modify the list."""
+    the balls were computed at) and shared by every ``s``, kernel flag and level; the
+    coefficients are a tuple, so no caller can change the cached value."""
     val = 0
     out = [acb(1)] + [acb(0)] * (n - 1)
     for p, e, sh in sines:
@@ -133,7 +133,7 @@ def _sine_laurent(sines: tuple[tuple[int, int, int], ...], m: int, n: int, prec:
             sn = ser_sin(arb.pi() * ms / p, arb.pi() / p, n)
             ser = [acb(0, 2) * t for t in sn]
         out = ser_mul(out, _power(ser, e, n), n)
-    return val, out
+    return val, tuple(out)
 
 
 def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) -> tuple[int, list[acb]]:
