@@ -11,6 +11,7 @@ from __future__ import annotations
 
 import cmath
 import functools
+import math
 import random
 from fractions import Fraction
 
@@ -209,3 +210,47 @@ def test_grid_kernels_equal_the_generic_loop(monkeypatch):
             for x, y in zip(fast, slow):
                 for a, b in zip(x, y):
                     assert abs(complex((a - b).mid())) <= 1e-25 * max(1.0, abs(complex(b.mid())))
+
+
+def test_grids_moved_by_a_period_equal_the_direct_grids():
+    # rootfn.shifted_grid derives the grid at y0 + n with Fourier index s from the grid at y0 with
+    # index 0, by the quasi-periodicity of the sine product (2i sin(pi (y + n)/p) = (-1)^(n/p)
+    # 2i sin(pi y/p) when p | n, a fact of the trade) and of the Gaussian; an internal check
+    # against grid_series computed directly at y0 + n, for the factors of the Sigma(2,3,5) pole
+    # route and for shifted sines, fractional s, several exponentials, negative n and step
+    from flint import acb
+
+    from knotobs.continuation._num import bits, working_bits
+    from knotobs.continuation.cartan import rootfn
+    from knotobs.continuation.cartan.data import CartanData
+    from knotobs.continuation.cartan.poles import merged_terms
+    from knotobs.continuation.cartan.rootfn import RootFunction, period_phase
+
+    fs = [getattr(t, w) for t in merged_terms((2, 3, 5)) for w in "ABC"]
+    for co in CartanData.from_space("M(0; -1; (2,1), (4,1), (6,1))", 3).cosets()[1:3]:   # shifted sines
+        fs += [getattr(t, w) for t in merged_terms((2, 4, 6), co.shifts, co.lin, 1) for w in "ABC"]
+    fs += [RootFunction(-3, Fraction(1), ((2, 1), (3, 1), (1, -1)), ((1, Fraction(-5)),), (1, 0, 0)),
+           RootFunction(-1, Fraction(1, 2), ((2, 2), (3, 1)), (), (1, 2))]
+    assert period_phase(RootFunction(1, Fraction(1, 2), ((2, 1),), ((1, Fraction(0)),)), 2) is None
+    checked = 0
+    with working_bits(bits(20)):
+        sc = rootfn.Scale(acb(9.5, 0.3), acb(0.1, 0.003))
+        for i, f in enumerate(fs):
+            per = math.lcm(*(p for p, _ in f.sines)) if f.sines else 1
+            assert period_phase(f, per) is not None
+            L, s = 1 if f.extra or f.pole_order else 1 + i % 3, (Fraction(2, 3), 0, -2, Fraction(1, 5))[i % 4]
+            for n, sign in ((per, 1), (-per, -1), (2 * per, -1)):
+                y0, st = acb(0.5), sign * acb(0.1, -0.06)
+                base = rootfn.grid_series(f, y0, st, 30, 0, L, sc)
+                moved = rootfn.shifted_grid(base, y0, n, st, 30, s, period_phase(f, n), L, sc)
+                direct = rootfn.grid_series(f, y0 + n, st, 30, s, L, sc)
+                assert len(moved) == len(direct) == 61
+                for col in range(L):                   # errors against the size of the grid
+                    size = max(abs(complex(y[col].mid())) for y in direct)
+                    for x, y in zip(moved, direct):
+                        a, b = x[col], y[col]
+                        assert b.rad() < 1e-30 * size    # the reference itself is sharp
+                        assert abs(complex((a - b).mid())) <= 1e-25 * size
+                        assert a.overlaps(b)
+                checked += 1
+    assert checked == 3 * len(fs)

@@ -39,7 +39,7 @@ from flint import acb, acb_mat, acb_poly, arb
 
 from knotobs.ball_series import ser_inv, ser_mul
 from knotobs.continuation.cartan.data import Coset
-from knotobs.continuation.cartan.rootfn import RootFunction, Scale, grid_series, laurent
+from knotobs.continuation.cartan.rootfn import RootFunction, Scale, grid_series, laurent, period_phase, shifted_grid
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain"]
 
@@ -162,6 +162,11 @@ def merged_terms(orders: tuple[int, ...], shifts=None, lin=None, deg=None) -> li
 _COMB = [[math.comb(n, k) for k in range(n + 1)] for n in range(48)]
 
 
+def _q(x: Fraction) -> acb:
+    """A rational as a ball (``acb`` takes no ``Fraction``)."""
+    return acb(x.numerator) / x.denominator
+
+
 def _half(y: Fraction) -> Fraction:
     """The half-integer ``floor(y) + 1/2`` (a contour through it avoids every pole)."""
     return Fraction(math.floor(y)) + Fraction(1, 2)
@@ -238,6 +243,13 @@ class _Eval:
         self.out: dict[Fraction, acb] = {}
         self._lc: dict = {}
         self._gc: dict = {}
+        self._bc: dict = {}
+        # a period of the sines and exponentials of each factor (None: grids are not shifted)
+        self._period = {}
+        for w in "ABC":
+            f = getattr(term, w)
+            per = math.lcm(*(p for p, _ in f.sines)) if f.sines else 1
+            self._period[w] = per if period_phase(f, per) is not None else None
         self._dc: dict = {}
         self._mc: dict = {}
         self._ex: dict = {}
@@ -314,7 +326,11 @@ class _Eval:
         return r
 
     def grid(self, which: str, y0: Fraction, s: int, L: int, sign: int = 1, J: int | None = None) -> list[list[acb]]:
-        """``grid_series`` on ``y0 + sign j lstep``, ``|j| <= J`` (cached: many lines share a saddle)."""
+        """``grid_series`` on ``y0 + sign j lstep``, ``|j| <= J`` (cached: many lines share a saddle).
+
+        Grids whose ``y0`` differ by a period ``n`` of the sines (a multiple of their orders) are
+        the same up to an exponential (:func:`.rootfn.shifted_grid`): every ``(y0, s)`` is derived
+        from one grid per ``y0 mod period`` with index 0, about a tenth of the work per node."""
         J = self.Jl if J is None else J
         key = (which, y0, s, L, sign, J)
         g = self._gc.get(key)
@@ -323,10 +339,27 @@ class _Eval:
                 g2 = self._gc.get((which, y0, s, L2, sign, J))
                 if g2 is not None:
                     return [x[:L] for x in g2]
-            y0b = acb(y0.numerator) / y0.denominator
-            g = grid_series(getattr(self.t, which), y0b, sign * self.lstep, J, s + self.off[which], L, self.sc)
+            f = getattr(self.t, which)
+            per = self._period[which]
+            if per is None:
+                g = grid_series(f, _q(y0), sign * self.lstep, J, s + self.off[which], L, self.sc)
+            else:
+                n = per * math.floor(y0 / per)
+                base = self._base(which, y0 - n, L, sign, J)
+                g = shifted_grid(base, _q(y0 - n), n, sign * self.lstep, J, s + self.off[which],
+                                 period_phase(f, n), L, self.sc)
             self._gc[key] = g
         return g
+
+    def _base(self, which: str, y0: Fraction, L: int, sign: int, J: int) -> list[list[acb]]:
+        """The grid of ``which`` at ``y0`` with Fourier index 0 (no offset), cached."""
+        for L2 in range(L, self._nl + 1):
+            b = self._bc.get((which, y0, L2, sign, J))
+            if b is not None:
+                return b if L2 == L else [x[:L] for x in b]
+        b = self._bc[(which, y0, L, sign, J)] = grid_series(getattr(self.t, which), _q(y0), sign * self.lstep,
+                                                            J, 0, L, self.sc)
+        return b
 
     def ctaylor(self, v: int, n: int) -> list[acb]:
         """Taylor coefficients of ``C`` at the integer ``v`` (``C`` is entire)."""
