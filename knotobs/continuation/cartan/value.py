@@ -35,6 +35,7 @@ from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
 from knotobs.errors import KnotobsError
 from knotobs.guard import require
+from knotobs.paired_runs import run_both
 from knotobs.precision import certified_parts, check_digits
 from knotobs.representations.groups import parse_group
 
@@ -158,31 +159,34 @@ def _prepare(space, group, level, K, digits, phases, method):
 
 
 def _sectors(d: CartanData, level, K, N, digits, reduced, method):
-    """Sectors at ``digits`` digits by one method, both runs compared (caller has checked the size)."""
-    Kv = resolve_K(level, K, N)
-    runs = {}
+    """Sectors at ``digits`` digits by one method, both runs compared (caller has checked the size).
 
+    The two runs are independent; on a second core they run side by side (:mod:`knotobs.paired_runs`)."""
+    Kv = resolve_K(level, K, N)
     extra = _guard_digits(Kv, method)
 
     def comp(dg):
         with working_bits(bits(dg + extra)):
             Ka = to_acb(resolve_K(level, K, N))          # read again at this precision
             if method == "closed":
-                s = gaussian_sectors(d, Ka, reduced)
-            elif method == "residues":
+                return gaussian_sectors(d, Ka, reduced)
+            if method == "residues":
                 pre = B_N(d, Ka) / (Ka * Ka)
                 s = {}
                 for phi, v in pole_sum_sectors(d.big_orders, d.HL, d.L, Ka, dg + extra, reduced,
                                                cosets=d.cosets(), genus=d.genus).items():
                     key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
                     s[key] = s.get(key, acb(0)) + pre * v
-            else:
-                s = quadrature_sectors(d, Ka, dg, reduced)
-            runs[dg] = s
-            return sum(s.values(), acb(0))
+                return s
+            return quadrature_sectors(d, Ka, dg, reduced)
 
-    total = checked(comp, digits, f"SU({N}) Z({d.space}) at K = {mpmath.nstr(Kv, 10)} ({method})")
-    lo, hi = runs[digits + 3], runs[digits + 12]
+    lo, hi = run_both(comp, digits + 3, digits + 12, parallel=False if method == "closed" else None)
+
+    def total_of(dg):
+        with working_bits(bits(dg + extra)):
+            return sum((lo if dg == digits + 3 else hi).values(), acb(0))
+
+    total = checked(total_of, digits, f"SU({N}) Z({d.space}) at K = {mpmath.nstr(Kv, 10)} ({method})")
     out = {}
     cancelled = 0
     if method == "residues":
