@@ -67,3 +67,15 @@ def test_json_does_not_build_the_text(monkeypatch):
     monkeypatch.setattr(text, "render_polynomial", boom)
     out = json.loads(run("poly", "T(3,4)", "--family", "colored-jones", "-c", "5", "--json"))
     assert out["quantity"] == "colored-jones"
+
+
+def test_square_root_value_prints_no_root_of_unity_legend():
+    # M(0; 0; (3,1), (3,1), (3,1)) (e = -1) at SU(2) level 4: the exact value is printed as a
+    # rational multiple of sqrt(3), so no "with z..." legend may follow it (an internal check of
+    # the printed form; the value itself is the localisation route's, checked elsewhere)
+    out = run("space", "M(0; 0; (3,1), (3,1), (3,1))", "-k", "4")
+    line = [x for x in out.splitlines() if x.startswith("  exact")][0]
+    assert "sqrt(3)" in line and "z" not in line
+    assert "with z" not in out
+    js = json.loads(run("space", "M(0; 0; (3,1), (3,1), (3,1))", "-k", "4", "--json"))
+    assert js["root_of_unity"] == ""

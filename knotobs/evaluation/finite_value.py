@@ -56,8 +56,11 @@ class FiniteLevelValue:
 
     @property
     def root_of_unity(self) -> str:
-        """``"z40 = exp(2*pi*i/40)"``; empty when the value is rational (or not computed)."""
+        """``"z40 = exp(2*pi*i/40)"``; empty when no root of unity is printed (a rational value,
+        a rational multiple of a square root, or not computed)."""
         if self.exact is None or self.is_rational():
+            return ""
+        if getattr(self.exact, "coefficient", self.exact).is_rational():
             return ""
         n = self.exact.conductor
         return f"z{n} = exp(2*pi*i/{n})"
