@@ -7,8 +7,10 @@ Results come back exactly: every ball travels as the integers of its midpoint an
 (:func:`encode`, :func:`decode`), so the values are the same as one after the other.
 
 One run after the other is used when the platform has no ``fork``, when only one core is
-available to this process, inside a child (no nesting) or inside a worker process of a pool
-(grids already use the cores).  The child's exceptions are raised here.
+available to this process, when the process runs other threads (a lock held by one of them at
+the fork could stall the child; notebooks and servers run threads), inside a child (no nesting)
+or inside a worker process of a pool (grids already use the cores).  The child's exceptions are
+raised here.
 
 References
 ----------
@@ -21,6 +23,7 @@ import multiprocessing
 import os
 import pickle
 import signal
+import threading
 from typing import Any, Callable, TypeVar
 
 from flint import acb, arb, ctx
@@ -91,15 +94,15 @@ def decode(obj: Any) -> Any:
 
 
 def second_core() -> bool:
-    """Whether :func:`run_both` may fork: a ``fork`` platform, two cores for this process, not
-    itself a child or a pool worker.
+    """Whether :func:`run_both` may fork: a ``fork`` platform, two cores for this process, one
+    thread, not itself a child or a pool worker.
 
     >>> isinstance(second_core(), bool)
     True
     """
     if _IN_CHILD or not hasattr(os, "fork"):
         return False
-    if multiprocessing.parent_process() is not None:
+    if multiprocessing.parent_process() is not None or threading.active_count() > 1:
         return False
     try:
         n = len(os.sched_getaffinity(0))

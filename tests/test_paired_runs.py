@@ -91,3 +91,16 @@ def test_continued_value_is_the_same_serial_or_side_by_side(monkeypatch):
         z = continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", level="4.5+0.2i", digits=12)
         vals.append((z.numeric, dict(z.sectors)))
     assert vals[0] == vals[1]
+
+
+def test_no_fork_while_other_threads_run():
+    import threading
+
+    stop = threading.Event()
+    t = threading.Thread(target=stop.wait)
+    t.start()
+    try:
+        assert paired_runs.second_core() is False
+    finally:
+        stop.set()
+        t.join()
