@@ -35,7 +35,7 @@ from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
 from knotobs.errors import KnotobsError
 from knotobs.guard import require
-from knotobs.paired_runs import run_both
+from knotobs.paired_runs import run_both, second_core
 from knotobs.precision import certified_parts, check_digits
 from knotobs.representations.groups import parse_group
 
@@ -106,7 +106,8 @@ def _guard_digits(Kv, method: str) -> int:
 
 
 def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed") -> tuple[float, float, str]:
-    """Estimated ``(seconds, megabytes, description)`` of one continued value (both runs).
+    """Estimated ``(seconds, megabytes, description)`` of one continued value (both runs; for the
+    residue route the longer of them when they run side by side, :func:`knotobs.paired_runs.second_core`).
 
     >>> s, mb, what = continuation_sun_cost(CartanData.from_space("L(5,1)", 3), mpmath.mpc(7.5, 0.3), 30)
     >>> s < 1 and "900 exponentials" in what
@@ -116,7 +117,10 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     if method == "residues":
         ops, what = pole_cost(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
                               d.cosets(), d.genus)
-        sec = (ball_seconds(ops, digits + 12) + ball_seconds(ops * 0.8, digits + 3)) / 6.0   # measured
+        fine, coarse = ball_seconds(ops, digits + 12) / 6.0, ball_seconds(ops * 0.8, digits + 3) / 6.0  # measured
+        # side by side (knotobs.paired_runs) the wait is the longer run, about 30% slower beside
+        # the other (measured on two cores)
+        sec = 1.3 * max(fine, coarse) if second_core() else fine + coarse
         # cached grids and Laurent data: about one ball per 10 operations, ~150 bytes each
         return sec, 40 + ops * 15e-6, f"{where} ({what})"
     terms = gaussian_terms(d)
