@@ -10,7 +10,8 @@ One run after the other is used when the platform has no ``fork``, when only one
 available to this process, when the process runs other threads (a lock held by one of them at
 the fork could stall the child; notebooks and servers run threads), inside a child (no nesting)
 or inside a worker process of a pool (grids already use the cores).  The child's exceptions are
-raised here.
+raised here.  Stopping the command stops the child: Ctrl-C kills it in the parent's cleanup,
+and on Linux a parent killed outright takes the child with it (the parent-death signal).
 
 References
 ----------
@@ -120,6 +121,19 @@ def _read_all(fd: int) -> bytes:
         chunks.append(b)
 
 
+def _die_with(parent: int) -> None:
+    """Ask the kernel to end this child when ``parent`` ends (Linux), so a killed command leaves
+    no run behind; elsewhere the child ends when it finds the pipe closed."""
+    try:
+        import ctypes
+
+        ctypes.CDLL(None).prctl(1, signal.SIGKILL)     # PR_SET_PDEATHSIG
+    except Exception:                                  # noqa: BLE001  (not Linux)
+        pass
+    if os.getppid() != parent:                         # the parent ended before the request
+        os._exit(1)
+
+
 def run_both(compute: Callable[[int], T], a: int, b: int, parallel: bool | None = None) -> tuple[T, T]:
     """``(compute(a), compute(b))``; ``compute(b)`` in a forked child when :func:`second_core`.
 
@@ -135,6 +149,7 @@ def run_both(compute: Callable[[int], T], a: int, b: int, parallel: bool | None 
         parallel = second_core()
     if not parallel:
         return compute(a), compute(b)
+    parent = os.getpid()
     try:
         r, w = os.pipe()
         pid = os.fork()
@@ -147,6 +162,7 @@ def run_both(compute: Callable[[int], T], a: int, b: int, parallel: bool | None 
         try:
             os.close(r)
             signal.signal(signal.SIGINT, signal.SIG_DFL)
+            _die_with(parent)
             try:
                 payload = pickle.dumps(("ok", encode(compute(b))))
             except BaseException as exc:               # noqa: BLE001  (sent to the parent)

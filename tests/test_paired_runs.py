@@ -11,6 +11,7 @@ from __future__ import annotations
 
 import os
 import random
+import sys
 
 import pytest
 from flint import acb, arb, ctx
@@ -104,3 +105,48 @@ def test_no_fork_while_other_threads_run():
     finally:
         stop.set()
         t.join()
+
+
+_SLEEPER = """
+import os, sys, time
+from flint import acb
+from knotobs.paired_runs import run_both
+def comp(dg):
+    if dg == 2:
+        print(os.getpid(), flush=True)
+    time.sleep(60)
+    return acb(dg)
+try:
+    run_both(comp, 1, 2, parallel=True)
+except KeyboardInterrupt:
+    sys.exit(3)
+"""
+
+
+@pytest.mark.parametrize("sig", ["SIGINT"] + (["SIGKILL"] if sys.platform.startswith("linux") else []))
+def test_stopping_the_command_stops_the_child(sig):
+    # Ctrl-C (SIGINT to the parent) kills the child in the parent's cleanup; a parent killed
+    # outright takes the child with it (the kernel's parent-death signal, Linux)
+    import signal
+    import subprocess
+    import time
+
+    p = subprocess.Popen([sys.executable, "-c", _SLEEPER], stdout=subprocess.PIPE, text=True,
+                         preexec_fn=lambda: signal.signal(signal.SIGINT, signal.SIG_DFL))
+    child = int(p.stdout.readline())
+    os.kill(p.pid, getattr(signal, sig))
+    p.wait(timeout=20)
+    for _ in range(100):
+        try:
+            os.kill(child, 0)
+        except ProcessLookupError:
+            break
+        try:                                   # reap it if it is ours (it is not: the parent's)
+            os.waitpid(child, os.WNOHANG)
+        except ChildProcessError:
+            pass
+        time.sleep(0.1)
+    else:
+        raise AssertionError(f"child {child} still runs after {sig} to its parent")
+    if sig == "SIGINT":
+        assert p.returncode == 3
