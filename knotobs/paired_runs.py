@@ -193,7 +193,10 @@ def run_both(compute: Callable[[int], T], a: int, b: int, parallel: bool | None 
                 pass
     if not data:
         return first, compute(b)                       # the child died: do its run here
-    status, value = pickle.loads(data)
+    try:
+        status, value = pickle.loads(data)
+    except Exception:                                  # noqa: BLE001  (an exception that cannot be rebuilt)
+        return first, compute(b)
     if status == "err":
         raise value
     return first, decode(value)

@@ -150,3 +150,18 @@ def test_stopping_the_command_stops_the_child(sig):
         raise AssertionError(f"child {child} still runs after {sig} to its parent")
     if sig == "SIGINT":
         assert p.returncode == 3
+
+
+class _Unrebuildable(Exception):
+    def __init__(self, a, b):                  # pickles, but cannot be rebuilt from its args
+        super().__init__(f"{a} and {b}")
+
+
+def test_an_error_that_cannot_travel_is_raised_by_a_run_here():
+    def comp(dg):
+        if dg == 2:
+            raise _Unrebuildable("x", "y")
+        return acb(dg)
+
+    with pytest.raises(_Unrebuildable, match="x and y"):
+        run_both(comp, 1, 2, parallel=True)
