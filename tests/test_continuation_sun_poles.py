@@ -138,6 +138,21 @@ def test_far_from_the_real_axis_the_digits_are_confirmed_and_z_is_holomorphic():
     assert _agree(f0, z.numeric, 10)
 
 
+def test_near_K_zero_the_precision_follows_the_size_of_the_integrands():
+    # at K = 1 + 0.5i the Gaussian is wide (b = 2 |K|/90) and the integrands reach ~10^50 along the
+    # lines while Z ~ 10^-6; the route raises the working precision by that range (before, the two
+    # runs lost every digit and the value was refused).  Two precisions agree to their digits and
+    # the Cauchy-Riemann equations hold (common practice)
+    k0 = mpmath.mpc(1, 0.5)
+    z30, z20 = _z(k0, 30).numeric, _z(k0, 20).numeric
+    assert 1e-8 < abs(z30) < 1e-5
+    assert abs(z20 - z30) < 1e-20
+    eps = mpmath.mpf("1e-4")
+    f0, fr, fu = _z(k0, 16).numeric, _z(k0 + eps, 16).numeric, _z(k0 + 1j * eps, 16).numeric
+    d_re, d_im = (fr - f0) / eps, (fu - f0) / (1j * eps)
+    assert abs(d_re - d_im) < 1e-2 * abs(d_re)
+
+
 @pytest.mark.slow
 def test_holomorphic_between_integers_by_cauchys_integral_formula():
     # the mean of a holomorphic function over a circle is its value at the centre, and its contour

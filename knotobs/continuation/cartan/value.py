@@ -30,7 +30,7 @@ from knotobs._notebook import NotebookMixin
 from knotobs.continuation._num import ball_seconds, bits, checked, to_acb, to_mpc, working_bits
 from knotobs.continuation.cartan.data import B_N, CartanData, PolesNotCoveredError
 from knotobs.continuation.cartan.gaussian import abelian_cs_values, gaussian_sectors, gaussian_terms
-from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_sum_sectors
+from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_range_digits, pole_sum_sectors
 from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_sectors
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
 from knotobs.errors import KnotobsError
@@ -105,6 +105,16 @@ def _guard_digits(Kv, method: str) -> int:
     return int(math.ceil(math.pi * abs(float(Kv.imag)) / math.log(10))) + 2
 
 
+def _range_digits(d: CartanData, Kv, method: str) -> int:
+    """Working digits beyond ``bits``' 20 guard digits that the residue route loses to the size of
+    its integrands (:func:`.poles.pole_range_digits`, an upper estimate; 15 of the guard digits
+    are counted against it).  Only the precision is raised, not the quadrature's target."""
+    if method != "residues":
+        return 0
+    lost = pole_range_digits(d.big_orders, d.HL, d.L, complex(Kv), d.cosets(), d.genus)
+    return max(0, int(math.ceil(lost)) - 15)
+
+
 def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed") -> tuple[float, float, str]:
     """Estimated ``(seconds, megabytes, description)`` of one continued value (both runs; for the
     residue route the longer of them when they run side by side, :func:`knotobs.paired_runs.second_core`).
@@ -117,7 +127,9 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     if method == "residues":
         ops, what = pole_cost(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
                               d.cosets(), d.genus)
-        fine, coarse = ball_seconds(ops, digits + 12) / 6.0, ball_seconds(ops * 0.8, digits + 3) / 6.0  # measured
+        rng = _range_digits(d, Kv, method)
+        fine = ball_seconds(ops, digits + 12 + rng) / 6.0                  # measured
+        coarse = ball_seconds(ops * 0.8, digits + 3 + rng) / 6.0
         # side by side (knotobs.paired_runs) the wait is the longer run, about 30% slower beside
         # the other (measured on two cores)
         sec = 1.3 * max(fine, coarse) if second_core() else fine + coarse
@@ -168,9 +180,10 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
     The two runs are independent; on a second core they run side by side (:mod:`knotobs.paired_runs`)."""
     Kv = resolve_K(level, K, N)
     extra = _guard_digits(Kv, method)
+    rng = _range_digits(d, Kv, method)
 
     def comp(dg):
-        with working_bits(bits(dg + extra)):
+        with working_bits(bits(dg + extra + rng)):
             Ka = to_acb(resolve_K(level, K, N))          # read again at this precision
             if method == "closed":
                 return gaussian_sectors(d, Ka, reduced)
