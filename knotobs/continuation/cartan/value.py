@@ -177,7 +177,8 @@ def _prepare(space, group, level, K, digits, phases, method):
 def _sectors(d: CartanData, level, K, N, digits, reduced, method):
     """Sectors at ``digits`` digits by one method, both runs compared (caller has checked the size).
 
-    The two runs are independent; on a second core they run side by side (:mod:`knotobs.paired_runs`)."""
+    The two runs are independent; for the residue route (seconds per run) they go side by side on a
+    second core (:mod:`knotobs.paired_runs`); the other methods take milliseconds, less than a fork."""
     Kv = resolve_K(level, K, N)
     extra = _guard_digits(Kv, method)
     rng = _range_digits(d, Kv, method)
@@ -197,7 +198,7 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
                 return s
             return quadrature_sectors(d, Ka, dg, reduced)
 
-    lo, hi = run_both(comp, digits + 3, digits + 12, parallel=False if method == "closed" else None)
+    lo, hi = run_both(comp, digits + 3, digits + 12, parallel=None if method == "residues" else False)
 
     def total_of(dg):
         with working_bits(bits(dg + extra)):
