@@ -39,7 +39,8 @@ from flint import acb, acb_mat, acb_poly, arb
 
 from knotobs.ball_series import ser_inv, ser_mul
 from knotobs.continuation.cartan.data import Coset
-from knotobs.continuation.cartan.rootfn import RootFunction, Scale, grid_series, laurent, period_phase, shifted_grid
+from knotobs.continuation.cartan.rootfn import (RootFunction, Scale, _q, grid_series, laurent, period_phase,
+                                               shifted_grid)
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain",
            "pole_range_digits"]
@@ -163,11 +164,6 @@ def merged_terms(orders: tuple[int, ...], shifts=None, lin=None, deg=None) -> li
 _COMB = [[math.comb(n, k) for k in range(n + 1)] for n in range(48)]
 
 
-def _q(x: Fraction) -> acb:
-    """A rational as a ball (``acb`` takes no ``Fraction``)."""
-    return acb(x.numerator) / x.denominator
-
-
 def _half(y: Fraction) -> Fraction:
     """The half-integer ``floor(y) + 1/2`` (a contour through it avoids every pole)."""
     return Fraction(math.floor(y)) + Fraction(1, 2)
@@ -202,16 +198,19 @@ def pole_plan(sin_theta: float, c_abs: float, digits: int, growth: float) -> tup
 
 
 def _growth(st: float, cabs: float, rates: float) -> float:
-    """``growth`` of :func:`pole_plan`: the sines grow like ``exp(pi |Im y| rate)``,
+    """Growth rate of a line's integrand in ``s``: the sines grow like ``exp(pi |Im y| rate)``,
     ``Im y = s st``; the offset of the contour from the saddle (at most 1/2 plus the shift by
-    the linear exponentials) adds about ``3 pi |c| |s|``.
-
-    The plan passes ``st = max(|sin theta|, |cos theta|)``: along the line ``Im y`` grows like
-    ``|sin theta|``, but the aliasing bound of the trapezoid rule moves the line across itself,
-    where ``Im y`` changes like ``|cos theta|``.  With ``|sin theta|`` alone the step was too long
-    for contours near the real axis (``K`` in the lower half plane near ``0``: at ``K = 0.6 - 0.5i``
-    on Σ(2,3,5) runs of 13 and 30 digits differed at ``10^-2``)."""
+    the linear exponentials) adds about ``3 pi |c| |s|``."""
     return math.pi * st * rates + 3 * math.pi * cabs + 1
+
+
+def _plan_growth(theta: float, cabs: float, rates: float) -> float:
+    """``growth`` of :func:`pole_plan`: :func:`_growth` along the line (``|sin theta|``) or across
+    it (``|cos theta|``), whichever is larger.  The aliasing bound of the trapezoid rule moves the
+    line across itself, where ``Im y`` changes like ``|cos theta|``; with ``|sin theta|`` alone the
+    step was too long for contours near the real axis (``K`` in the lower half plane near ``0``:
+    at ``K = 0.6 - 0.5i`` on Σ(2,3,5) runs of 13 and 30 digits differed at ``10^-2``)."""
+    return _growth(max(abs(math.sin(theta)), abs(math.cos(theta))), cabs, rates)
 
 
 def _rate(f: RootFunction) -> float:
@@ -241,8 +240,7 @@ class _Eval:
         self.tau = (acb(0, 1) * arb(theta)).exp()
         cabs = float(abs(complex(self.sc.c.mid())))
         st = abs(math.sin(theta))
-
-        growth = _growth(max(st, abs(math.cos(theta))), cabs, _line_rate(term))   # along and across
+        growth = _plan_growth(theta, cabs, _line_rate(term))
         self.h, self.hl, self.S, T = pole_plan(math.sin(theta), cabs, digits, growth)
         # the plain rule for the plane (a check): exp(-pi |c| Q), Q >= 1.5 s^2 on the square's boundary
         self.J2 = int(math.ceil(self.S * math.sqrt(2 / 1.5) / self.h))
@@ -561,8 +559,7 @@ class _Eval:
     def _plane_fine(self, u0: Fraction, w0: Fraction, s: int, r: int) -> acb:
         """The plane by the plain tensor trapezoid rule, step below the pole distance (a check)."""
         J = self.J2
-        u0b = acb(u0.numerator) / u0.denominator
-        w0b = acb(w0.numerator) / w0.denominator
+        u0b, w0b = _q(u0), _q(w0)
         Av = [x[0] for x in grid_series(self.t.A, u0b, self.step, J, s + self.off["A"], 1, self.sc)]
         Bv = [x[0] for x in grid_series(self.t.B, w0b, self.step, J, r + self.off["B"], 1, self.sc)]
         Cv = [x[0] for x in grid_series(self.t.C, u0b + w0b, self.step, 2 * J, 0, 1, self.sc)]
@@ -832,7 +829,7 @@ def pole_range_digits(orders: tuple[int, ...], H: int, P: int, K: complex, coset
     deg = len(orders) - 2 + 2 * genus
     cosets = cosets if cosets is not None else [Coset.trivial(len(orders))]
     rate = max(_line_rate(t) for c in cosets for t in merged_terms(tuple(orders), c.shifts, c.lin, deg))
-    g = _growth(st, cabs, rate)
+    g = _growth(st, cabs, rate)                        # along the line: the values summed
     return g * g / (4 * math.pi * 2 * cabs) / math.log(10)
 
 
@@ -851,8 +848,7 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
     H = abs(H)
     theta = _theta(H, K)
     cabs = abs(K) * H / (3 * P)
-    st = abs(math.sin(theta))
-    growth = _growth(max(st, abs(math.cos(theta))), cabs, 2 * (sum(1 / p for p in orders) + 1))
+    growth = _plan_growth(theta, cabs, 2 * (sum(1 / p for p in orders) + 1))
     _, h, S, _ = pole_plan(math.sin(theta), cabs, digits, growth)
     nodes = 2 * int(math.ceil(S / h)) + 1
     deg = len(orders) - 2 + 2 * genus
