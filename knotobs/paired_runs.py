@@ -29,6 +29,8 @@ from typing import Any, Callable, TypeVar
 
 from flint import acb, arb, ctx
 
+from knotobs.numerics import working_precision
+
 __all__ = ["encode", "decode", "second_core", "run_both"]
 
 T = TypeVar("T")
@@ -43,13 +45,9 @@ def _arb_ints(x: arb) -> tuple[int, int, int, int]:
 
 
 def _arb_from(m: int, e: int, rm: int, re: int) -> arb:
-    old = ctx.prec
-    ctx.prec = max(old, m.bit_length() + 8)        # the midpoint exactly
-    try:
+    with working_precision(bits=max(ctx.prec, m.bit_length() + 8)):    # the midpoint exactly
         two = arb(2)
         return arb(arb(m) * two ** e, arb(rm) * two ** re)
-    finally:
-        ctx.prec = old
 
 
 def encode(obj: Any) -> Any:
