@@ -354,7 +354,7 @@ def partition_function(space, group="SU(2)", level=None, digits: int = 30, exact
     --------
     >>> z = partition_function("Sigma(2,3,5)", "SU(2)", 3)
     >>> print(z.exact)
-    sqrt(10) * (-1/10*z40^2 + 1/5*z40^6 + 1/5*z40^14)
+    sqrt(10) * (-1/10*z20 + 1/5*z20^3 + 1/5*z20^7)
 
     References
     ----------

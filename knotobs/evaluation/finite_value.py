@@ -54,9 +54,15 @@ class FiniteLevelValue:
     normalisation: str
     details: dict = field(default_factory=dict, compare=False)
 
+    def __post_init__(self):
+        # the exact value in its printed normal form: the smallest cyclotomic field, and a
+        # square root kept apart only when that is shorter (the same number)
+        if self.exact is not None:
+            object.__setattr__(self, "exact", self.exact.reduced())
+
     @property
     def root_of_unity(self) -> str:
-        """``"z40 = exp(2*pi*i/40)"``; empty when no root of unity is printed (a rational value,
+        """``"z20 = exp(2*pi*i/20)"``; empty when no root of unity is printed (a rational value,
         a rational multiple of a square root, or not computed)."""
         if self.exact is None or self.is_rational():
             return ""

@@ -129,11 +129,12 @@ def az_latex(terms: dict, avar: str, zvar: str) -> str:
 
 
 def _cyc_parts(value):
-    """``(radicand, conductor, [(j, c_j)])`` of a Cyclotomic or CyclotomicSurd."""
+    """``(radicand, conductor, [(j, c_j)])`` of a Cyclotomic or CyclotomicSurd, the terms of its
+    printed form (:meth:`~knotobs.polynomials.cyclotomic.Cyclotomic.sparse_exponents`)."""
     coeff = getattr(value, "coefficient", value)
     radicand = Fraction(getattr(value, "radicand", 1))
     n = coeff.field.n
-    items = [(j, Fraction(int(c.p), int(c.q))) for j, c in enumerate(coeff.poly.coeffs()) if c != 0]
+    items = [(j, Fraction(int(c.p), int(c.q))) for j, c in enumerate(coeff.sparse_exponents()) if c != 0]
     return radicand, n, items
 
 

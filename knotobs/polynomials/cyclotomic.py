@@ -222,6 +222,73 @@ class Cyclotomic:
             vec[(i * step) % m] += c
         return Cyclotomic(F, fmpq_poly(vec) % F.modulus)
 
+    def reduced(self) -> "Cyclotomic":
+        """The same number in the smallest cyclotomic field that contains it.
+
+        The fields ``Q(zeta_d)``, ``d | n``, that contain ``x`` are closed under ``gcd`` (with
+        ``Q(zeta_2m) = Q(zeta_m)`` for odd ``m``), so ``n`` is divided by one prime at a time while
+        the number stays inside (:meth:`_descend`); the result's conductor is never ``2 mod 4``.
+        Exact: the number is only rewritten.
+
+        >>> F = CyclotomicField(40)
+        >>> x = -2 * F.zeta(4) - F.zeta(12)              # -2 zeta_10 - zeta_10^3
+        >>> y = x.reduced()
+        >>> y.conductor, str(y), y == x
+        (5, '2*z5^3 + z5^4', True)
+        >>> CyclotomicField(48).zeta(12).reduced()       # i
+        Cyclotomic(4, z4)
+        >>> (CyclotomicField(12).zeta() + CyclotomicField(12).zeta(-1)).reduced().conductor   # sqrt(3)
+        12
+
+        References
+        ----------
+        L. C. Washington, *Introduction to Cyclotomic Fields*, 2nd ed., Springer GTM 83 (1997),
+        ch. 2 (``Q(zeta_a) cap Q(zeta_b) = Q(zeta_gcd(a,b))``; the basis ``zeta_p^k``, ``1 <= k < p``,
+        of ``Q(zeta_mp)`` over ``Q(zeta_m)``, ``p`` prime not dividing ``m``).
+        """
+        x = self
+        if x.is_rational():
+            return x if x.field.n == 1 else CyclotomicField(1)(x.rational_value())
+        moved = True
+        while moved:
+            moved = False
+            for p in _primes_of(x.field.n):
+                y = x._descend(p)
+                if y is not None:
+                    x, moved = y, True
+                    break
+        return x
+
+    def _descend(self, p: int) -> "Cyclotomic | None":
+        """The number as an element of ``Q(zeta_{n/p})`` (``p`` a prime dividing ``n``), or ``None``
+        when it is not in that subfield.
+
+        ``p^2 | n``: ``1, zeta, ..., zeta^(p-1)`` is a basis over ``Q(zeta_{n/p})`` and
+        ``Phi_n(x) = Phi_{n/p}(x^p)``, so the number is inside exactly when only exponents divisible by
+        ``p`` occur.  ``p`` exactly dividing ``n = m p``: with ``zeta_n = zeta_m^a zeta_p^b``
+        (``a p + b m = 1 mod n``) the number is ``sum_k y_k zeta_p^k``, ``y_k`` in ``Q(zeta_m)``, and since
+        ``zeta_p^k``, ``1 <= k < p``, is a basis and ``1 = -sum_k zeta_p^k``, it is inside exactly when
+        every ``y_k - y_0`` (``k >= 1``) is the same number, and then equals ``y_0 - y_1``."""
+        n = self.field.n
+        m = n // p
+        coeffs = self.poly.coeffs()
+        if m % p == 0:
+            if any(c != 0 and i % p for i, c in enumerate(coeffs)):
+                return None
+            return Cyclotomic(CyclotomicField(m), fmpq_poly(coeffs[::p]))
+        F = CyclotomicField(m)
+        a = pow(p, -1, m) if m > 1 else 0           # a p = 1 mod m
+        b = pow(m, -1, p)                           # b m = 1 mod p
+        vecs = [[fmpq(0)] * m for _ in range(p)]
+        for i, c in enumerate(coeffs):
+            if c != 0:
+                vecs[(b * i) % p][(a * i) % m] += c
+        ys = [fmpq_poly(v) % F.modulus for v in vecs]
+        diff = ys[1] - ys[0]
+        if any(ys[k] - ys[0] != diff for k in range(2, p)):
+            return None
+        return Cyclotomic(F, -diff)
+
     def galois(self, j: int) -> "Cyclotomic":
         """Image under the automorphism ``zeta_n -> zeta_n^j`` (``gcd(j, n) = 1``)."""
         n = self.field.n
@@ -365,8 +432,51 @@ class Cyclotomic:
         return complex(self.to_mpc(17))
 
     # -- printing -----------------------------------------------------
+    def sparse_exponents(self) -> list[fmpq]:
+        """Coefficients ``c_e`` (``0 <= e < n``) of a short way of writing the number as
+        ``sum_e c_e zeta_n^e``: the power basis modulo ``Phi_n`` (exponents below ``phi(n)``) moved
+        by the relations ``sum_{j<p} zeta_n^(k + j n/p) = 0`` (``p`` a prime dividing ``n``) while that
+        removes terms (each block shifted by its most frequent coefficient).  Exact; used for
+        printing (``n`` above 20000: the power basis).
+
+        >>> F = CyclotomicField(5)
+        >>> x = 2 * F.zeta(3) + F.zeta(4)
+        >>> [int(c) for c in x.poly.coeffs()]    # the power basis: -1 - z - z^2 + z^3
+        [-1, -1, -1, 1]
+        >>> str(x)                               # the printed form
+        '2*z5^3 + z5^4'
+        """
+        n = self.field.n
+        vec = list(self.poly.coeffs()) + [fmpq(0)] * (n - len(self.poly.coeffs()))
+        vec = vec[:n] if n > 1 else vec[:1]
+        if n > 20000 or n == 1:
+            return vec
+        primes = _primes_of(n)
+        better = True
+        while better:
+            better = False
+            for p in primes:
+                step = n // p
+                for k in range(step):
+                    idx = range(k, n, step)
+                    vals = [vec[i] for i in idx]
+                    nz = sum(1 for v in vals if v != 0)
+                    if nz <= p // 2:
+                        continue                  # the shift cannot remove terms
+                    counts: dict = {}
+                    for v in vals:
+                        if v != 0:
+                            counts[v] = counts.get(v, 0) + 1
+                    t, c = max(counts.items(), key=lambda kv: kv[1])
+                    after = sum(1 for v in vals if v != t)
+                    if after < nz:
+                        for i in idx:
+                            vec[i] -= t
+                        better = True
+        return vec
+
     def __str__(self) -> str:
-        return _poly_str(self.poly, f"z{self.field.n}")
+        return _poly_str(fmpq_poly(self.sparse_exponents()), f"z{self.field.n}")
 
     def __repr__(self) -> str:
         return f"Cyclotomic({self.field.n}, {self})"
@@ -468,6 +578,28 @@ def squarefree_part(n: int) -> tuple[int, int]:
             m *= d
         d += 1
     return s, m * n
+
+
+def _squarefree_divisors(n: int) -> list[int]:
+    """The squarefree divisors of ``n >= 1``, ascending."""
+    out = [1]
+    for p in _primes_of(n):
+        out += [x * p for x in out]
+    return sorted(out)
+
+
+def _primes_of(n: int) -> list[int]:
+    """The distinct primes dividing ``n >= 1``."""
+    out, d = [], 2
+    while d * d <= n:
+        if n % d == 0:
+            out.append(d)
+            while n % d == 0:
+                n //= d
+        d += 1
+    if n > 1:
+        out.append(n)
+    return out
 
 
 def _prime_factors(m: int) -> list[int]:
@@ -606,6 +738,38 @@ class CyclotomicSurd:
 
     def conj(self) -> "CyclotomicSurd":
         return CyclotomicSurd(self.coefficient.conj(), self.radicand)
+
+    def reduced(self) -> "CyclotomicSurd":
+        """The printed normal form: the shortest of ``sqrt(r) * c`` with ``c`` in its smallest
+        cyclotomic field (:meth:`Cyclotomic.reduced`), the whole number in its smallest field
+        (``r = 1``), and ``sqrt(m) * (x / sqrt(m))`` for the squarefree ``m > 1`` dividing twice that
+        field's conductor (tried for conductors up to 1200).  The same number.
+
+        >>> F = CyclotomicField(48)
+        >>> x = CyclotomicSurd(Fraction(-1, 3) + Fraction(2, 3) * F.zeta(8), 3)    # = i
+        >>> str(x), str(x.reduced())
+        ('sqrt(3) * (-1/3 + 2/3*z48^8)', 'z4')
+        >>> str(CyclotomicSurd(CyclotomicField(40).zeta(2), 10).reduced())
+        'sqrt(10) * (z20)'
+        >>> w = CyclotomicField(12).zeta() / 3 - CyclotomicField(12).zeta(3) / 6   # sqrt(3)/6
+        >>> str(CyclotomicSurd(w, 1).reduced())
+        'sqrt(3) * (1/6)'
+        """
+        c = self.coefficient.reduced()
+        if self.is_zero():
+            return CyclotomicSurd(c, 1)
+        forms = [CyclotomicSurd(c, self.radicand)]
+        m = self.radicand.numerator * self.radicand.denominator
+        if math.lcm(c.conductor, m if m % 4 == 1 else 4 * m) > 1200:
+            return forms[0]
+        whole = (c * sqrt_rational(self.radicand)).reduced() if self.radicand != 1 else c
+        forms.append(CyclotomicSurd(whole, 1))
+        d = whole.conductor
+        if not whole.is_rational() and d <= 1200:
+            for q in _squarefree_divisors(2 * d):
+                if q > 1:
+                    forms.append(CyclotomicSurd((whole * sqrt_rational(q) / q).reduced(), q))
+        return min(forms, key=lambda f: len(str(f)))
 
     def as_cyclotomic(self) -> Cyclotomic:
         """The same number inside one cyclotomic field (square root via Gauss sums)."""
