@@ -289,7 +289,7 @@ def _dispatch(route: str, routes: tuple, ests: list[RouteEstimate], what: str, r
     v1, v2 = run(r1), run(r2)
     agreement = _compare(v1, v2, digits, what)
     best = v1 if v1.exact is not None or v2.exact is None else v2
-    return _with(best, route=f"{r1} = {r2} (both computed; agree {agreement})", routes=[r1, r2],
+    return _with(best, route=f"{r1} = {r2} (both computed)", routes=[r1, r2],
                  agreement=agreement)
 
 
