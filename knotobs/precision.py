@@ -68,8 +68,16 @@ def _fixed(x, places: int) -> str:
     # enough digits for the requested places and for every bit of x (no rounding on the way in)
     ctx = local_mp(max(max(top, 0) + abs(places) + 20, int(_bits(x) / 3.32) + 10))
     if places < 0:
+        # the certified digits end before the decimal point: scientific notation, so that no
+        # uncertified zeros are printed (``3.359616e+143``, not ``3359616000...``)
         q = int(ctx.nint(ctx.mpf(x) / ctx.mpf(10) ** (-places)))
-        return str(q * 10 ** (-places))
+        if q == 0:
+            return "0.0"
+        sign = "-" if q < 0 else ""
+        d = str(abs(q))
+        exp = len(d) - 1 - places
+        mant = d[0] + ("." + d[1:].rstrip("0") if d[1:].rstrip("0") else ".0")
+        return f"{sign}{mant}e+{exp}"
     n = int(ctx.nint(ctx.mpf(x) * ctx.mpf(10) ** places))
     if n == 0:
         return "0.0"
@@ -121,6 +129,8 @@ def certified_str(z, digits: int) -> str:
     '0.66667'
     >>> certified_str(mpmath.mpc(0, 1) / 3, 5)
     '0.33333j'
+    >>> certified_str(mpmath.mpf(2) ** 100, 5)      # digits end before the point: no fake zeros
+    '1.2677e+30'
     """
     re_, im_ = certified_parts(z, digits)
     if im_ in ("0.0", "-0.0", "0"):

@@ -79,3 +79,20 @@ def test_square_root_value_prints_no_root_of_unity_legend():
     assert "with z" not in out
     js = json.loads(run("space", "M(0; 0; (3,1), (3,1), (3,1))", "-k", "4", "--json"))
     assert js["root_of_unity"] == ""
+
+
+def test_values_beyond_their_certified_digits_print_in_scientific_notation():
+    # a value whose certified digits end before the decimal point prints those digits and an
+    # exponent, never zeros that were not computed; the number is the same (read back)
+    import mpmath
+
+    from knotobs.precision import certified_str
+
+    with mpmath.workdps(60):
+        x = mpmath.mpf(2) ** 200                       # 1.606938044258990275541962092341...e60
+        s = certified_str(x, 20)
+        assert s == "1.6069380442589902755e+60", s             # 20 significant digits
+        assert abs(mpmath.mpf(s) / x - 1) < mpmath.mpf(10) ** -19
+        # both parts to the same decimal position (10^41): 17 digits of the imaginary part
+        z = certified_str(mpmath.mpc(-x, x / 1000), 20)
+        assert z == "(-1.6069380442589902755e+60 + 1.6069380442589903e+57j)", z
