@@ -447,8 +447,8 @@ class Cyclotomic:
         '2*z5^3 + z5^4'
         """
         n = self.field.n
-        vec = list(self.poly.coeffs()) + [fmpq(0)] * (n - len(self.poly.coeffs()))
-        vec = vec[:n] if n > 1 else vec[:1]
+        coeffs = self.poly.coeffs()
+        vec = list(coeffs) + [fmpq(0)] * (n - len(coeffs))      # degree < phi(n) <= n (n > 1)
         if n > 20000 or n == 1:
             return vec
         primes = _primes_of(n)
@@ -467,7 +467,7 @@ class Cyclotomic:
                     for v in vals:
                         if v != 0:
                             counts[v] = counts.get(v, 0) + 1
-                    t, c = max(counts.items(), key=lambda kv: kv[1])
+                    t = max(counts, key=counts.get)
                     after = sum(1 for v in vals if v != t)
                     if after < nz:
                         for i in idx:
@@ -602,18 +602,6 @@ def _primes_of(n: int) -> list[int]:
     return out
 
 
-def _prime_factors(m: int) -> list[int]:
-    out, d = [], 2
-    while d * d <= m:
-        if m % d == 0:
-            out.append(d)
-            m //= d
-        d += 1
-    if m > 1:
-        out.append(m)
-    return out
-
-
 def sqrt_rational(r: Fraction | int) -> Cyclotomic:
     """The positive square root of a rational ``r > 0`` in its cyclotomic field.
 
@@ -640,7 +628,7 @@ def sqrt_rational(r: Fraction | int) -> Cyclotomic:
     F = CyclotomicField(n)
     val = F.one
     t3 = 0
-    for p in _prime_factors(m):
+    for p in _primes_of(m):
         if p == 2:
             z8 = F.zeta(n // 8)
             val = val * (z8 + z8 ** -1)
