@@ -240,7 +240,7 @@ def _compare(a: FiniteLevelValue, b: FiniteLevelValue, digits: int, what: str) -
     if a.exact is not None and b.exact is not None:
         if not (a.exact == b.exact):
             raise RouteMismatchError(f"{what}: the exact values of the two routes differ: {a.exact} vs {b.exact}")
-        return "exact (equal cyclotomic numbers)"
+        return "exactly (equal cyclotomic numbers)"
     with working_precision(digits + 10):
         diff = abs(a.numeric - b.numeric)
         tol = mpmath.mpf(10) ** (2 - digits) * max(1, abs(a.numeric))
@@ -324,7 +324,7 @@ def partition_function(space, group="SU(2)", level: int = 1, digits: int = 30,
     >>> partition_function("M(2; 0)", "SU(2)", 3).numeric            # Verlinde number
     mpc(real='20.0', imag='0.0')
     >>> partition_function("Sigma(2,3,5)", "SU(3)", 2, route="both").details["agreement"]
-    'exact (equal cyclotomic numbers)'
+    'exactly (equal cyclotomic numbers)'
 
     References
     ----------
@@ -430,7 +430,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
     >>> w.details["framings"]
     [Fraction(6, 1)]
     >>> fiber_wilson_loop("Sigma(2,3,5)", 3, "SU(3)", regular=[(2, 1)], route="both").details["agreement"]
-    'exact (equal cyclotomic numbers)'
+    'exactly (equal cyclotomic numbers)'
 
     References
     ----------

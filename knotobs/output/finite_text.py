@@ -51,10 +51,7 @@ def finite_text(value: FiniteLevelValue, title: str) -> str:
     if "route" in value.details:
         lines.append(f"route:         {value.details['route']}")
     if "agreement" in value.details:
-        agreement = value.details["agreement"]
-        if agreement.startswith("exact "):
-            agreement = "exactly " + agreement[len("exact "):]
-        lines.append(f"agreement:     {' and '.join(value.details.get('routes', []))} agree {agreement}")
+        lines.append(f"agreement:     {' and '.join(value.details.get('routes', []))} agree {value.details['agreement']}")
     if "polynomial_check" in value.details:
         lines.append(f"check:         exact polynomial at q = exp(2 pi i/K) agrees to {value.details['polynomial_check']:.1e}")
     return "\n".join(lines)

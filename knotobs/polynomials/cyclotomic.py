@@ -730,8 +730,10 @@ class CyclotomicSurd:
     def reduced(self) -> "CyclotomicSurd":
         """The printed normal form: the shortest of ``sqrt(r) * c`` with ``c`` in its smallest
         cyclotomic field (:meth:`Cyclotomic.reduced`), the whole number in its smallest field
-        (``r = 1``), and ``sqrt(m) * (x / sqrt(m))`` for the squarefree ``m > 1`` dividing twice that
-        field's conductor (tried for conductors up to 1200).  The same number.
+        (``r = 1``), and ``sqrt(m) * (x / sqrt(m))`` for the squarefree ``m > 1`` whose square root
+        lies in that field (its discriminant, ``m`` or ``4m``, divides the conductor; a number
+        ``sqrt(m) y`` lies in ``Q(zeta_lcm(disc, cond y))``); tried for conductors up to 1200.
+        The same number.
 
         >>> F = CyclotomicField(48)
         >>> x = CyclotomicSurd(Fraction(-1, 3) + Fraction(2, 3) * F.zeta(8), 3)    # = i
@@ -754,8 +756,8 @@ class CyclotomicSurd:
         forms.append(CyclotomicSurd(whole, 1))
         d = whole.conductor
         if not whole.is_rational() and d <= 1200:
-            for q in _squarefree_divisors(2 * d):
-                if q > 1:
+            for q in _squarefree_divisors(d):
+                if q > 1 and d % (q if q % 4 == 1 else 4 * q) == 0:
                     forms.append(CyclotomicSurd((whole * sqrt_rational(q) / q).reduced(), q))
         return min(forms, key=lambda f: len(str(f)))
 
