@@ -284,3 +284,129 @@ def test_grids_moved_by_a_period_equal_the_direct_grids():
                         assert a.overlaps(b)
                 checked += 1
     assert checked == 3 * len(fs)
+
+
+def _pole_factors():
+    """The factors A, B, C of the pole route: coprime orders, four orders, and a coset with
+    shifted sines and a linear phase (orders sharing a factor)."""
+    from knotobs.continuation.cartan.data import CartanData
+
+    fs = [getattr(t, w) for orders in ((2, 3, 5), (2, 3, 7), (2, 3, 5, 7)) for t in merged_terms(orders)
+          for w in "ABC"]
+    for co in CartanData.from_space("M(0; -1; (2,1), (4,1), (6,1))", 3).cosets()[1:3]:
+        fs += [getattr(t, w) for t in merged_terms((2, 4, 6), co.shifts, co.lin, 1) for w in "ABC"]
+    return fs
+
+
+def test_reflection_sign_is_the_parity_of_the_factor():
+    # rootfn.reflection_sign: f(-y) = eps f(y) for the sines and exponentials of a factor
+    # (2i sin is odd, a fact of the trade); checked by evaluating f at random complex y.  None
+    # claims nothing (shifted sines are not examined); the two factors added here are neither
+    # even nor odd
+    from knotobs.continuation.cartan.rootfn import RootFunction, reflection_sign
+
+    rnd = random.Random(11)
+    odd = [RootFunction(1, Fraction(1), ((2, 1),)),
+           RootFunction(2, Fraction(1, 2), ((3, 1), (1, -1)), ((1, Fraction(-1, 2)),))]
+    seen = set()
+    for f in _pole_factors() + odd:
+        eps = reflection_sign(f)
+        seen.add(eps)
+        for _ in range(4):
+            y = complex(rnd.uniform(-3, 3), rnd.uniform(-0.4, 0.4))
+            a, b = _root_fn_shifted(f, -y), _root_fn_shifted(f, y)
+            if f in odd:
+                assert eps is None
+                assert abs(a - b) > 1e-6 * abs(b) and abs(a + b) > 1e-6 * abs(b)
+            elif eps is not None:
+                assert abs(a - eps * b) < 1e-9 * max(1, abs(b))
+    assert seen == {1, -1, None}
+
+
+def _root_fn_shifted(f, y: complex) -> complex:
+    v = sum(c * cmath.exp(1j * cmath.pi * float(a) * y) for c, a in f.exps)
+    for p, e, t in f.shifted_sines:
+        v *= _S((y + t) / p) ** e
+    return v
+
+
+def _evaluators():
+    from flint import acb
+
+    from knotobs.continuation.cartan.data import CartanData
+    from knotobs.continuation.cartan.poles import _Eval, _theta
+
+    out = []
+    for orders, cos, H, P, K in (((2, 3, 5), None, 1, 30, acb(4.35, 0.2)),
+                                 ((2, 3, 7), None, 1, 42, acb(6.5, -0.3)),
+                                 ((2, 4, 6), CartanData.from_space("M(0; -1; (2,1), (4,1), (6,1))", 3), None,
+                                  None, acb(5.5, 0.25))):
+        if cos is not None:
+            d = cos
+            H, P = d.HL, d.L
+            cosets = d.cosets()[1:3]
+            if H < 0:                                  # as pole_sum_sectors: conjugate to H > 0
+                H, cosets = -H, [c.negated() for c in cosets]
+            pairs = [(t, co) for co in cosets for t in merged_terms(orders, co.shifts, co.lin, 1)]
+        else:
+            pairs = [(t, None) for t in merged_terms(orders)]
+        theta = _theta(H, complex(K.mid()))
+        for t, co in pairs:
+            out.append(_Eval(t, K, H, P, 12, True, theta, phi0=-co.const if co is not None else Fraction(0)))
+    return out
+
+
+def test_line_integrals_from_their_orbit_representatives_equal_the_direct_ones():
+    # poles._Eval._dots takes each line integral from the representative of its orbit under the
+    # periods of the sines (with the shift of the Fourier index they bring) and the reflection
+    # y -> -y (docs/continuation_sun.md §18.7); an internal check against the same integral
+    # computed directly at its own contour (_rep_dots called on the original key), for coprime
+    # orders and for a coset with shifted sines and a linear phase
+    from flint import acb
+
+    from knotobs.continuation._num import bits, working_bits
+
+    rnd = random.Random(3)
+    checked = reflected = 0
+    with working_bits(bits(25)):
+        for ev in _evaluators():
+            for _ in range(14):
+                fint = rnd.choice("AB")
+                m = rnd.randrange(-2 * ev.P, 3 * ev.P)
+                s_int = rnd.randrange(0, 2 * ev.H)
+                y0 = Fraction(rnd.randrange(-3 * ev.P, 3 * ev.P)) + Fraction(1, 2)
+                L = rnd.choice((1, 2, 3))
+                rep, ops = ev._orbit(fint, y0, s_int + ev.off[fint], m)
+                reflected += any(op[0] == "R" for op in ops)
+                got = ev._dots(fint, y0, s_int, m, L)
+                want = ev._rep_dots(fint, y0, s_int + ev.off[fint], m, L)
+                assert rep != (y0, s_int + ev.off[fint], m) or not ops
+                size = max(abs(complex(x.mid())) for x in want[:L])
+                for a, b in zip(got[:L], want[:L]):
+                    assert abs(complex((a - b).mid())) <= 1e-18 * size
+                checked += 1
+    assert checked == 14 * len(_evaluators()) and reflected > 5
+
+
+def test_reversed_and_reflected_base_grids_equal_the_direct_grids():
+    # poles._Eval._base: a grid with the step reversed is the same nodes in reverse order, and a
+    # factor with f(-y) = eps f(y) beyond half its period is the reflection of the grid at
+    # per - y0 moved by the period; an internal check against rootfn.grid_series at y0
+    from knotobs.continuation._num import bits, working_bits
+    from knotobs.continuation.cartan.rootfn import _q, grid_series
+
+    checked = 0
+    with working_bits(bits(25)):
+        for ev in _evaluators()[:2]:
+            for which, L in (("A", 1), ("B", 1), ("C", 3)):
+                per = ev._period[which]
+                for y0, sign in ((Fraction(2 * per - 1, 2), 1), (Fraction(per + 3, 2), -1), (Fraction(1, 2), -1)):
+                    got = ev._base(which, y0, L, sign, ev.Jl)
+                    want = grid_series(getattr(ev.t, which), _q(y0), sign * ev.lstep, ev.Jl, 0, L, ev.sc)
+                    assert len(got) == len(want)
+                    for col in range(L):
+                        size = max(abs(complex(y[col].mid())) for y in want)
+                        for x, y in zip(got, want):
+                            assert abs(complex((x[col] - y[col]).mid())) <= 1e-18 * size
+                    checked += 1
+    assert checked == 18

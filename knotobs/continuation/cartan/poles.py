@@ -40,7 +40,7 @@ from flint import acb, acb_mat, acb_poly, arb
 from knotobs.ball_series import ser_inv, ser_mul
 from knotobs.continuation.cartan.data import Coset
 from knotobs.continuation.cartan.rootfn import (RootFunction, Scale, _q, grid_series, laurent, period_phase,
-                                               shifted_grid)
+                                               reflection_sign, shifted_grid)
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain",
            "pole_range_digits"]
@@ -262,6 +262,10 @@ class _Eval:
             f = getattr(term, w)
             per = math.lcm(*(p for p, _ in f.sines)) if f.sines else 1
             self._period[w] = per if period_phase(f, per) is not None else None
+        # f(-y) = eps f(y) of the factor integrated along a line times that of C (None: no symmetry)
+        self._rsign = {w: reflection_sign(getattr(term, w)) for w in "ABC"}
+        cr = self._rsign["C"]
+        self._refl = {w: None if cr is None or self._rsign[w] is None else cr * self._rsign[w] for w in "AB"}
         self._dc: dict = {}
         self._mc: dict = {}
         self._ex: dict = {}
@@ -364,13 +368,28 @@ class _Eval:
         return g
 
     def _base(self, which: str, y0: Fraction, L: int, sign: int, J: int) -> list[list[acb]]:
-        """The grid of ``which`` at ``y0`` with Fourier index 0 (no offset), cached."""
+        """The grid of ``which`` at ``y0`` with Fourier index 0 (no offset), cached.
+
+        The nodes of ``sign = -1`` are those of ``sign = 1`` in reverse order.  A factor with
+        ``f(-y) = eps f(y)`` (:func:`.rootfn.reflection_sign`) at ``y0 > per/2`` is the reflection of
+        its grid at ``-y0``, itself the grid at ``per - y0`` moved by the period: ``f(y0 + j h)`` is
+        ``eps`` times ``f(-y0 - j h)``, and its ``l``-th Taylor coefficient takes ``(-1)^l``."""
         for L2 in range(L, self._nl + 1):
             b = self._bc.get((which, y0, L2, sign, J))
             if b is not None:
                 return b if L2 == L else [x[:L] for x in b]
-        b = self._bc[(which, y0, L, sign, J)] = grid_series(getattr(self.t, which), _q(y0), sign * self.lstep,
-                                                            J, 0, L, self.sc)
+        f = getattr(self.t, which)
+        per = self._period[which]
+        eps = self._rsign[which]
+        if sign == -1:
+            b = self._base(which, y0, L, 1, J)[::-1]
+        elif eps is not None and per is not None and 0 < per - y0 < y0:
+            far = self._base(which, per - y0, L, 1, J)
+            near = shifted_grid(far, _q(per - y0), -per, self.lstep, J, 0, period_phase(f, -per), L, self.sc)
+            b = [[x if (l % 2 == 0) == (eps == 1) else -x for l, x in enumerate(row)] for row in near[::-1]]
+        else:
+            b = grid_series(f, _q(y0), sign * self.lstep, J, 0, L, self.sc)
+        self._bc[(which, y0, L, sign, J)] = b
         return b
 
     def ctaylor(self, v: int, n: int) -> list[acb]:
@@ -419,17 +438,111 @@ class _Eval:
         return M
 
     def _dots(self, fint: str, y0: Fraction, s_int: int, m: int, L: int) -> list[acb]:
-        """``[sum_j F(y_j) gamma_l(m + y_j)]_{l < L}``: the trapezoid sums of a line through ``y0``
-        against each Taylor coefficient of ``C`` (cached: lines that differ only in the Laurent data
-        of the fixed variable share them), all from one matrix product."""
-        key = (fint, y0, s_int, m)
+        """``[int_{C_y0} F(y) gamma_l(m + y) dy]_{l < L}``, ``gamma_l`` the Taylor coefficients of ``C``
+        (cached: lines that differ only in the Laurent data of the fixed variable share them), by the
+        pole-corrected trapezoid rule (:meth:`_rep_dots`).
+
+        ``F`` carries the Fourier index ``sigma = s_int + offset``.  Most of these sums are one
+        another's images under the exact symmetries of :meth:`_orbit` (periods of the sines with a
+        shift of ``sigma``, and the reflection ``y -> -y``), so each orbit is summed once, at its
+        representative, and the others follow exactly: node by node for the trapezoid sum, pole by pole
+        for its corrections (the window of poles moves with the line)."""
+        sig = s_int + self.off[fint]
+        key = (fint, y0, sig, m)
         D = self._dc.get(key)
         if D is not None and len(D) >= L:
             return D
-        Fm = self._mat(fint, y0, s_int, 1, row=True)
-        Cm = self._mat("C", y0 + m, 0, L)
+        rep, ops = self._orbit(fint, y0, sig, m)
+        D = self._rep_dots(fint, *rep, L)
+        for op in reversed(ops):
+            D = self._undo(fint, op, D)
+        self._dc[key] = D
+        return D
+
+    def _orbit(self, fint: str, y0: Fraction, sig: Fraction, mu: int):
+        """The representative ``(y0', sigma', mu')`` of the orbit of the sum ``D(y0, sigma, mu)`` and
+        the steps from it, CONVENTIONS §18.7 (exact identities of the nodes ``y_j = y0 + j h``):
+
+        * ``F``: ``F(y + n) = e^{i pi theta_F - i pi c (2 n y + n^2)} F(y)`` for a period ``n`` of
+          ``F``'s sines, so ``D(y0 + n, sigma, mu) = e^{i pi theta_F - i pi c n^2 - 2 pi i K sigma n}
+          D(y0, sigma + c n/K, mu + n)``;
+        * ``C``: the same for ``C``, whose Taylor coefficients pick up the series of
+          ``e^{-2 pi i c n x}``: ``D(y0, sigma, mu + n) = e^{i pi theta_C - i pi c n^2 - 2 pi i c n mu}
+          e^{-2 pi i c n x} D(y0, sigma + c n/K, mu)``;
+        * ``R``: ``F(-y) = eps_F F(y)``, ``C(-y) = eps_C C(y)`` give ``D_l(y0, sigma, mu) =
+          eps_F eps_C (-1)^l D_l(-y0, -sigma, -mu)`` (the nodes are symmetric in ``j``).
+
+        ``c/K = H/(3P)``; ``y0'`` lies in ``[0, per_F)``, ``mu'`` in ``[0, per_C)``."""
+        cK = Fraction(self.H, 3 * self.P)
+        perF, perC = self._period[fint], self._period["C"]
+
+        def reduce(y0, sig, mu, ops):
+            if perF is not None:
+                n = perF * math.floor(y0 / perF)
+                if n:
+                    ops.append(("F", n, sig))
+                    y0, sig, mu = y0 - n, sig + cK * n, mu + n
+            if perC is not None:
+                n = perC * math.floor(Fraction(mu, perC))
+                if n:
+                    ops.append(("C", n, mu - n))
+                    mu, sig = mu - n, sig + cK * n
+            return (y0, sig, mu), ops
+
+        rep, ops = reduce(y0, sig, mu, [])
+        eps = self._refl[fint]
+        if eps is not None:
+            rep2, ops2 = reduce(-y0, -sig, -mu, [("R", eps)])
+            if rep2 < rep:
+                return rep2, ops2
+        return rep, ops
+
+    def _undo(self, fint: str, op, D: list[acb]) -> list[acb]:
+        """The sums before one step of :meth:`_orbit` from those after it."""
+        ipi, c = self.sc.ipi, self.sc.c
+        if op[0] == "R":
+            return [x if l % 2 == 0 else -x for l, x in enumerate(D)] if op[1] == 1 else \
+                [-x if l % 2 == 0 else x for l, x in enumerate(D)]
+        kind, n, v = op
+        f = getattr(self.t, "C" if kind == "C" else fint)
+        const = ipi * _q(period_phase(f, n)) - ipi * c * (n * n)
+        if kind == "F":                                   # v = sigma before the step
+            return [x * (const - self.sc.tpiK * _q(v) * n).exp() for x in D]
+        lam = -2 * ipi * c * n                            # v = mu after the step
+        ex = [acb(1)]
+        for j in range(1, len(D)):
+            ex.append(ex[-1] * lam / j)
+        g = (const + lam * v).exp()
+        return [g * x for x in ser_mul(D, ex, len(D))]
+
+    def _rep_dots(self, fint: str, y0: Fraction, sig: Fraction, mu: int, L: int) -> list[acb]:
+        """The integrals of :meth:`_dots` at a representative: the trapezoid sums (all from one matrix
+        product) times the step, minus the error terms of the poles of ``F`` near the line
+        (:meth:`_trap`), taken for each ``gamma_l`` separately since they are linear in it."""
+        key = (fint, y0, sig, mu, "rep")
+        D = self._dc.get(key)
+        if D is not None and len(D) >= L:
+            return D
+        s = sig - self.off[fint]
+        Fm = self._mat(fint, y0, s, 1, row=True)
+        Cm = self._mat("C", y0 + mu, 0, L)
         R = Fm * Cm                                     # one C-level product for all L sums
-        D = [R[0, l] for l in range(L)]
+        D = [R[0, l] * self.lstep for l in range(L)]
+        for k in range(math.ceil(y0 - self.window), math.floor(y0 + self.window) + 1):
+            vf, fc = self.lau(fint, k, s, False)
+            p = -vf
+            if p <= 0:
+                continue
+            sg, kap = self._kappa(k, y0, p)
+            # the kernel's series times the Laurent data of F: Res_k[F gamma_l kappa] for each l
+            fk = ser_mul(fc[:p], kap, p)
+            gam = self.ctaylor(mu + k, L - 1 + p)
+            for l in range(L):
+                res = acb(0)
+                for i in range(p):
+                    j = p - 1 - i                       # Taylor order of gamma_l at k
+                    res += fk[i] * (gam[l + j] * _COMB[l + j][j])
+                D[l] -= sg * self.twopii * res
         self._dc[key] = D
         return D
 
@@ -458,24 +571,6 @@ class _Eval:
             tot -= sg * self.twopii * res
         return tot
 
-    def _line_laurent(self, fixed: str, m: int, s_fix: int, k_fix: bool, s_int: int, a, v):
-        fint = "B" if fixed == "A" else "A"
-        def laur(k):
-            vf, fc = self.lau(fint, k, s_int, False)
-            if vf >= 0:
-                return None
-            p = -vf
-            gam = self.ctaylor(m + k, -v + p)
-            G = []
-            for j in range(p):
-                x = acb(0)
-                for i in range(-v):
-                    li = -1 - v - i
-                    x += a[i] * gam[li + j] * _COMB[li + j][j]
-                G.append(x)
-            return vf, ser_mul(fc[:p], G, p)
-        return laur
-
     # line integrals -------------------------------------------------------
     def line(self, fixed: str, m: int, s_fix: int, k_fix: bool, s_int: int, base: Fraction,
              factor: acb):
@@ -503,10 +598,9 @@ class _Eval:
         # are those of the Gaussian's contour; y0 only conditions the quadrature)
         L = -v
         D = self._dots(fint, y0, s_int, m, L)
-        total = acb(0)
+        tot = acb(0)
         for i in range(L):
-            total += a[i] * D[L - 1 - i]
-        tot = self._trap(y0, [total], self._line_laurent(fixed, m, s_fix, k_fix, s_int, a, v))
+            tot += a[i] * D[L - 1 - i]
         sg, ks = _between(yg, y0)
         for k in ks:
             val, _ = res(k)
@@ -652,8 +746,17 @@ class _Eval:
             return v, ser_mul(a, b, n)
 
         def res(k: int, s: int, kernel: bool) -> acb:
-            L = laur(k, s, kernel)
-            return acb(0) if L is None else L[1][-1 - L[0]]
+            """The one coefficient of ``laur`` that is the residue."""
+            v1, a = self.lau("A", k, s, kernel)
+            v2, b = self.lau("B", m - k, 0, False)
+            top = -1 - v1 - v2
+            if top < 0:
+                return acb(0)
+            tot = acb(0)
+            for i in range(top + 1):
+                j = top - i
+                tot += a[i] * b[j] if (j + v2) % 2 == 0 else -(a[i] * b[j])
+            return tot
 
         def ph(k, t):
             return self._gphase(k, m - k, t, 0)

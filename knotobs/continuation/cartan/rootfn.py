@@ -30,7 +30,8 @@ from flint import acb, arb, ctx
 
 from knotobs.ball_series import bernoulli_plus, ser_exp, ser_inv, ser_mul, ser_sin
 
-__all__ = ["RootFunction", "Scale", "laurent", "grid_series", "period_phase", "shifted_grid", "BLOCK"]
+__all__ = ["RootFunction", "Scale", "laurent", "grid_series", "period_phase", "reflection_sign", "shifted_grid",
+           "BLOCK"]
 
 #: Grid recurrences are restarted from directly computed exponentials every ``BLOCK`` nodes.
 BLOCK = 48
@@ -97,6 +98,37 @@ def period_phase(f: RootFunction, n: int) -> Fraction | None:
     if len(phases) != 1:
         return None
     return (theta + phases.pop()) % 2
+
+
+def reflection_sign(f: RootFunction) -> int | None:
+    """``eps`` with ``f(-y) = eps f(y)`` for the sines and exponentials of ``f`` (the Gaussian is
+    even), or ``None`` when ``f`` has no such symmetry (shifted sines, or exponentials that the
+    reflection does not map onto themselves up to one sign).
+
+    ``2i sin(-pi y/p) = -2i sin(pi y/p)`` gives ``(-1)^(sum e)``; ``sum c e^{i pi a y}`` must go to
+    ``eps' sum c e^{i pi a y}`` under ``a -> -a``.
+
+    >>> reflection_sign(RootFunction(1, Fraction(1), ((2, 1), (1, -1)), ((1, Fraction(-1)),)))
+    1
+    >>> reflection_sign(RootFunction(1, Fraction(1), ((2, 1),))) is None
+    True
+    """
+    if any(f.shifts):
+        return None
+    eps = -1 if sum(e for _, e in f.sines) % 2 else 1
+
+    def combined(pairs):
+        out: dict = {}
+        for co, a in pairs:
+            out[a] = out.get(a, 0) + co
+        return {a: co for a, co in out.items() if co}
+
+    here = combined(f.exps)
+    mirrored = combined((co, -a) for co, a in f.exps)
+    for e2 in (1, -1):
+        if mirrored == {a: e2 * co for a, co in here.items()}:
+            return eps * e2
+    return None
 
 
 @dataclass
