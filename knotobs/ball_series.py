@@ -10,6 +10,7 @@ from __future__ import annotations
 import re
 from contextlib import contextmanager
 from fractions import Fraction
+from functools import lru_cache
 from typing import Callable, Sequence
 
 import mpmath
@@ -204,8 +205,14 @@ def ser_sin(c0: acb, c1: acb, n: int) -> list[acb]:
     return out
 
 
-def bernoulli_plus(n: int) -> list[Fraction]:
-    """``B_k^+ / k!`` for ``k < n``: the Taylor coefficients of ``x / (1 - e^-x)``."""
+@lru_cache(maxsize=64)
+def bernoulli_plus(n: int) -> tuple[Fraction, ...]:
+    """``B_k^+ / k!`` for ``k < n``: the Taylor coefficients of ``x / (1 - e^-x)`` (cached; a tuple,
+    so no caller can change the cached value).
+
+    >>> bernoulli_plus(4)
+    (Fraction(1, 1), Fraction(1, 2), Fraction(1, 12), Fraction(0, 1))
+    """
     B = [Fraction(1)]
     for m in range(1, n):
         B.append(-sum(Fraction(_binom(m + 1, k)) * B[k] for k in range(m)) / (m + 1))
@@ -217,7 +224,7 @@ def bernoulli_plus(n: int) -> list[Fraction]:
         if k > 0:
             f *= k
         out.append(B[k] / f)
-    return out
+    return tuple(out)
 
 
 def _binom(n: int, k: int) -> int:

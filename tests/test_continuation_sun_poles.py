@@ -410,3 +410,97 @@ def test_reversed_and_reflected_base_grids_equal_the_direct_grids():
                             assert abs(complex((x[col] - y[col]).mid())) <= 1e-18 * size
                     checked += 1
     assert checked == 18
+
+
+def test_laurent_data_as_polynomials_in_K_equal_the_numeric_ones():
+    # rootfn.laurent_in_K: the Laurent data of a factor at an integer are exp(-2 pi i K s m - i pi c m^2)
+    # (2 pi i K)^-kernel times polynomials in K (docs/continuation_sun.md §18.7, exact pieces); an
+    # internal check against rootfn.laurent at several K, with kernels, Fourier indices, fractional
+    # (coset) indices and shifted sines
+    from flint import acb, arb
+
+    from knotobs.continuation._num import bits, working_bits
+    from knotobs.continuation.cartan.rootfn import RootFunction, Scale, laurent, laurent_in_K, symbolic_scale
+
+    fs = [RootFunction(1, Fraction(1), ((2, 1), (3, 1), (5, 1), (1, -2))),
+          RootFunction(-1, Fraction(1, 2), ((2, 1), (4, 1), (1, -1)), ((1, Fraction(-3, 2)),)),
+          RootFunction(1, Fraction(0), ((2, 1), (3, 1), (6, 1)), (), (1, 0, 2))]
+    checked = 0
+    with working_bits(bits(30)):
+        ipi = acb(0, 1) * arb.pi()
+        for K in (acb(4.35, 0.2), acb(9, 0), acb(-3.1, 2.5)):
+            for H, P in ((1, 30), (7, 42)):
+                sc = Scale(K, K * H / (3 * P))
+                scs = symbolic_scale(H, P)
+                for f in fs:
+                    for m, s, kernel in ((0, 0, True), (3, 2, False), (-4, Fraction(1, 3), True), (6, 1, False)):
+                        v, num = laurent(f, m, s, kernel, 5, sc)
+                        w, pol = laurent_in_K(f, m, s, kernel, 5, scs)
+                        sq = acb(s.numerator) / s.denominator if isinstance(s, Fraction) else acb(s)
+                        ph = (-2 * ipi * K * sq * m - ipi * sc.c * (m * m)).exp()
+                        if kernel:
+                            ph = ph / (2 * ipi * K)
+                        assert v == w
+                        for a, b in zip(num, pol):
+                            assert (a - ph * b(K)).contains(0) or abs(complex((a - ph * b(K)).mid())) <= \
+                                1e-25 * max(abs(complex(a.mid())), 1e-30)
+                        checked += 1
+    assert checked == 3 * 2 * 3 * 4
+
+
+@pytest.mark.parametrize("space, K", [("Sigma(2,3,5)", (4.35, 0.2)), ("Sigma(2,3,7)", (6.5, -0.3)),
+                                      ("M(0; -1; (2,1), (4,1), (6,1))", (5.5, 0.25)),
+                                      ("-Sigma(2,3,5)", (3.9, 0.4)),
+                                      ("M(1; -1; (2,1), (3,1))", (4.6, 0.1))])
+def test_exact_pieces_and_the_rest_add_up_to_every_piece(space, K):
+    # poles.pole_sum_sectors(parts=...): the exact pieces (iterated residues at K-independent points,
+    # from cached polynomials in K) plus the rest (quadratures and the residues they move) equal the
+    # whole evaluation, label by label; an internal check of the split of docs/continuation_sun.md
+    # §18.7 (exact pieces), for coprime orders, a coset with shifts and linear phases (§18.8),
+    # H < 0 and base genus 1 (§18.9).  The whole evaluation is itself checked against the
+    # finite-level routes at integer K above.
+    from flint import acb
+
+    from knotobs.continuation._num import bits, working_bits
+    from knotobs.continuation.cartan import poles
+    from knotobs.continuation.cartan.data import CartanData
+
+    d = CartanData.from_space(space, 3)
+    args = (d.big_orders, d.HL, d.L)
+    kw = dict(cosets=d.cosets(), genus=d.genus)
+    poles._EXACT.clear()
+    with working_bits(bits(25)):
+        Ka = acb(*K)
+        whole = poles.pole_sum_sectors(*args, Ka, 14, **kw)
+        exact = poles.pole_sum_sectors(*args, Ka, 14, **kw, parts="exact")
+        again = poles.pole_sum_sectors(*args, Ka, 14, **kw, parts="exact")          # from the cache
+        rest = poles.pole_sum_sectors(*args, Ka, 14, **kw, parts="quad")
+    assert poles._EXACT and exact and rest
+    scale = max(abs(complex(v.mid())) for v in whole.values())
+    for phi in set(whole) | set(exact) | set(rest):
+        s = exact.get(phi, acb(0)) + rest.get(phi, acb(0))
+        w = whole.get(phi, acb(0))
+        assert s.overlaps(w) and float(s.rad()) + float(w.rad()) < 1e-10 * scale, (space, phi)
+        assert exact.get(phi, acb(0)).overlaps(again.get(phi, acb(0)))
+
+
+def test_cached_exact_pieces_are_recomputed_for_a_higher_precision():
+    # the cache of poles._exact_pieces serves a request only at a precision at or below its own: a
+    # finer run after a coarser one gets balls as tight as a fresh computation's
+    from flint import acb
+
+    from knotobs.continuation._num import bits, working_bits
+    from knotobs.continuation.cartan import poles
+
+    poles._EXACT.clear()
+    with working_bits(bits(5)):
+        coarse = poles.pole_sum_sectors((2, 3, 5), 1, 30, acb(5.1, 0.2), 5, parts="exact")
+    with working_bits(bits(40)):
+        fine = poles.pole_sum_sectors((2, 3, 5), 1, 30, acb(5.1, 0.2), 40, parts="exact")
+        poles._EXACT.clear()
+        fresh = poles.pole_sum_sectors((2, 3, 5), 1, 30, acb(5.1, 0.2), 40, parts="exact")
+    worst = max(float(v.rad()) / abs(complex(v.mid())) for v in fine.values() if abs(complex(v.mid())) > 1e-10)
+    assert worst < 1e-50
+    assert max(float(v.rad()) for v in coarse.values()) > 1e-30
+    for phi, v in fine.items():
+        assert v.overlaps(fresh[phi]) and v.overlaps(coarse[phi])

@@ -35,12 +35,12 @@ from __future__ import annotations
 import math
 from fractions import Fraction
 
-from flint import acb, acb_mat, acb_poly, arb
+from flint import acb, acb_mat, acb_poly, arb, ctx
 
 from knotobs.ball_series import ser_inv, ser_mul
 from knotobs.continuation.cartan.data import Coset
-from knotobs.continuation.cartan.rootfn import (RootFunction, Scale, _q, grid_series, laurent, period_phase,
-                                               reflection_sign, shifted_grid)
+from knotobs.continuation.cartan.rootfn import (RootFunction, Scale, _q, grid_series, laurent, laurent_in_K,
+                                               period_phase, reflection_sign, shifted_grid, symbolic_scale)
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain",
            "pole_range_digits"]
@@ -224,11 +224,31 @@ def _line_rate(term: PoleTerm) -> float:
     return max(_rate(term.A), _rate(term.B)) + _rate(term.C)
 
 
+#: ``parts`` of :class:`_Eval`: everything; the exact pieces (residues at integer points whose set
+#: does not depend on ``K``) as polynomials in ``K``; the rest (quadrature and the residues it moves).
+PARTS = ("all", "exact", "quad")
+
+
+def _zero(v) -> bool:
+    """An exact zero (a structural zero of :meth:`_Eval.point`); a ball that merely contains 0 is kept."""
+    return type(v) is acb and v == 0
+
+
 class _Eval:
-    """All pieces of one term at one ``K`` (``H > 0``), at the current precision."""
+    """All pieces of one term at one ``K`` (``H > 0``), at the current precision.
+
+    ``parts="exact"`` collects only the exact pieces — the iterated residues at the integer points
+    crossed when a contour moves from ``C_{-1/2}`` to the half-integer ``yg`` next to its saddle,
+    and those of the kernels — as polynomials in ``K`` times their phase label (:func:`.rootfn.laurent_in_K`):
+    both the points and ``yg`` are independent of ``K``.  ``parts="quad"`` collects the rest (the
+    line and plane quadratures, the residues between ``yg`` and the seated contour, every piece
+    under a plane's label).  The two add up to ``parts="all"`` (CONVENTIONS §18.7, exact pieces)."""
 
     def __init__(self, term: PoleTerm, K: acb, H: int, P: int, digits: int, reduced: bool, theta: float,
-                 fine_plane: bool = False, phi0: Fraction = Fraction(0)):
+                 fine_plane: bool = False, phi0: Fraction = Fraction(0), parts: str = "all"):
+        if parts not in PARTS:
+            raise ValueError(f"parts = {parts!r}: one of {PARTS}")
+        self.parts = parts
         self.t = term
         cu, cw = term.offsets
         self.off = {"A": cu, "B": cw, "C": 0}
@@ -252,6 +272,11 @@ class _Eval:
         self.window = (T + 20) * self.hl / (2 * math.pi * st)
         self.twopii = 2 * acb(0, 1) * pi
         self.K = K
+        # exact pieces: K the polynomial variable; XK cancels the kernel's 1/(2 pi i K), which
+        # laurent_in_K leaves out (numerically XK = 2 pi i K)
+        self.scs = symbolic_scale(H, P) if parts == "exact" else None
+        self.Kx = self.scs.K if parts == "exact" else K
+        self.XK = acb(1) if parts == "exact" else self.sc.tpiK
         self.out: dict[Fraction, acb] = {}
         self._lc: dict = {}
         self._gc: dict = {}
@@ -301,6 +326,10 @@ class _Eval:
         """Adds a piece ``value ~ exp(2 pi i K phi / Dc)`` (``phi`` an integer, ``Dc = 24 P H^2``)."""
         if self._label is not None:
             phi = self._label
+        if self.parts == "exact":                      # raw labels; reduced when evaluated
+            out = self.out
+            out[phi] = out[phi] + value if phi in out else value
+            return
         if self.reduced:
             Dc = self.Dc
             n = (2 * phi + Dc) // (2 * Dc)
@@ -337,8 +366,11 @@ class _Eval:
         key = (which, m, s, kernel)
         r = self._lc.get(key)
         if r is None:
-            r = self._lc[key] = laurent(getattr(self.t, which), m, s + self.off[which], kernel, self._nl,
-                                        self.sc)
+            if self.parts == "exact":
+                r = laurent_in_K(getattr(self.t, which), m, s + self.off[which], kernel, self._nl, self.scs)
+            else:
+                r = laurent(getattr(self.t, which), m, s + self.off[which], kernel, self._nl, self.sc)
+            self._lc[key] = r
         return r
 
     def grid(self, which: str, y0: Fraction, s: int, L: int, sign: int = 1, J: int | None = None) -> list[list[acb]]:
@@ -581,19 +613,23 @@ class _Eval:
             return
         ystar = Fraction(-m, 2) - Fraction(3 * self.P) * (s_int + self.off[fint]) / (2 * self.H)
         yg = _half(ystar)
-        y0 = self._seat(ystar, 3 * self.P * self.aK[fint] / (4 * self.H))
 
         def res(k: int) -> tuple[acb, int]:
             if fixed == "A":
                 return (self.point("A", m, s_fix, k_fix, "B", k, s_int, False), self._gphase(m, k, s_fix, s_int))
             return self.point("A", k, s_int, False, "B", m, s_fix, k_fix), self._gphase(k, m, s_int, s_fix)
 
-        # to the Gaussian's half-integer yg: each residue a piece of its own
-        sg, ks = _between(base, yg)
-        for k in ks:
-            val, ph = res(k)
-            if val != 0:
-                self._add(ph, factor * sg * self.twopii * val)
+        # to the Gaussian's half-integer yg: each residue a piece of its own (exact pieces, unless
+        # the line itself was shed by a K-dependent move of a plane, under the plane's label)
+        if self.parts != "quad" or self._label is not None:
+            sg, ks = _between(base, yg)
+            for k in ks:
+                val, ph = res(k)
+                if not _zero(val):
+                    self._add(ph, factor * sg * self.twopii * val)
+        if self.parts == "exact":
+            return
+        y0 = self._seat(ystar, 3 * self.P * self.aK[fint] / (4 * self.H))
         # int_{C_yg} = int_{C_y0} + residues between (one piece: its label and its K-dependence
         # are those of the Gaussian's contour; y0 only conditions the quadrature)
         L = -v
@@ -604,7 +640,7 @@ class _Eval:
         sg, ks = _between(yg, y0)
         for k in ks:
             val, _ = res(k)
-            if val != 0:
+            if not _zero(val):
                 tot += sg * self.twopii * val
         # constant factor of the fixed variable is in a (its Laurent data includes it)
         if fixed == "A":
@@ -625,6 +661,8 @@ class _Eval:
         w0 = self._seat(ws, -P * (2 * dB - dA) / H)
         base = Fraction(-1, 2)
         self._move_plane(s, r, base, ug, base, wg, factor)
+        if self.parts == "exact":
+            return
         # the plane on C_ug x C_wg is one piece; it is evaluated on the seated contours plus the
         # lines between, all under the plane's label
         label = self._gphase(us, ws, s, r)
@@ -731,7 +769,7 @@ class _Eval:
     # the third family ---------------------------------------------------------
     def third_line(self, m: int, factor: acb):
         """``factor * sum_{b mod 3PK, K !| b} A(u) B(m - u) C(m)``, ``u = b/K`` (rank one LR)."""
-        H, P, K = self.H, self.P, self.K
+        H, P, K = self.H, self.P, self.Kx
         Cm = self.ctaylor(m, 1)[0]
         f = factor * Cm
         n = self._nl
@@ -761,22 +799,26 @@ class _Eval:
         def ph(k, t):
             return self._gphase(k, m - k, t, 0)
 
-        # - 2 pi i K sum_{k < 3P} Res_{u=k}[A(u) B(m-u) k(u - k)]
-        for k in range(3 * P):
+        exact, quad = self.parts != "quad", self.parts != "exact"
+        # - 2 pi i K sum_{k < 3P} Res_{u=k}[A(u) B(m-u) k(u - k)]   (2 pi i K = XK with the kernel)
+        for k in range(3 * P if exact else 0):
             val = res(k, 0, True)
-            if val != 0:
-                self._add(ph(k, 0), -f * self.twopii * K * val)
+            if not _zero(val):
+                self._add(ph(k, 0), -f * self.XK * val)
         # K sum_{t < 2H} int_{C_{-1/2}} A_t(u) B(m - u) du
         base = Fraction(-1, 2)
         for t in range(2 * H):
             ustar = Fraction(m, 2) - Fraction(3 * P) * (t + self.off["A"] - self.off["B"]) / (2 * H)
             ug = _half(ustar)
+            if exact:
+                sg, ks = _between(base, ug)
+                for k in ks:
+                    val = res(k, t, False)
+                    if not _zero(val):
+                        self._add(ph(k, t), f * K * sg * self.twopii * val)
+            if not quad:
+                continue
             u0 = self._seat(ustar, -3 * P * (self.aK["B"] - self.aK["A"]) / (4 * H))
-            sg, ks = _between(base, ug)
-            for k in ks:
-                val = res(k, t, False)
-                if val != 0:
-                    self._add(ph(k, t), f * K * sg * self.twopii * val)
             Av = self.grid("A", u0, t, 1)
             Bv = self.grid("B", m - u0, 0, 1, -1)
             tot = self._trap(u0, [x[0] * y[0] for x, y in zip(Av, Bv)], lambda k, t=t: laur(k, t, False))
@@ -786,9 +828,11 @@ class _Eval:
             self._add(ph(ustar, t), f * K * tot)
 
     # assembly ------------------------------------------------------------------
-    def run(self) -> dict[Fraction, acb]:
-        H, P, K = self.H, self.P, self.K
-        tpi = self.twopii
+    def run(self) -> dict:
+        """``{phi: piece}`` (``parts="exact"``: ``{raw integer label: polynomial in K}``, see
+        :func:`_exact_pieces`)."""
+        H, P, K = self.H, self.P, self.Kx
+        tpi, XK = self.twopii, self.XK
         K2 = K * K
         third = acb(1) / 3
         base = Fraction(-1, 2)
@@ -800,9 +844,10 @@ class _Eval:
             for r in range(2 * H):
                 self.plane(s, r, third * K2)
         # - 2 pi i K^2 sum_{m < 3P, r < 2H} int Res_{u=m}[T k(u - m)] e^{-2 pi i K r w} dw
+        # (with a kernel, 2 pi i K = XK: laurent_in_K leaves the kernel's 1/(2 pi i K) out)
         for m in range(3 * P):
             for r in range(2 * H):
-                self.line("A", m, 0, True, r, base, -third * tpi * K2)
+                self.line("A", m, 0, True, r, base, -third * K * XK)
         # + 2 pi i K^2 sum_{m; r, r' < H} int Res_{u=m}[T e^{-2 pi i K r u}] e^{-2 pi i K (H + r') w} dw
         for m in range(3 * P):
             for r in range(H):
@@ -811,16 +856,18 @@ class _Eval:
         # - 2 pi i K^2 sum_{m' < 3P, t < 2H} int du Res_{w=m'}[T e^{-2 pi i K t u} k(w - m')]
         for mp in range(3 * P):
             for t in range(2 * H):
-                self.line("B", mp, 0, True, t, base, -third * tpi * K2)
+                self.line("B", mp, 0, True, t, base, -third * K * XK)
         # + (2 pi i)^2 K^2 sum_{m, m'} Res_{w=m'} Res_{u=m}[T k(u - m) k(w - m')]
-        for m in range(3 * P):
+        for m in range(3 * P if self.parts != "quad" else 0):
             for mp in range(3 * P):
                 val = self.point("A", m, 0, True, "B", mp, 0, True)
-                if val != 0:
-                    self._add(self._gphase(m, mp, 0, 0), third * tpi * tpi * K2 * val)
+                if not _zero(val):
+                    self._add(self._gphase(m, mp, 0, 0), third * XK * XK * val)
         # the third family, subtracted
         for m in range(P):
             self.third_line(m, acb(-1))
+        if self.parts == "exact":
+            return dict(self.out)
         if self.PHI0:
             # the coset constant exp(2 pi i K phi_0): in every label (``_gphase``), here in the values
             f0 = (self.sc.tpiK * (acb(self.PHI0) / self.Dc)).exp()
@@ -828,9 +875,48 @@ class _Eval:
         return {Fraction(k, self.Dc): v for k, v in self.out.items()}
 
 
+#: Exact pieces already computed: ``key -> (precision in bits, {label: polynomial in K})``; at most
+#: :data:`EXACT_CACHE` entries (one per term and coset), the oldest dropped first.
+_EXACT: dict = {}
+EXACT_CACHE = 64
+
+
+def _reduce_label(phi: int, Dc: int) -> int:
+    """The label ``phi/Dc`` moved into ``(-1/2, 1/2]`` (as :meth:`_Eval._add` does)."""
+    n = (2 * phi + Dc) // (2 * Dc)
+    if 2 * (phi - n * Dc) == -Dc:
+        n -= 1
+    return phi - n * Dc
+
+
+def _exact_pieces(key, make) -> dict[Fraction, acb_poly]:
+    """``{phi: P_phi}`` with the exact pieces of one term ``= sum_phi P_phi(K) exp(2 pi i K phi)``
+    (``P_phi`` a polynomial with ball coefficients), computed once per ``key`` at a precision at
+    least the current one (``make()`` gives the ``_Eval`` in ``parts="exact"``).
+
+    Every exact piece is an iterated residue at integer points times a constant factor; its
+    Laurent data are ``exp(2 pi i K phi)`` (its label) times polynomials in ``K``
+    (:func:`.rootfn.laurent_in_K`), so pieces with one reduced label add up to one polynomial:
+    a few hundred polynomials replace some ten thousand residues at every further ``K``."""
+    hit = _EXACT.get(key)
+    if hit is not None and hit[0] >= ctx.prec:
+        return hit[1]
+    ev = make()
+    reduced = ev.reduced
+    grouped: dict[Fraction, acb_poly] = {}
+    for phi, v in ev.run().items():
+        lab = Fraction(_reduce_label(phi, ev.Dc) if reduced else phi, ev.Dc)
+        grouped[lab] = grouped[lab] + v if lab in grouped else v
+    _EXACT.pop(key, None)
+    while len(_EXACT) >= EXACT_CACHE:
+        del _EXACT[next(iter(_EXACT))]
+    _EXACT[key] = (ctx.prec, grouped)
+    return grouped
+
+
 def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: int,
                      reduced: bool = True, fine_plane: bool = False, cosets=None,
-                     genus: int = 0) -> dict[Fraction, acb]:
+                     genus: int = 0, parts: str = "all") -> dict[Fraction, acb]:
     """``{phi: piece}`` with ``sum = S(K)`` of §18.1 for SU(3) (``H != 0``, genus 0, three orders).
 
     Orders sharing a factor (§18.8): ``cosets`` lists the cosets (:meth:`CartanData.cosets`, given
@@ -841,6 +927,10 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
 
     ``phi`` is the Chern–Simons phase of the piece (``exp(2 pi i K phi)``), reduced to
     ``(-1/2, 1/2]`` when ``reduced``.  One run at the current precision (the caller compares two).
+
+    ``parts``: ``"all"``; ``"exact"``, the iterated residues whose points do not depend on ``K``,
+    from polynomials in ``K`` computed once per space and cached (:func:`_exact_pieces`);
+    ``"quad"``, the rest.  ``"exact"`` and ``"quad"`` add up to ``"all"``.
 
     Examples
     --------
@@ -864,14 +954,24 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
     if H < 0:
         Kc = K.conjugate()
         neg = None if cosets is None else [c.negated() for c in cosets]       # (the trivial one is its own)
-        res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane, neg, genus)
+        res = pole_sum_sectors(orders, -H, P, Kc, digits, reduced, fine_plane, neg, genus, parts)
         return {-phi: v.conjugate() for phi, v in res.items()}
+    if parts not in PARTS:
+        raise ValueError(f"parts = {parts!r}: one of {PARTS}")
     theta = _theta(H, complex(K.mid()))
     out: dict[Fraction, acb] = {}
+    deg = len(orders) - 2 + 2 * genus
     for co in (cosets if cosets is not None else [Coset.trivial(len(orders))]):
-        for term in merged_terms(orders, co.shifts, co.lin, len(orders) - 2 + 2 * genus):
-            ev = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, -co.const)
-            for phi, v in ev.run().items():
+        for i, term in enumerate(merged_terms(orders, co.shifts, co.lin, deg)):
+            if parts == "exact":
+                key = (tuple(orders), H, P, co.shifts, co.lin, co.const, deg, reduced, i)
+                polys = _exact_pieces(key, lambda: _Eval(term, K, H, P, digits, reduced, theta, False, -co.const,
+                                                         "exact"))
+                tpiK = 2 * acb(0, 1) * arb.pi() * K
+                items = ((phi, poly(K) * (tpiK * _q(phi)).exp()) for phi, poly in polys.items())
+            else:
+                items = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, -co.const, parts).run().items()
+            for phi, v in items:
                 if co.weight != 1:
                     v = v * co.weight
                 out[phi] = out.get(phi, acb(0)) + v

@@ -26,11 +26,11 @@ from dataclasses import dataclass
 from fractions import Fraction
 from functools import lru_cache
 
-from flint import acb, arb, ctx
+from flint import acb, acb_poly, arb, ctx
 
 from knotobs.ball_series import bernoulli_plus, ser_exp, ser_inv, ser_mul, ser_sin
 
-__all__ = ["RootFunction", "Scale", "laurent", "grid_series", "period_phase", "reflection_sign", "shifted_grid",
+__all__ = ["RootFunction", "Scale", "laurent", "laurent_in_K", "symbolic_scale", "grid_series", "period_phase", "reflection_sign", "shifted_grid",
            "BLOCK"]
 
 #: Grid recurrences are restarted from directly computed exponentials every ``BLOCK`` nodes.
@@ -79,6 +79,7 @@ class RootFunction:
         return _pole_order(self.sines)
 
 
+@lru_cache(maxsize=4096)
 def period_phase(f: RootFunction, n: int) -> Fraction | None:
     """``theta`` (mod 2) with ``f(y + n) = exp(i pi theta) f(y)`` for the sines and exponentials of
     ``f`` (no Gaussian, no ``s``), or ``None`` when ``n`` is not a period of every sine (``p | n``)
@@ -222,6 +223,72 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
         out = ser_mul(out, ker, n)
         val -= 1
     return val, out
+
+
+def symbolic_scale(H: int, P: int) -> Scale:
+    """The :class:`Scale` with ``K`` the polynomial variable: ``K = x``, ``c = x H/(3P)`` (for
+    :func:`laurent_in_K`).
+
+    >>> symbolic_scale(1, 30).c.coeffs()[1].overlaps(acb(1) / 90)
+    True
+    """
+    x = acb_poly([0, 1])
+    return Scale(x, x * (acb(H) / (3 * P)))
+
+
+def _ser_exp_lin_quad(d1, d2, n: int) -> list:
+    """``exp(d1 x + d2 x^2)`` to ``n`` terms for polynomial (or ball) ``d1``, ``d2``, by ``E' = (d1 +
+    2 d2 x) E``."""
+    out = [acb(1)]
+    for k in range(1, n):
+        t = d1 * out[k - 1]
+        if k >= 2:
+            t = t + 2 * d2 * out[k - 2]
+        out.append(t * (acb(1) / k))
+    return out
+
+
+def laurent_in_K(f: RootFunction, m: int, s, kernel: bool, n: int, sc: Scale) -> tuple[int, list]:
+    """The Laurent data of :func:`laurent` as polynomials in ``K`` (``sc`` from :func:`symbolic_scale`),
+    without the phase ``exp(-2 pi i K (s m + c m^2/(2K)))`` and, with the kernel, without its
+    ``1/(2 pi i K)`` (CONVENTIONS §18.7, exact pieces):
+
+        ``laurent(f, m, s, kernel, n, Scale(K, ...))`` ``=`` ``exp(-2 pi i K s m - i pi c m^2)
+        (2 pi i K)^(-kernel) * [laurent_in_K(...) at K]``.
+
+    Every coefficient is a polynomial in ``K`` (the Gaussian's and the Fourier index's series have
+    coefficients linear in ``K``, the kernel's are ``B_k^+ (2 pi i K)^k/k!``); the sines' data are
+    numbers.
+
+    >>> from knotobs.numerics import working_precision
+    >>> with working_precision(20):
+    ...     f = RootFunction(1, Fraction(1, 2), ((2, 1), (1, -1)))
+    ...     K = acb(7, 0.3)
+    ...     v, c = laurent(f, 3, 2, True, 3, Scale(K, K / 90))
+    ...     w, p = laurent_in_K(f, 3, 2, True, 3, symbolic_scale(1, 30))
+    ...     ph = (-2 * acb(0, 1) * arb.pi() * K * 6 - acb(0, 1) * arb.pi() * K / 90 * 9).exp() / (2 * acb(0, 1) * arb.pi() * K)
+    >>> v == w and all(abs(complex((a / (ph * b(K)) - 1).mid())) < 1e-12 for a, b in zip(c, p))
+    True
+    """
+    ipi = sc.ipi
+    val, out = _sine_laurent(f.shifted_sines, m, n, ctx.prec)
+    s = _num(s)
+    g: list = [acb(0)] * n
+    for co, a in f.exps:
+        lin = ipi * _q(a) - sc.tpiK * s
+        const = (ipi * _q(a) * m).exp() * co
+        gi = _ser_exp_lin_quad(lin - 2 * ipi * sc.c * m, -ipi * sc.c, n)
+        g = [x + const * y for x, y in zip(g, gi)]
+    out = ser_mul(out, g, n)
+    if kernel:
+        bp = bernoulli_plus(n)
+        ker, pw = [], acb(1)
+        for k in range(n):
+            ker.append(pw * _q(bp[k]))
+            pw = pw * sc.tpiK
+        out = ser_mul(out, ker, n)
+        val -= 1
+    return val, [x if isinstance(x, acb_poly) else acb_poly([x]) for x in out]
 
 
 @lru_cache(maxsize=256)

@@ -183,6 +183,10 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
     extra = _guard_digits(Kv, method)
     rng = _range_digits(d, Kv, method)
 
+    def residues(Ka, dg, parts):
+        return pole_sum_sectors(d.big_orders, d.HL, d.L, Ka, dg + extra, reduced, cosets=d.cosets(),
+                                genus=d.genus, parts=parts)
+
     def comp(dg):
         with working_bits(bits(dg + extra + rng)):
             Ka = to_acb(resolve_K(level, K, N))          # read again at this precision
@@ -191,13 +195,19 @@ def _sectors(d: CartanData, level, K, N, digits, reduced, method):
             if method == "residues":
                 pre = B_N(d, Ka) / (Ka * Ka)
                 s = {}
-                for phi, v in pole_sum_sectors(d.big_orders, d.HL, d.L, Ka, dg + extra, reduced,
-                                               cosets=d.cosets(), genus=d.genus).items():
-                    key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
-                    s[key] = s.get(key, acb(0)) + pre * v
+                for part in ("exact", "quad"):
+                    for phi, v in residues(Ka, dg, part).items():
+                        key = phi % 1 if reduced else phi          # CS values mod 1, as for the others
+                        s[key] = s.get(key, acb(0)) + pre * v
                 return s
             return quadrature_sectors(d, Ka, dg, reduced)
 
+    if method == "residues":
+        # the exact pieces (no discretisation: the same in both runs) as polynomials in K, computed
+        # here once, at the finer run's precision, and cached for every further K (both runs,
+        # and a forked run, read the cache)
+        with working_bits(bits(digits + 12 + extra + rng)):
+            residues(to_acb(resolve_K(level, K, N)), digits + 12, "exact")
     lo, hi = run_both(comp, digits + 3, digits + 12, parallel=None if method == "residues" else False)
 
     def total_of(dg):
