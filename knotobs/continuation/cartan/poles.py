@@ -229,6 +229,18 @@ def _line_rate(term: PoleTerm) -> float:
 PARTS = ("all", "exact", "quad")
 
 
+def _label_shift(phi: int, Dc: int) -> int:
+    """The integer ``n`` with ``phi/Dc - n`` in ``(-1/2, 1/2]`` (the reduced phase of a label).
+
+    >>> _label_shift(30, 40), _label_shift(-20, 40), _label_shift(20, 40)
+    (1, -1, 0)
+    """
+    n = (2 * phi + Dc) // (2 * Dc)
+    if 2 * (phi - n * Dc) == -Dc:
+        n -= 1
+    return n
+
+
 def _zero(v) -> bool:
     """An exact zero (a structural zero of :meth:`_Eval.point`); a ball that merely contains 0 is kept."""
     return type(v) is acb and v == 0
@@ -326,20 +338,15 @@ class _Eval:
         """Adds a piece ``value ~ exp(2 pi i K phi / Dc)`` (``phi`` an integer, ``Dc = 24 P H^2``)."""
         if self._label is not None:
             phi = self._label
-        if self.parts == "exact":                      # raw labels; reduced when evaluated
-            out = self.out
-            out[phi] = out[phi] + value if phi in out else value
-            return
         if self.reduced:
             Dc = self.Dc
-            n = (2 * phi + Dc) // (2 * Dc)
-            if 2 * (phi - n * Dc) == -Dc:
-                n -= 1
+            n = _label_shift(phi, Dc)
             if n:
-                f = self._ex.get(n)
-                if f is None:
-                    f = self._ex[n] = (-self.sc.tpiK * n).exp()
-                value = value * f
+                if self.parts != "exact":      # a polynomial in K carries no exponential
+                    f = self._ex.get(n)
+                    if f is None:
+                        f = self._ex[n] = (-self.sc.tpiK * n).exp()
+                    value = value * f
                 phi -= n * Dc
         out = self.out
         out[phi] = out[phi] + value if phi in out else value
@@ -829,8 +836,8 @@ class _Eval:
 
     # assembly ------------------------------------------------------------------
     def run(self) -> dict:
-        """``{phi: piece}`` (``parts="exact"``: ``{raw integer label: polynomial in K}``, see
-        :func:`_exact_pieces`)."""
+        """``{phi: piece}`` (``parts="exact"``: ``{integer label: polynomial in K}``, labels reduced
+        as the pieces' when ``reduced``; see :func:`_exact_pieces`)."""
         H, P, K = self.H, self.P, self.Kx
         tpi, XK = self.twopii, self.XK
         K2 = K * K
@@ -881,14 +888,6 @@ _EXACT: dict = {}
 EXACT_CACHE = 64
 
 
-def _reduce_label(phi: int, Dc: int) -> int:
-    """The label ``phi/Dc`` moved into ``(-1/2, 1/2]`` (as :meth:`_Eval._add` does)."""
-    n = (2 * phi + Dc) // (2 * Dc)
-    if 2 * (phi - n * Dc) == -Dc:
-        n -= 1
-    return phi - n * Dc
-
-
 def _exact_pieces(key, make) -> dict[Fraction, acb_poly]:
     """``{phi: P_phi}`` with the exact pieces of one term ``= sum_phi P_phi(K) exp(2 pi i K phi)``
     (``P_phi`` a polynomial with ball coefficients), computed once per ``key`` at a precision at
@@ -897,16 +896,12 @@ def _exact_pieces(key, make) -> dict[Fraction, acb_poly]:
     Every exact piece is an iterated residue at integer points times a constant factor; its
     Laurent data are ``exp(2 pi i K phi)`` (its label) times polynomials in ``K``
     (:func:`.rootfn.laurent_in_K`), so pieces with one reduced label add up to one polynomial:
-    a few hundred polynomials replace some ten thousand residues at every further ``K``."""
+    a few dozen polynomials replace some ten thousand residues at every further ``K`` (Σ(2,3,5))."""
     hit = _EXACT.get(key)
     if hit is not None and hit[0] >= ctx.prec:
         return hit[1]
     ev = make()
-    reduced = ev.reduced
-    grouped: dict[Fraction, acb_poly] = {}
-    for phi, v in ev.run().items():
-        lab = Fraction(_reduce_label(phi, ev.Dc) if reduced else phi, ev.Dc)
-        grouped[lab] = grouped[lab] + v if lab in grouped else v
+    grouped = {Fraction(phi, ev.Dc): v for phi, v in ev.run().items()}
     _EXACT.pop(key, None)
     while len(_EXACT) >= EXACT_CACHE:
         del _EXACT[next(iter(_EXACT))]
@@ -961,13 +956,13 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
     theta = _theta(H, complex(K.mid()))
     out: dict[Fraction, acb] = {}
     deg = len(orders) - 2 + 2 * genus
+    tpiK = 2 * acb(0, 1) * arb.pi() * K
     for co in (cosets if cosets is not None else [Coset.trivial(len(orders))]):
         for i, term in enumerate(merged_terms(orders, co.shifts, co.lin, deg)):
             if parts == "exact":
                 key = (tuple(orders), H, P, co.shifts, co.lin, co.const, deg, reduced, i)
                 polys = _exact_pieces(key, lambda: _Eval(term, K, H, P, digits, reduced, theta, False, -co.const,
                                                          "exact"))
-                tpiK = 2 * acb(0, 1) * arb.pi() * K
                 items = ((phi, poly(K) * (tpiK * _q(phi)).exp()) for phi, poly in polys.items())
             else:
                 items = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, -co.const, parts).run().items()

@@ -190,6 +190,16 @@ def _sine_laurent(sines: tuple[tuple[int, int, int], ...], m: int, n: int, prec:
     return val, tuple(out)
 
 
+def _kernel_series(n: int, X, first) -> list:
+    """``first * [B_k^+ X^k/k!]_{k < n}``: with ``first = 1/X`` the series of the kernel
+    ``k(x) = (1/(X x)) * Xx/(1 - e^{-Xx})`` times ``x`` (``X = 2 pi i K``); ``X`` may be a polynomial."""
+    ker, pw = [], first
+    for b in bernoulli_plus(n):
+        ker.append(pw * _q(b))
+        pw = pw * X
+    return ker
+
+
 def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) -> tuple[int, list[acb]]:
     """Laurent expansion of ``f(m + x) exp(-i pi c (m+x)^2) exp(-2 pi i K s (m+x)) [k(x)]`` at ``x = 0``.
 
@@ -213,14 +223,7 @@ def laurent(f: RootFunction, m: int, s: int, kernel: bool, n: int, sc: Scale) ->
     out = ser_mul(out, g, n)
     if kernel:
         # k(x) = (1/(2 pi i K x)) * X/(1 - e^-X), X = 2 pi i K x
-        bp = bernoulli_plus(n)
-        X = sc.tpiK
-        ker = []
-        pw = 1 / X
-        for k in range(n):
-            ker.append(_q(bp[k]) * pw)
-            pw = pw * X
-        out = ser_mul(out, ker, n)
+        out = ser_mul(out, _kernel_series(n, sc.tpiK, 1 / sc.tpiK), n)
         val -= 1
     return val, out
 
@@ -281,12 +284,7 @@ def laurent_in_K(f: RootFunction, m: int, s, kernel: bool, n: int, sc: Scale) ->
         g = [x + const * y for x, y in zip(g, gi)]
     out = ser_mul(out, g, n)
     if kernel:
-        bp = bernoulli_plus(n)
-        ker, pw = [], acb(1)
-        for k in range(n):
-            ker.append(pw * _q(bp[k]))
-            pw = pw * sc.tpiK
-        out = ser_mul(out, ker, n)
+        out = ser_mul(out, _kernel_series(n, sc.tpiK, acb(1)), n)
         val -= 1
     return val, [x if isinstance(x, acb_poly) else acb_poly([x]) for x in out]
 
