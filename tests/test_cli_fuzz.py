@@ -4,9 +4,9 @@ Property test (hypothesis) over malformed and edge-case arguments; the expected 
 the project rule that bad input gets an error naming the value (exit status 2), never a
 traceback and never a silently wrong number.
 
-The examples are derandomized (the same on every run): a random draw once reached a colored
-HOMFLY-PT request that the size guard let through and that ran for minutes (a reliability gap
-noted for the guard of ``poly``), and a check must be reproducible.
+The examples are derandomized (the same on every run), so that a check is reproducible: a
+random draw once reached a coloured HOMFLY-PT request on a link that ran for minutes before its
+refusal (now refused before the sum; tests/evaluation/test_properties.py).
 """
 
 from hypothesis import HealthCheck, given, settings

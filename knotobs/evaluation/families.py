@@ -241,27 +241,30 @@ def colored_jones(knot, n: int, t_is: str = "q^-1", mirror: bool = False, normal
 
 
 def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
-    num, D = rosso_jones_homfly(knot, cols, 0)
-    # remove the U(N) linking phase: a^(-2 lk_ij |lam_i||lam_j|)
     c = knot.components
-    lk = knot.linking_number
-    pair = sum(sum(cols[i]) * sum(cols[j]) for i in range(c) for j in range(i + 1, c))
-    num = num.times_monomial(-2 * lk * pair)
-    if not normalized:
-        if any(cc != (1,) for cc in cols):
-            raise InvalidRepresentationError(
-                "the unnormalised coloured HOMFLY-PT is not a Laurent polynomial in (a, z); ask for"
-                " the normalised one (the unknot factor is prod (a s^c - a^-1 s^-c)/prod (s^h - s^-h))"
-            )
-        # fundamental: W = P (a - 1/a)/z, a Laurent polynomial in a and z^-1
-        zc = (Laurent.gen("s") - Laurent.gen("s") ** -1) ** c
-        return (num * Laurent2.from_s(zc)).exact_div_s(D).with_zpow(-c)
-    if c > 1 and any(cc != (1,) for cc in cols):
+    # every component fundamental, or every component trivial (the value 1), stays a Laurent
+    # polynomial; refusals come first, before the Rosso-Jones sum is computed
+    coloured = not (all(cc == (1,) for cc in cols) or all(cc == () for cc in cols))
+    if not normalized and coloured:
+        raise InvalidRepresentationError(
+            "the unnormalised coloured HOMFLY-PT is not a Laurent polynomial in (a, z); ask for"
+            " the normalised one (the unknot factor is prod (a s^c - a^-1 s^-c)/prod (s^h - s^-h))"
+        )
+    if normalized and c > 1 and coloured:
         raise InvalidRepresentationError(
             f"the normalised HOMFLY-PT of the {c}-component link {knot} coloured by"
             f" {[list(cc) for cc in cols]} is a rational function of (a, q), not a Laurent polynomial;"
             " coloured links are available for a fixed N: use wilson_loop / 'knotobs loop --group U(N)'"
         )
+    num, D = rosso_jones_homfly(knot, cols, 0)
+    # remove the U(N) linking phase: a^(-2 lk_ij |lam_i||lam_j|)
+    lk = knot.linking_number
+    pair = sum(sum(cols[i]) * sum(cols[j]) for i in range(c) for j in range(i + 1, c))
+    num = num.times_monomial(-2 * lk * pair)
+    if not normalized:
+        # fundamental: W = P (a - 1/a)/z, a Laurent polynomial in a and z^-1
+        zc = (Laurent.gen("s") - Laurent.gen("s") ** -1) ** c
+        return (num * Laurent2.from_s(zc)).exact_div_s(D).with_zpow(-c)
     lam = cols[0]
     unum, uden = homfly_unknot(lam)
     # a c-component link has P in z^(1-c) Z[a^+-1, z]: carry z^(c-1) along

@@ -239,6 +239,29 @@ def test_homfly_coloured_link_is_refused_clearly():
     assert w.at_one() != 0
 
 
+def test_homfly_coloured_link_is_refused_before_the_sum(monkeypatch):
+    """The refusal comes before the Rosso–Jones sum (project rule: refuse before the work
+    starts): T(8,12) coloured by [4] once ran for minutes before the same error.  The sum is
+    replaced by one that fails, so a refusal that came after it would show."""
+    import knotobs.evaluation.families as fam
+
+    def _no_sum(*a, **k):
+        raise AssertionError("the Rosso-Jones sum was started")
+
+    monkeypatch.setattr(fam, "rosso_jones_homfly", _no_sum)
+    for kw in ({}, {"normalized": False}):
+        with pytest.raises(InvalidRepresentationError, match="Laurent polynomial"):
+            homfly(TorusLink(8, 12), (4,), **kw)
+
+
+def test_homfly_trivial_colour_is_one():
+    """The trivial colour on every component gives the invariant 1 (the empty link; common
+    practice), normalised or not, for knots and links alike, matching the coloured Jones J_1 = 1."""
+    for k in (TorusLink(2, 3), TorusLink(2, 4), TorusLink(3, 6)):
+        for norm in (True, False):
+            assert homfly(k, (), normalized=norm).exact_string() == "1"
+
+
 # ================================================================ quantum dimensions
 @settings(max_examples=60, deadline=None, database=None)
 @given(N=st.integers(2, 8), lam=st.lists(st.integers(1, 4), min_size=1, max_size=4).map(
