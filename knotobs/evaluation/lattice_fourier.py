@@ -178,7 +178,7 @@ class WeightLatticeFourier:
         perms = list(itertools.permutations(range(N)))
         self.signs = [permutation_sign(p) for p in perms]
         self.in_index = np.stack([flat(x[:, list(p)], U) for p in perms], axis=1)  # (n, N!)
-        if len(np.unique(self.in_index)) != self.n * len(perms):  # pragma: no cover - defensive
+        if len(set(self.in_index.ravel().tolist())) != self.n * len(perms):  # pragma: no cover - defensive
             raise AssertionError("Weyl images of alcove points collide in P/KQ")
 
     @classmethod

@@ -141,7 +141,7 @@ def _sum_fixed(group: Group, mus: np.ndarray, c: np.ndarray, m: int, n: int) -> 
         require(f"{user_label(f'{group} Rosso-Jones sum')}: quantum dimensions of {k} irreducible pieces",
                 seconds=seconds_for(k * (N * (N - 1) // 2) * 80, "python"), memory_mb=k * N * 8 / 2**20,
                 accepted="choose a smaller colour or knot")
-    for r in np.unique(cls).tolist():
+    for r in sorted(set(cls.ravel().tolist())):  # not np.unique: it imports numpy.ma
         sel = cls == r
         if sparse:
             R, sign = _weyl_table(N)

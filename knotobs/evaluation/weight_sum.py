@@ -112,7 +112,7 @@ def _gaussian_pieces(knot: TorusLink, group: Group, nus: np.ndarray, mults: np.n
         co = mults[:, None] * sign[None, :]
         cls = np.mod(ex, 2 * N)
         guard_dense(f"{label} by the weight sum", int((ex.max() - ex.min()) // (2 * N)) + 1, ex.size)
-        for r in np.unique(cls).tolist():
+        for r in sorted(set(cls.ravel().tolist())):
             sel = cls == r
             pieces.append((Dense.from_half_terms(np.floor_divide(ex[sel], 2 * N), co[sel]), Fraction(r, 4 * N)))
         return pieces
@@ -120,7 +120,7 @@ def _gaussian_pieces(knot: TorusLink, group: Group, nus: np.ndarray, mults: np.n
     b = np.floor_divide(base, 2 * N)
     span = int(np.abs(nus).max() if nus.size else 0) * P * N * N + N ** 3
     guard_dense(f"{label} by the weight sum", span, 0, passes=len(nus) * N * N // 2)
-    for r in np.unique(cls).tolist():
+    for r in sorted(set(cls.ravel().tolist())):
         acc = Dense(np.zeros(0, dtype=np.int64), 0, 2)
         for nu, mult, bb in zip(nus[cls == r].tolist(), mults[cls == r].tolist(), b[cls == r].tolist()):
             factors = [P * (nu[i] - nu[j]) + (j - i) for i in range(N) for j in range(i + 1, N)]

@@ -137,7 +137,7 @@ class LocalisationSum:
         bits = flint_ctx.prec + 10
         n = self._lam.shape[0]
         sines = {}
-        for j in np.unique(self._pairs).tolist():
+        for j in sorted(set(self._pairs.ravel().tolist())):  # not np.unique: it imports numpy.ma
             sines[j] = 2 * arb(fmpq(j, K)).sin_pi()
         Bt = RootTable(2 * N * K) if self.B else None
         factors = []
