@@ -334,3 +334,27 @@ def test_random_manifolds_agree(case):
 @pytest.mark.parametrize("case", _random_cases(11, 60))
 def test_random_manifolds_agree_sweep(case):
     _check_random(*case)
+
+
+@pytest.mark.parametrize("M", [7, 64, 65, 360, 2580, 5003])
+def test_root_table_within_three_units(M):
+    """The fixed-point table of ``zeta^j = exp(2 pi i j/M)`` behind every fiber factor is within
+    3 units of ``2^-S`` of the true cosines and sines (the bound ``root_sums`` certifies), both
+    entry by entry (``M <= SMALL``) and by giant and baby steps above.  Reference values: mpmath's
+    cos and sin at 60 digits in a local context (the trigonometric values are common practice)."""
+    import mpmath
+
+    from knotobs.localisation import fixedpoint as fp
+
+    S = 2 * fp.LIMB
+    re_l, im_l = fp._table(M, S)
+
+    def val(limbs, j):
+        return sum(int(limb[j]) << (fp.LIMB * t) for t, limb in enumerate(limbs)) - (2 << S)
+
+    ctx = mpmath.MPContext()
+    ctx.dps = 60
+    for j in sorted({0, 1, M // 3, M // 2, M - 1, (7 * M) // 11}):
+        x = 2 * ctx.pi * j / M
+        assert abs(val(re_l, j) - ctx.cos(x) * 2 ** S) <= 3
+        assert abs(val(im_l, j) - ctx.sin(x) * 2 ** S) <= 3
