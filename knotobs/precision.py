@@ -65,11 +65,12 @@ def _fixed(x, places: int) -> str:
     if not isinstance(x, mpmath.mpf):
         x = mpmath.mpf(x)
     top = 0 if x == 0 else int(mpmath.floor(mpmath.log10(abs(x))))
-    # enough digits for the requested places and for every bit of x (no rounding on the way in)
-    ctx = local_mp(max(max(top, 0) + abs(places) + 20, int(_bits(x) / 3.32) + 10))
     if places < 0:
         # the certified digits end before the decimal point: scientific notation, so that no
-        # uncertified zeros are printed (``3.359616e+143``, not ``3359616000...``)
+        # uncertified zeros are printed (``3.359616e+143``, not ``3359616000...``).  The quotient
+        # has ``top + places + 1`` digits: that many and a margin suffice (the precision must not
+        # grow with the exponent: ``|x| ~ 10^(10^6)`` at continued levels far from the real axis)
+        ctx = local_mp(max(top + places + 25, int(_bits(x) / 3.32) + 10))
         q = int(ctx.nint(ctx.mpf(x) / ctx.mpf(10) ** (-places)))
         if q == 0:
             return "0.0"
@@ -78,6 +79,8 @@ def _fixed(x, places: int) -> str:
         exp = len(d) - 1 - places
         mant = d[0] + ("." + d[1:].rstrip("0") if d[1:].rstrip("0") else ".0")
         return f"{sign}{mant}e+{exp}"
+    # enough digits for the requested places and for every bit of x (no rounding on the way in)
+    ctx = local_mp(max(max(top, 0) + places + 20, int(_bits(x) / 3.32) + 10))
     n = int(ctx.nint(ctx.mpf(x) * ctx.mpf(10) ** places))
     if n == 0:
         return "0.0"

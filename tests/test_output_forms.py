@@ -96,3 +96,32 @@ def test_values_beyond_their_certified_digits_print_in_scientific_notation():
         # both parts to the same decimal position (10^41): 17 digits of the imaginary part
         z = certified_str(mpmath.mpc(-x, x / 1000), 20)
         assert z == "(-1.6069380442589902755e+60 + 1.6069380442589903e+57j)", z
+
+
+def test_values_of_huge_magnitude_print_at_once(monkeypatch):
+    # continued values far from the real axis reach |Z| ~ 10^(10^6); printing them must not work
+    # at a million digits (it once ran for minutes there): 20 digits and the exponent, read back
+    # with mpmath in a local context (the reference is the number itself), and every working
+    # precision the formatting asks for stays small (internal check of the cause)
+    import mpmath
+
+    import knotobs.numerics
+    from knotobs.precision import certified_str
+
+    asked = []
+    real_local_mp = knotobs.numerics.local_mp
+
+    def spy(dps):
+        asked.append(dps)
+        return real_local_mp(dps)
+
+    monkeypatch.setattr(knotobs.numerics, "local_mp", spy)
+
+    ctx = mpmath.MPContext()
+    ctx.dps = 40
+    x = ctx.mpf(3) ** 2_000_001                        # about 10^954243
+    s = certified_str(x, 20)
+    mant, exp = s.split("e+")
+    assert int(exp) == int(ctx.floor(ctx.log10(x))) and len(mant.replace(".", "")) <= 20, s
+    assert abs(ctx.mpf(s) / x - 1) < ctx.mpf(10) ** -19
+    assert asked and max(asked) < 200, asked
