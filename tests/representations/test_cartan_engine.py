@@ -198,3 +198,14 @@ def test_dynkin_tuple_and_partition_agree():
     G = simple_group("Sp(4)")
     assert G.highest_weight(Dynkin((0, 1))) == G.highest_weight([1, 1]) == G.highest_weight("(0,1)")
     assert dominant_weights(G.roots, (0, 1))[0] == ((0, 1), 1)
+
+
+@pytest.mark.parametrize("spec", ["SO(20)", "Sp(16)", "SO(21)", "SU(12)", "G2"])
+def test_weyl_order_of_large_ranks_without_listing_the_group(spec):
+    # Bourbaki, plates I-IX: |W(A_n)| = (n+1)!, |W(B_n)| = |W(C_n)| = 2^n n!, |W(D_n)| = 2^(n-1) n!,
+    # |W(G_2)| = 12; from the degrees (Humphreys 1990, 3.9), with no listing of W (SO(20):
+    # 1.9e9 elements; the size guard of the Cartan routes once listed it and never returned)
+    g = simple_group(spec)
+    R = g.roots
+    assert R.weyl_order == _weyl_order(g)
+    assert "weyl_rho" not in R.__dict__                 # the group was not listed

@@ -31,6 +31,7 @@ Representation Theory*, Springer GTM 9 (1972), §10–§13.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+import math
 from fractions import Fraction
 from functools import cached_property
 from math import lcm
@@ -230,9 +231,34 @@ class RootSystem:
         pairs = self._orbit_with_depth(self.rho)
         return tuple(w for w, _ in pairs), tuple(-1 if d % 2 else 1 for _, d in pairs)
 
+    @cached_property
+    def exponents(self) -> tuple[int, ...]:
+        """The exponents ``m_1 <= ... <= m_r``: the partition dual to the numbers of positive roots
+        of each height (Kostant 1959; Humphreys, *Reflection Groups and Coxeter Groups*, 1990, §3.20).
+
+        >>> from knotobs.representations.cartan import type_d, type_g
+        >>> type_g.root_system(2).exponents, type_d.root_system(4).exponents
+        ((1, 5), (1, 3, 3, 5))
+        """
+        Ainv = _inverse([list(map(Fraction, row)) for row in self.cartan_matrix])
+        heights: dict[int, int] = {}
+        for b in self.positive_roots:
+            h = sum(sum(b[j] * Ainv[j][i] for j in range(self.rank)) for i in range(self.rank))
+            heights[int(h)] = heights.get(int(h), 0) + 1
+        counts = [heights.get(h, 0) for h in range(1, max(heights) + 1)]
+        # m_i >= h for exactly counts[h - 1] exponents
+        return tuple(sorted(sum(1 for c in counts if c > i) for i in range(self.rank)))
+
     @property
     def weyl_order(self) -> int:
-        return len(self.weyl_rho[0])
+        """``|W| = prod (m_i + 1)`` (the product of the degrees; Humphreys 1990, §3.9), without
+        listing the group (``SO(20)`` has ``1.9 10^9`` elements).
+
+        >>> from knotobs.representations.cartan import type_d
+        >>> type_d.root_system(10).weyl_order
+        1857945600
+        """
+        return math.prod(m + 1 for m in self.exponents)
 
     @cached_property
     def positive_roots(self) -> tuple[Weight, ...]:
