@@ -217,3 +217,13 @@ def test_max_memory_takes_effect():
     # refused with its memory estimate under a limit of 1 kB
     assert run("match", "--poly", "(1+t)^150").exit_code == 0
     one_error(run("--max-memory", "0.001", "match", "--poly", "(1+t)^150"), "MB of memory", "--max-memory")
+
+
+def test_plot_zeros_refuses_a_companion_matrix_too_large_before_it():
+    # the zeros of J_60(T(2,3)) are the eigenvalues of a companion matrix of degree 5310 (the span
+    # 3n(n-1)/2 of the trefoil's colored Jones polynomial, stated from memory and computed here):
+    # refused by its estimate instead of running out of memory or for hours; J_5 still plots
+    r = runner.invoke(app, ["plot", "zeros", "T(2,3)", "-c", "60", "--json"])
+    assert r.exit_code == 2 and "degree 5310" in r.output and "estimated" in r.output, r.output
+    ok = runner.invoke(app, ["plot", "zeros", "T(2,3)", "-c", "5", "--json"])
+    assert ok.exit_code == 0 and len(__import__("json").loads(ok.output)["zeros"]) == 30
