@@ -227,3 +227,13 @@ def test_plot_zeros_refuses_a_companion_matrix_too_large_before_it():
     assert r.exit_code == 2 and "degree 5310" in r.output and "estimated" in r.output, r.output
     ok = runner.invoke(app, ["plot", "zeros", "T(2,3)", "-c", "5", "--json"])
     assert ok.exit_code == 0 and len(__import__("json").loads(ok.output)["zeros"]) == 30
+
+
+@pytest.mark.parametrize("route", ["localisation", "surgery", "both"])
+def test_a_route_asked_for_by_name_is_refused_not_replaced(route):
+    # project rule: every option takes effect or is refused.  Over the limit, --route auto may
+    # fall back to the exact polynomial at q = exp(2 pi i/K) in S^3 (saying so); a named route may not
+    r = runner.invoke(app, ["--max-seconds", "1", "loop", "T(2,3)", "-k", "100000", "--route", route])
+    assert r.exit_code == 2 and r.output.startswith("error:") and "estimated" in r.output, r.output
+    auto = runner.invoke(app, ["--max-seconds", "1", "loop", "T(2,3)", "-k", "100000"])
+    assert auto.exit_code == 0 and "exact polynomial at q = exp(2 pi i/K) only" in auto.output, auto.output

@@ -190,8 +190,8 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         v = fiber_wilson_loop(F.manifold, level, str(g), regular=list(cols), normalized=normalized,
                               digits=digits, framing=mode, route=route)
     except SizeLimitError:
-        if not (in_s3 and normalized):
-            raise
+        if not (in_s3 and normalized) or route not in ("auto", None):
+            raise           # a route asked for by name is refused, not replaced
         # the modular data are too large at this level; in S^3 the exact polynomial still gives
         # the value (one route only, said so in the result)
         return _polynomial_only(k, g, cols, level, framing, mode, digits, F)
