@@ -62,19 +62,27 @@ class Identification(NotebookMixin):
     bounds: dict
     candidates: tuple
     tried: int
+    #: candidates not compared because their evaluation was over the size limits
+    skipped: tuple = ()
 
     def to_json(self) -> dict[str, Any]:
         return {"kind": "identification", "target": self.target, "invariant": self.invariant,
                 "bounds": self.bounds, "tried": self.tried,
+                "skipped_over_limits": [{"knot": k, "representation": list(lam)} for k, lam in self.skipped],
                 "candidates": [c.to_json() for c in self.candidates]}
 
     def describe(self) -> str:
         head = (f"identify {self.target}\n  searched T(P,Q), 2 <= P <= {self.bounds['max_p']}, P <= Q <= "
                 f"{self.bounds['max_q']}, colours up to {self.bounds['max_colour']} boxes"
                 f"{', links included' if self.bounds['links'] else ''} ({self.tried} tried)")
-        if not self.candidates:
-            return head + "\n  no torus knot or link found"
         lines = [head]
+        if self.skipped:
+            shown = ", ".join(f"{k} {_colours_text((lam,))}" for k, lam in self.skipped[:4])
+            more = f" and {len(self.skipped) - 4} more" if len(self.skipped) > 4 else ""
+            lines.append(f"  not compared (over the size limits; --max-seconds raises them): {shown}{more}")
+        if not self.candidates:
+            lines.append("  no torus knot or link found" + (" among the candidates compared" if self.skipped else ""))
+            return "\n".join(lines)
         for c in self.candidates:
             lines.append(f"  {c.knot}  colour {_colours_text(c.representation)}  [{c.chirality}]  {c.map.describe()}")
         return "\n".join(lines)
@@ -151,18 +159,23 @@ def identify(target, invariant: str = "auto", group="SU(2)", max_p: int = 5, max
     knots = _torus_range(max_p, max_q, links)
     n_try = len(knots) * len(reps)
     if n_try > MAX_CANDIDATES:
-        raise SizeLimitError(f"{n_try} candidates to try; at most {MAX_CANDIDATES}: lower max_p, max_q or max_colour")
+        raise SizeLimitError(f"{n_try} candidates to try; at most {MAX_CANDIDATES}: lower max_p, max_q or"
+                             " max_colour (--max-p, --max-q, --max-boxes)")
     nterms = len(tp.terms)
     found: list[Candidate] = []
+    skipped: list = []
     tried = 0
     for k in knots:
         for lam in reps:
             tried += 1
             try:
                 c: Comparison = compare(k, tp, g, lam, inv, _closest=False)
+            except SizeLimitError:
+                skipped.append((str(k), tuple(lam)))   # said in the result, never a silent "not found"
+                continue
             except KnotobsError:
                 continue  # e.g. a coloured HOMFLY-PT that is not a polynomial in z
             if c.equal:
                 found.append(Candidate(str(k), c.representation, c.invariant, c.group, c.map))
     bounds = {"max_p": max_p, "max_q": max_q, "max_colour": max_colour, "links": links, "group": str(g)}
-    return Identification(str(tp), inv, bounds, tuple(found), tried)
+    return Identification(str(tp), inv, bounds, tuple(found), tried, tuple(skipped))

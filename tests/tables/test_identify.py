@@ -75,3 +75,17 @@ def test_identify_nothing_and_bad_bounds():
         identify("t", max_p=0)
     with pytest.raises(SizeLimitError):
         identify("t", max_p=200, max_q=400, max_colour=3)
+
+
+def test_candidates_over_the_limits_are_reported_not_dropped():
+    # V(T(2,3)) = t + t^3 - t^4 (Jones 1985; t = q^-1, CONVENTIONS §3): found under the default
+    # limits; under a limit that refuses every evaluation the result must say that the candidates
+    # were not compared, never a bare "not found" (it once said so silently)
+    from knotobs.guard import limits
+
+    assert any(c.knot == "T(2,3)" for c in identify("t + t^3 - t^4", max_p=3, max_q=4).candidates)
+    with limits(seconds=1e-6):
+        r = identify("t + t^3 - t^4", max_p=3, max_q=4)
+    assert r.candidates == () and ("T(2,3)", (1,)) in r.skipped
+    assert "not compared (over the size limits" in r.describe()
+    assert r.to_json()["skipped_over_limits"]
