@@ -237,3 +237,16 @@ def test_a_route_asked_for_by_name_is_refused_not_replaced(route):
     assert r.exit_code == 2 and r.output.startswith("error:") and "estimated" in r.output, r.output
     auto = runner.invoke(app, ["--max-seconds", "1", "loop", "T(2,3)", "-k", "100000"])
     assert auto.exit_code == 0 and "exact polynomial at q = exp(2 pi i/K) only" in auto.output, auto.output
+
+
+def test_huge_framing_at_a_level_is_reduced_exactly():
+    # the value at level k depends on the framing f only through theta^f = exp(2 pi i f C/K)
+    # (common practice; CONVENTIONS §2): SU(2), K = 7, C([1]) = 3/4 has period 28 in f, and
+    # 10^18 + 7 = 15 mod 28.  Such framings once overflowed (10^30) or lost the phase (10^18)
+    def value(f):
+        r = runner.invoke(app, ["loop", "T(2,3)", "-k", "5", "-f", str(f), "--json"])
+        assert r.exit_code == 0, r.output
+        return __import__("json").loads(r.output)["numeric"]
+
+    assert value(10**18 + 7) == value(15) == value(10**30 - 10**30 % 28 + 15)
+    assert value(15) != value(7)

@@ -201,7 +201,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     if _is_integer_framing(framing):
         f = int(framing)
         K = level + g.N
-        phase = sum(f * casimir(g, lam) for lam in cols) / K
+        c = sum((casimir(g, lam) for lam in cols), Fraction(0))
+        f_eff = _reduced_framing(f, g, cols, K)
+        phase = f_eff * c / K
         with working_precision(digits + 10):
             numeric = numeric * mpmath.expjpi(2 * mpmath.mpf(phase.numerator) / phase.denominator)
         if exact is not None:
@@ -210,7 +212,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         extra = f
     details["framing_value"] = "zero" if mode == "zero" and not extra else (extra if extra else "fiber")
     if in_s3 and normalized:
-        poly = rosso_jones(k, g, cols, extra if mode == "zero" else "fiber")
+        poly = rosso_jones(k, g, cols, (f_eff if extra else 0) if mode == "zero" else "fiber")
         check = poly.at_root_of_unity(level + g.N, dps=digits + 5)
         with working_precision(digits + 5):
             diff = abs(check - numeric)
@@ -259,6 +261,19 @@ def _framing_int(framing) -> int:
     return int(framing) if _is_integer_framing(framing) else 0
 
 
+def _reduced_framing(f: int, g, cols, K: int) -> int:
+    """``f`` modulo ``K`` times the denominator of ``c = sum_i C(lam_i)``: the value at level
+    ``K - N`` depends on the framing only through ``exp(2 pi i f c/K)`` (CONVENTIONS §2), so a
+    framing of ``10^30`` need not be carried as such (it overflowed, or lost the phase).
+
+    >>> from knotobs.representations.groups import parse_group
+    >>> _reduced_framing(10**30 + 7, parse_group("SU(3)"), ((2, 1),), 8)   # C([2,1]) = 3
+    7
+    """
+    c = sum((casimir(g, lam) for lam in cols), Fraction(0))
+    return f % (K * c.denominator) if c else 0
+
+
 def polynomial_at_root_of_unity(poly: Laurent, K: int) -> Cyclotomic:
     """An exact Laurent polynomial in ``q`` at ``q = exp(2 pi i/K)`` as a cyclotomic number.
 
@@ -283,7 +298,7 @@ def _polynomial_only(k, g, cols, level, framing, mode, digits, F) -> FiniteLevel
     for lam in cols:
         check_integrable(lam, g.N, level)
     fr = _framing_int(framing) if mode == "zero" else "fiber"
-    poly = rosso_jones(k, g, cols, fr)
+    poly = rosso_jones(k, g, cols, _reduced_framing(fr, g, cols, K) if fr != "fiber" else fr)
     exact = polynomial_at_root_of_unity(poly, K)
     numeric = exact.to_mpc(digits)
     framing_text = ("zero (Seifert) framing" if fr == 0 else
