@@ -78,7 +78,9 @@ def _decomposition_arrays(group: Group, decomposition: dict, m: int) -> tuple[np
     for nu, mult in decomposition.items():
         mus, c = adams_array(tuple(nu), m, group.N)
         rows.append(mus)
-        cs.append(c * mult)
+        # multiplicities of large tensor powers exceed 64 bits (T(100,200): 100 components)
+        cmax = int(np.abs(c).max(initial=1))
+        cs.append(c * mult if abs(mult) * cmax < 1 << 40 else c.astype(object) * mult)
     mus, c = np.vstack(rows), np.concatenate(cs)
     if len(rows) > 1:
         mus, c = merge_rows(mus, c)

@@ -329,3 +329,12 @@ def test_many_quantum_dimensions_are_refused_before_they_are_computed(monkeypatc
     monkeypatch.setattr(rj, "qdim_dense", no_work)
     with pytest.raises(SizeLimitError, match="quantum dimensions of 162585 irreducible pieces"):
         rj.rosso_jones(TorusLink(12, 11), SU(9), (4, 4, 4, 4))
+
+
+@pytest.mark.parametrize("n, N", [(70, 2), (100, 2), (44, 3)])
+def test_many_component_torus_links_keep_exact_multiplicities(n, N):
+    # the tensor-power multiplicities of n fundamental components exceed 64 bits from about
+    # n = 64 (SU(2)); T(70,140) once failed with an integer overflow.  At q = 1 the unnormalised
+    # Wilson loop is the classical dimension N^n (common practice: the quantum dimension at q = 1)
+    v = wilson_loop(TorusLink(n, 2 * n), SU(N), (1,)).value
+    assert v.at_one() == N ** n
