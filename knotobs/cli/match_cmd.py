@@ -61,7 +61,7 @@ def match(
             raise ParseError("nothing to do: give a knot and --poly/--file/--knotinfo to compare, or --poly/--file alone to identify")
         from knotobs.tables.identify import identify
 
-        res = identify(target, invariant, group or "SU(2)", 5 if max_p is None else max_p, 12 if max_q is None else max_q,
+        res = identify(target, invariant, group, 5 if max_p is None else max_p, 12 if max_q is None else max_q,
                        2 if max_boxes is None else max_boxes, True if links is None else links)
     elif knotinfo:
         if target is not None:
@@ -74,7 +74,7 @@ def match(
             raise ParseError(f"give a polynomial to compare {knot} with (--poly TEXT or --file PATH) or --knotinfo")
         from knotobs.tables.compare import compare
 
-        res = compare(knot, target, group or "SU(2)", rep_or_color(rep, color), invariant)
+        res = compare(knot, target, group, rep_or_color(rep, color), invariant)
     emit(res.to_json, res.describe, as_json)
     if knot is not None and not res.equal:
         raise typer.Exit(code=1)

@@ -493,6 +493,17 @@ def _target_mpoly(target, variables) -> MPoly:
     raise ParseError(f"cannot compare with a {type(target).__name__}: give a polynomial as text, MPoly or Laurent")
 
 
+#: Invariants that are not those of one chosen group (generic N, or the SO(N) Kauffman form).
+GROUP_FREE = ("homfly", "alexander", "conway", "kauffman")
+
+
+def group_free_message(name: str, group) -> str:
+    """The refusal of a group given for an invariant of no single group."""
+    return (f"group {group!r} (--group) does not apply to the {name} polynomial, which is not the"
+            " invariant of one group (generic N, or the SO(N) Kauffman form); the group applies to"
+            " one-variable (quantum) polynomials: drop it, or compare the quantum invariant")
+
+
 def _choose_family(tp: MPoly, invariant: str, knot: TorusLink, group, cols) -> _Family:
     used = set(tp.used_variables())
     inv = invariant.lower().replace("_", "-")
@@ -540,7 +551,7 @@ def _choose_family(tp: MPoly, invariant: str, knot: TorusLink, group, cols) -> _
     return fam
 
 
-def compare(knot, target, group="SU(2)", rep=(1,), invariant: str = "auto",
+def compare(knot, target, group=None, rep=(1,), invariant: str = "auto",
             variables: Iterable[str] | None = None, source: str = "", _closest: bool = True) -> Comparison:
     """Compare the invariant of a torus knot or link with a polynomial in unknown conventions.
 
@@ -550,8 +561,9 @@ def compare(knot, target, group="SU(2)", rep=(1,), invariant: str = "auto",
         ``T(p,q)``; a negative ``q`` is the mirror image.
     target : str, MPoly, Laurent, Laurent2 or PolynomialResult
         The polynomial to compare with, e.g. ``"t + t^3 - t^4"`` or ``"v/z - v^3/z + v*z"``.
-    group : str
-        ``SU(N)`` or ``U(N)`` for one-variable targets (HOMFLY-PT targets are generic N).
+    group : str, optional
+        ``SU(N)`` or ``U(N)`` for one-variable targets (default ``SU(2)``); refused for the
+        invariants of no single group (HOMFLY-PT, Alexander, Conway, Kauffman).
     rep : partition or list of partitions
         Colour of every component (or one per component).
     invariant : str
@@ -587,13 +599,15 @@ def compare(knot, target, group="SU(2)", rep=(1,), invariant: str = "auto",
     (1993) 97; C. Livingston, A. H. Moore, KnotInfo (storage conventions); CONVENTIONS §3, §8.
     """
     k = parse_knot(knot)
-    g = parse_group(group)
+    g = parse_group("SU(2)" if group is None else group)
     inv = invariant.lower().replace("_", "-") if isinstance(invariant, str) else invariant
     cols = colours_for(k, rep)
     if inv not in ("homfly", "alexander", "conway", "kauffman"):
         cols = tuple(g.check(c) for c in cols)
     tp = _target_mpoly(target, variables)
     fam = _choose_family(tp, inv, k, g, cols)
+    if group is not None and fam.name in GROUP_FREE:
+        raise KnotobsError(group_free_message(fam.name, group))
     _require_search(k, tp, fam, _closest)
     maps, closest = _search(tp, fam, _closest)
     base = dict(knot=str(k), invariant=fam.name, group=fam.group, representation=fam.rep,
@@ -649,4 +663,4 @@ def compare_knotinfo(knot, invariant: str = "jones") -> Comparison:
     fam_inv = {"jones": "jones", "homfly": "homfly", "alexander": "alexander", "conway": "conway",
                "kauffman": "kauffman"}[inv]
     src = f"database-knotinfo {dataset_version()}, entry {e.name} (stored as {e.torus})"
-    return compare(k, tp, "SU(2)", (1,), fam_inv, source=src)
+    return compare(k, tp, "SU(2)" if fam_inv not in GROUP_FREE else None, (1,), fam_inv, source=src)

@@ -21,7 +21,7 @@ from knotobs.errors import KnotobsError, SizeLimitError
 from knotobs.fibrations.torus import TorusLink
 from knotobs.representations.groups import parse_group
 from knotobs.representations.partitions import partitions_of
-from knotobs.tables.compare import _colours_text
+from knotobs.tables.compare import group_free_message, _colours_text
 from knotobs.tables.compare import INVARIANTS, Comparison, ConventionMap, compare, _target_mpoly
 from knotobs.tables.sparse import MPoly
 from knotobs._notebook import NotebookMixin
@@ -98,7 +98,7 @@ def _torus_range(max_p: int, max_q: int, links: bool) -> list[TorusLink]:
     return out
 
 
-def identify(target, invariant: str = "auto", group="SU(2)", max_p: int = 5, max_q: int = 12,
+def identify(target, invariant: str = "auto", group=None, max_p: int = 5, max_q: int = 12,
              max_colour: int = 2, links: bool = True, variables: Iterable[str] | None = None) -> Identification:
     """Find the torus knots and links, colours and convention maps that reproduce ``target``.
 
@@ -109,8 +109,9 @@ def identify(target, invariant: str = "auto", group="SU(2)", max_p: int = 5, max
         HOMFLY-PT polynomial in ``(a, z)``/``(v, z)`` or a coloured one in ``(a, q)``.
     invariant : str
         As for :func:`~knotobs.tables.compare.compare`.
-    group : str
-        Group of one-variable targets (``SU(2)`` for Jones).
+    group : str, optional
+        Group of one-variable targets (default ``SU(2)``, as for Jones); refused for the
+        invariants of no single group (HOMFLY-PT, Alexander, Conway, Kauffman).
     max_p, max_q : int
         Search ``T(P, Q)`` with ``2 <= P <= max_p`` and ``P <= Q <= max_q``.
     max_colour : int
@@ -141,12 +142,15 @@ def identify(target, invariant: str = "auto", group="SU(2)", max_p: int = 5, max
     if max_p < 2 or max_q < 2:
         raise KnotobsError(f"bounds max_p={max_p}, max_q={max_q} leave nothing to search: both must be >= 2")
     tp = _target_mpoly(target, variables)
-    g = parse_group(group)
+    g = parse_group("SU(2)" if group is None else group)
     used = set(tp.used_variables())
     inv = invariant.lower()
     if inv not in INVARIANTS:
         raise KnotobsError(f"unknown invariant {invariant!r}: choose one of {', '.join(INVARIANTS)}")
     homfly_like = inv in ("homfly", "alexander", "conway") or (inv == "auto" and bool(used & {"a", "v"} or (used and used <= {"z"})))
+    group_free = homfly_like or inv == "kauffman"
+    if group is not None and group_free:
+        raise KnotobsError(group_free_message(inv if inv != "auto" else "HOMFLY-PT" if used & {"a", "v"} else "Conway", group))
     if homfly_like:
         reps = [lam for n in range(1, max_colour + 1) for lam in partitions_of(n)]
         if inv in ("alexander", "conway"):
@@ -169,7 +173,7 @@ def identify(target, invariant: str = "auto", group="SU(2)", max_p: int = 5, max
         for lam in reps:
             tried += 1
             try:
-                c: Comparison = compare(k, tp, g, lam, inv, _closest=False)
+                c: Comparison = compare(k, tp, None if group_free else g, lam, inv, _closest=False)
             except SizeLimitError:
                 skipped.append((str(k), tuple(lam)))   # said in the result, never a silent "not found"
                 continue

@@ -89,3 +89,20 @@ def test_candidates_over_the_limits_are_reported_not_dropped():
     assert r.candidates == () and ("T(2,3)", (1,)) in r.skipped
     assert "not compared (over the size limits" in r.describe()
     assert r.to_json()["skipped_over_limits"]
+
+
+def test_a_group_given_for_an_invariant_of_no_group_is_refused():
+    # every option takes effect or is refused: the HOMFLY-PT and Kauffman polynomials are not the
+    # invariants of one chosen group (HOMFLY-PT of T(2,3): 2a^-2 + a^-2 z^2 - a^-4, Lickorish,
+    # An Introduction to Knot Theory, 1997, in the convention of CONVENTIONS §3)
+    from knotobs.tables.compare import compare
+
+    hom = "2*a^-2 + a^-2*z^2 - a^-4"
+    assert compare("T(2,3)", hom).equal
+    with pytest.raises(KnotobsError, match="does not apply"):
+        compare("T(2,3)", hom, group="SU(3)")
+    with pytest.raises(KnotobsError, match="does not apply"):
+        compare("T(2,3)", "a^2", group="SU(3)", invariant="kauffman")
+    with pytest.raises(KnotobsError, match="does not apply"):
+        identify(hom, group="SU(3)", max_p=3, max_q=4)
+    assert any(c.knot == "T(2,3)" for c in identify(hom, max_p=3, max_q=4).candidates)
