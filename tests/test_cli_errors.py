@@ -250,3 +250,16 @@ def test_huge_framing_at_a_level_is_reduced_exactly():
 
     assert value(10**18 + 7) == value(15) == value(10**30 - 10**30 % 28 + 15)
     assert value(15) != value(7)
+
+
+def test_grid_refuses_options_it_would_not_apply(tmp_path):
+    # every option takes effect or is refused: a group for the colored Jones polynomial (the SU(2)
+    # invariant) or HOMFLY-PT (generic N), and --digits without a level, were silently dropped
+    store = str(tmp_path / "g.sqlite")
+    base = ["grid", "run", "--knots", "T(2,3)", "-s", store, "-w", "0"]
+    for extra, opt in ((["--quantity", "colored-jones", "-g", "SU(3)"], "--group"),
+                       (["--quantity", "homfly", "-g", "SU(3)"], "--group"),
+                       (["-d", "50"], "--digits")):
+        r = runner.invoke(app, base + extra)
+        assert r.exit_code == 2 and r.output.startswith(f"error: {opt}"), r.output
+    assert runner.invoke(app, base + ["-k", "generic,2", "-d", "40"]).exit_code == 0

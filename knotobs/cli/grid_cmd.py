@@ -80,14 +80,14 @@ def run(
     knots: Optional[str] = typer.Option(None, "--knots", help="List of knots, e.g. 'T(2,3),T(2,5)'."),
     max_pq: Optional[int] = typer.Option(None, "--max-pq", help="Add all torus knots T(P,Q) with P*Q <= this."),
     links: bool = typer.Option(False, "--links", help="With --max-pq: include torus links."),
-    group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N) or U(N)."),
+    group: Optional[str] = typer.Option(None, "--group", "-g", help="wilson-loop: SU(N) or U(N) (default SU(2))."),
     rep: Optional[str] = typer.Option(None, "--rep", "-r", help="Partitions separated by ';', e.g. '[1];[2];[2,1]' (default [1])."),
     color: Optional[str] = typer.Option(None, "--color", "-c", help="SU(2) dimensions instead of --rep, e.g. 2,3,4 (n means [n-1])."),
     level: str = typer.Option("generic", "--level", "-k", help="'generic' and/or levels k, e.g. generic,1,2,3."),
     quantity: str = typer.Option("wilson-loop", "--quantity", help="wilson-loop, colored-jones or homfly."),
     normalized: Optional[bool] = typer.Option(None, "--normalized/--unnormalized", help="Divide by the unknot (default: as the quantity is defined: wilson-loop unnormalized, colored-jones and homfly normalized)."),
     framing: int = typer.Option(0, "--framing", "-f", help="wilson-loop: framing of every component."),
-    digits: int = typer.Option(30, "--digits", "-d", help="Digits of level values."),
+    digits: Optional[int] = typer.Option(None, "--digits", "-d", help="Digits of level values (default 30; needs a level k in --level)."),
     store: str = typer.Option(DEFAULT_STORE, "--store", "-s", help="SQLite results store."),
     workers: int = typer.Option(2, "--workers", "-w", help="Local worker processes (0: in this process)."),
     scheduler: Optional[str] = typer.Option(None, "--scheduler", help="Dask scheduler address, e.g. tcp://127.0.0.1:8786."),
@@ -122,7 +122,15 @@ def run(
     else:
         cols = _inputs.reps(rep if rep is not None else "[1]", "--rep", one_allowed=False)
     norm = (q != "wilson-loop") if normalized is None else normalized
-    spec = GridSpec(_knots(knots, max_pq, links), group, cols, _levels(level), quantity, norm, framing, digits)
+    levels = _levels(level)
+    if group is not None and q == "colored-jones" and group.replace(" ", "").upper() != "SU(2)":
+        refuse("--group", f"{group!r}: the colored Jones polynomial is the SU(2) invariant; use --quantity wilson-loop for other groups")
+    if group is not None and q == "homfly":
+        refuse("--group", "the HOMFLY-PT polynomial is the generic-N invariant; use --quantity wilson-loop for a fixed group")
+    if digits is not None and all(k is None for k in levels):
+        refuse("--digits", "sets the digits of values at a level k: give levels, e.g. --level generic,1,2,3")
+    spec = GridSpec(_knots(knots, max_pq, links), group or "SU(2)", cols, levels, quantity, norm, framing,
+                    30 if digits is None else digits)
     existed = os.path.exists(store)
     try:
         rep_ = run_grid(spec, store, workers, _show(progress), scheduler)

@@ -93,7 +93,7 @@ def test_candidates_over_the_limits_are_reported_not_dropped():
 
 def test_a_group_given_for_an_invariant_of_no_group_is_refused():
     # every option takes effect or is refused: the HOMFLY-PT and Kauffman polynomials are not the
-    # invariants of one chosen group (HOMFLY-PT of T(2,3): 2a^-2 + a^-2 z^2 - a^-4, Lickorish,
+    # invariants of one chosen group (HOMFLY-PT of T(2,3): 2a^-2 + a^-2 z^2 - a^-4, from memory of Lickorish,
     # An Introduction to Knot Theory, 1997, in the convention of CONVENTIONS §3)
     from knotobs.tables.compare import compare
 
