@@ -125,3 +125,22 @@ def test_values_of_huge_magnitude_print_at_once(monkeypatch):
     assert int(exp) == int(ctx.floor(ctx.log10(x))) and len(mant.replace(".", "")) <= 20, s
     assert abs(ctx.mpf(s) / x - 1) < ctx.mpf(10) ** -19
     assert asked and max(asked) < 200, asked
+
+
+def test_level_plane_beyond_float_range_is_valid_json():
+    # far from the real axis |Z| ~ 10^(10^5) leaves the float range: the grid once held
+    # Infinity, which is no valid JSON.  Now Z is null there and log10 |Z|, arg Z carry the values
+    # (internal check against the same value printed by 'continue')
+    import mpmath
+
+    r = runner.invoke(app, ["plot", "level-plane", "Sigma(2,3,5)", "--n", "2", "--im", "100000,1000000", "--json"])
+    assert r.exit_code == 0, r.output
+    data = json.loads(r.output)
+    json.dumps(data, allow_nan=False)                      # raises on Infinity or NaN
+    assert data["Z"][0][0] is None
+    c = runner.invoke(app, ["continue", "Sigma(2,3,5)", "--level", f"{data['re'][0] - 2}+{data['im'][0]}i", "--json"])
+    z = json.loads(c.output)["numeric"]
+    ctx = mpmath.MPContext()
+    ctx.dps = 30
+    expected = ctx.log10(abs(ctx.mpc(ctx.mpf(z["re"]), ctx.mpf(z["im"]))))
+    assert abs(data["log10_abs_Z"][0][0] - float(expected)) < 1e-6

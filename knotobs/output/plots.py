@@ -207,20 +207,32 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
     xs = np.linspace(*re_range, n)
     ys = np.linspace(*im_range, n)
     Z = np.zeros((n, n), dtype=complex)
+    # log10 |Z| and arg Z from the certified values themselves: far from the real axis |Z| leaves
+    # the range of floats (10^308), where Z itself is given as null (never Infinity)
+    logabs = np.zeros((n, n))
+    arg = np.zeros((n, n))
     for i, y in enumerate(ys):
         for j, x in enumerate(xs):
-            Z[i, j] = complex(continued_partition_function(space, K=mpmath.mpc(float(x), float(y)), digits=digits).numeric)
+            z = continued_partition_function(space, K=mpmath.mpc(float(x), float(y)), digits=digits).numeric
+            Z[i, j] = complex(z) if abs(z) < 1e300 else complex("nan")
+            logabs[i, j] = float(mpmath.log10(abs(z))) if z != 0 else -digits
+            arg[i, j] = float(mpmath.arg(z))
             step(i * n + j + 1)
     ints = [k for k in range(int(np.ceil(re_range[0])), int(np.floor(re_range[1])) + 1) if k >= 2]
+    finite = bool(np.isfinite(Z).all())
     data = {"space": str(space), "profile": _SPACE_PROFILE, "re": xs.tolist(), "im": ys.tolist(),
-            "Z": [[[z.real, z.imag] for z in row] for row in Z], "integer_K": ints}
+            "Z": [[[z.real, z.imag] if np.isfinite(z) else None for z in row] for row in Z],
+            "log10_abs_Z": logabs.tolist(), "arg_Z": arg.tolist(), "integer_K": ints}
     if p is None:
         return Figure(None, "level-plane", data)
     plt = _plt()
-    Zs = smooth_grid(Z, smooth)
-    with np.errstate(divide="ignore"):
-        mod = np.log10(np.maximum(np.abs(Zs), 10.0 ** -digits))
-    ph = np.angle(Zs)
+    if finite:
+        Zs = smooth_grid(Z, smooth)
+        with np.errstate(divide="ignore"):
+            mod = np.log10(np.maximum(np.abs(Zs), 10.0 ** -digits))
+        ph = np.angle(Zs)
+    else:                       # beyond floats: the grid values, not smoothed
+        mod, ph = np.maximum(logabs, -digits), arg
     fig, axes = plt.subplots(1, 2, figsize=(11, 4.6), constrained_layout=True)
     ext = (re_range[0], re_range[1], im_range[0], im_range[1])
     im0 = axes[0].imshow(mod, origin="lower", extent=ext, aspect="auto", cmap="viridis")
