@@ -185,8 +185,9 @@ def poly(
                            ("--form", form is not None), ("--unnormalized", normalized is False),
                            ("--rep", rep is not None and fam == "dubrovnik")):
             if given:
-                refuse(opt, f"does not apply to --family {fam} (normalized, unknot = 1, in its own variables; "
-                            "SO(N) values: knotobs loop --group 'SO(N)')")
+                where = ("SO(N) values: knotobs loop --group 'SO(N)'" if fam != "superpolynomial" else
+                         "its t = -1 specialisation is HOMFLY-PT: --family homfly")
+                refuse(opt, f"does not apply to --family {fam} (normalized, unknot = 1, in its own variables; {where})")
         if fam == "superpolynomial":
             from knotobs.refined import superpolynomial
             from knotobs.refined.superpolynomial import ROUTES
