@@ -719,7 +719,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
             if f is None or not ok:
                 raise InexactDivisionError(
                     "a fiber is not null-homologous in this manifold, so it has no zero framing;"
-                    " use framing='fiber'"
+                    " use framing='fiber' (--framing fiber)"
                 )
             shift -= f * md.h(md.weights[lam])
     if normalized:

@@ -197,7 +197,7 @@ def surgery_on_fiber(
         if any(ccls[idx]):
             raise InvalidSeifertDataError(
                 f"the {label} of {M} is not null-homologous (class {ccls[idx]} in H_1 ="
-                f" {amb.homology_factors()}); use framing='fiber'"
+                f" {amb.homology_factors()}); use framing='fiber' (--framing fiber)"
             )
         target = Fraction(0)
     new = _new_fiber(amb, idx, s.numerator, s.denominator, target)

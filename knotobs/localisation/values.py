@@ -246,7 +246,7 @@ def localisation_fiber_wilson_loop(space, level: int, group="SU(2)", regular: Se
             if f is None or not ok:
                 raise InexactDivisionError(
                     "a fiber is not null-homologous in this manifold (or H_1 is infinite), so it has"
-                    " no zero framing; use framing='fiber'"
+                    " no zero framing; use framing='fiber' (--framing fiber)"
                 )
             shift -= f * _casimir(lam, N) / K
     s_L = _sum(M, N, k, exceptional, regular)

@@ -251,7 +251,7 @@ class GridSpec:
                 raise SizeLimitError(f"level {lv} is above the largest level {MAX_GRID_LEVEL} knotobs evaluates"
                                      " (finite-level values need roots of unity of order about 2 * 10^6 at most)")
             if lv is not None and (q == "homfly" or (g is not None and g.kind != "SU")):
-                raise KnotobsError(f"level {lv} needs SU(N) (q = exp(2 pi i/(k+N))); use generic q (None) for {q} / {self.group}")
+                raise KnotobsError(f"level {lv} needs SU(N) (q = exp(2 pi i/(k+N))); use generic q (level None; --level generic) for {q} / {self.group}")
             if lv not in levels:
                 levels.append(lv)
         if not levels:
