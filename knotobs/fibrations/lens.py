@@ -148,7 +148,8 @@ def lens_fibration(p: int, q: int, r: int, s: int) -> SeifertManifold:
             f" (r q + s p = 0); it is not a fibre of any Seifert fibration with vertical Heegaard torus"
         )
     if max(abs(r), abs(s), abs(r * q + s * p)) > 10**9:
-        raise SizeLimitError(f"curve ({r},{s}) in L({p},{q}) is too large")
+        raise SizeLimitError(f"curve ({r},{s}) in L({p},{q}) is too large: |r|, |s| and the order"
+                             f" |r q + s p| = {abs(r * q + s * p)} of the new exceptional fiber must be at most 10^9")
     if s == 0:  # Dehn twist of V_1: q -> q + k p, s -> s - k r
         k = 1
         q, s = q + k * p, s - k * r
