@@ -9,7 +9,10 @@ names what the user asked for (the knot, the group, the colour) and the estimate
 
 The estimates are operation counts times the throughputs of :data:`knotobs.guard.OPS_PER_SECOND`
 and 8 bytes per int64 array entry (about 40 bytes per entry once coefficients outgrow 64 bits).
-They aim at the order of magnitude.
+They aim at the order of magnitude.  A polynomial that is computed is also printed (text or
+JSON), which for millions of terms costs far more than computing it: the fixed-N estimate
+counts that too (:data:`FORMAT_SECONDS_PER_TERM`), and :func:`guard_format` checks the exact
+number of terms once more before the text is built.
 
 References
 ----------
@@ -24,7 +27,73 @@ from typing import Sequence
 from knotobs.guard import require, seconds_for
 from knotobs.labels import labelled, user_label
 
-__all__ = ["weight_count", "guard_fixed", "guard_dense", "user_label", "labelled"]
+__all__ = ["weight_count", "guard_fixed", "guard_dense", "guard_format", "format_seconds",
+           "printed_terms", "FORMAT_SECONDS_PER_TERM", "FORMAT_BYTES_PER_TERM",
+           "user_label", "labelled"]
+
+#: Seconds to print one term of an exact one-variable polynomial (the text form, plus the
+#: JSON form built from it), measured on a 2-core machine at about 10^7 terms, where the cost
+#: per term is highest: ``knotobs loop 'T(3,4)' -c 2800 --json`` (1.2e7 terms) 33.5 s,
+#: ``knotobs loop 'T(2,3)' -g 'SU(3)' -r [2500]`` (9.4e6 terms) 29.4 s, computing included.
+FORMAT_SECONDS_PER_TERM = 3.0e-6
+#: Peak bytes per printed term (the list of monomials, the text and its JSON copy): the two runs
+#: above peaked at 3.2 GB and 2.65 GB.
+FORMAT_BYTES_PER_TERM = 280
+
+
+def format_seconds(terms: float) -> float:
+    """Estimated seconds to print ``terms`` terms of an exact polynomial (text or JSON).
+
+    >>> format_seconds(10**7)
+    30.0
+    """
+    return FORMAT_SECONDS_PER_TERM * float(terms)
+
+
+def printed_terms(value, exact_below: int = 200_000, samples: int = 20_000) -> int:
+    """Number of nonzero terms of the one-variable polynomial ``value``, counted cheaply.
+
+    Counting the terms of a polynomial of 5e7 coefficients one by one takes longer (14 s)
+    than computing it; beyond ``exact_below`` coefficients the count is the fraction of
+    nonzero coefficients among ``samples`` positions drawn at random (a fixed seed, so the
+    answer is reproducible) times the length, rounded up with a margin of 2 %.
+
+    >>> from knotobs.polynomials.laurent import Laurent
+    >>> printed_terms(Laurent.from_terms({-2: 1, 1: 3, 5: 1}))
+    3
+    """
+    raw = getattr(value, "_p", None)
+    if raw is None or not hasattr(raw, "degree") or raw.degree() + 1 <= exact_below:
+        return value.num_terms()
+    if raw.degree() > 64:
+        raw, _ = raw.deflation()          # skip the zeros between the exponents that occur
+    length = raw.degree() + 1
+    if length <= exact_below:
+        return sum(1 for a in raw.coeffs() if a)
+    import random
+
+    rng = random.Random(20240601)
+    hits = sum(1 for _ in range(samples) if raw[rng.randrange(length)] != 0)
+    return min(length, int(length * min(1.0, 1.02 * hits / samples + 1e-3)) + 1)
+
+
+def guard_format(what: str, terms: int) -> None:
+    """Refuse to print (as text or JSON) a polynomial of ``terms`` terms beyond the limits.
+
+    Called with the exact number of terms, after the polynomial is computed and before its
+    text is built (:meth:`~knotobs.evaluation.result.PolynomialResult.exact_string`).
+
+    >>> guard_format("J_20 of T(3,4)", 600)
+    >>> from knotobs.guard import limits
+    >>> with limits(seconds=10):
+    ...     guard_format("J_3000 of T(3,4)", 13_500_000)
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.SizeLimitError: printing J_3000 of T(3,4): 1.35e+07 terms: estimated 40.5 s, above the limit of 10 s; choose a smaller colour or knot, or compute it through the library without printing it (or raise the limit: --max-seconds, KNOTOBS_MAX_SECONDS)
+    """
+    require(f"printing {what}: {terms:.3g} terms", seconds=format_seconds(terms),
+            memory_mb=FORMAT_BYTES_PER_TERM * float(terms) / 2**20,
+            accepted="choose a smaller colour or knot, or compute it through the library without printing it")
 
 def weight_count(lam: Sequence[int], N: int) -> int:
     """Upper bound on the number of weights of the U(N) irrep ``lam`` (compositions of ``|lam|``).
@@ -58,10 +127,21 @@ def guard_fixed(knot, group, cols, route: str = "Rosso-Jones") -> None:
 
     Knots: the weights of the colour.  Links: the weights of the tensor product (the
     weight-sum route) or its irreducible pieces, each with its weights (the Rosso–Jones route).
+    The estimate includes printing the result, :data:`FORMAT_SECONDS_PER_TERM` for each of at
+    most ``min(span, pieces x terms of one quantum dimension)`` terms: the Adams image has at
+    most as many irreducible pieces ``mu`` as the colour has weights, and ``dim_q(mu)`` at most
+    ``(N - 1) |mu| + N^3`` terms, ``|mu| = min(P, Q) |lam|`` (measured: 1.5e6 printed terms for
+    J_1000 of T(3,4), bound 3e6; 1.36e5 for SU(3) [300] on T(2,3), bound 2.7e5).
 
     >>> from knotobs.fibrations.torus import TorusLink
     >>> from knotobs.representations.groups import SU
     >>> guard_fixed(TorusLink(3, 4), SU(2), ((799,),))
+    >>> from knotobs.guard import limits
+    >>> with limits(seconds=60):
+    ...     guard_fixed(TorusLink(3, 4), SU(2), ((2999,),))
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.SizeLimitError: T(3,4) for SU(2) coloured by [2999] by the Rosso-Jones route: about 3e+03 weights and 5.4e+07 output coefficients (printing included): estimated 82.7 s, above the limit of 60 s; choose a smaller colour or knot (or raise the limit: --max-seconds, KNOTOBS_MAX_SECONDS)
     """
     N = group.N
     if len(cols) == 1:
@@ -86,9 +166,11 @@ def guard_fixed(knot, group, cols, route: str = "Rosso-Jones") -> None:
     boxes = sum(sum(c) for c in cols)
     length = knot.P * knot.Q * boxes * boxes // 2 + N ** 3
     sec = seconds_for(py, "python") + seconds_for(npy + 6 * length, "numpy")
+    printed = min(length, k * ((N - 1) * min(knot.P, knot.Q) * boxes + N ** 3))
+    sec += format_seconds(printed)
     mem = (k * N * 8 * 8 + 3 * 8 * length) / 2**20
     require(f"{user_label(_describe(knot, group, cols))} by the {route} route: about {k:.3g} weights"
-            f" and {length:.3g} output coefficients",
+            f" and {length:.3g} output coefficients (printing included)",
             seconds=sec, memory_mb=mem, accepted="choose a smaller colour or knot")
 
 
@@ -140,7 +222,8 @@ def homfly_estimate(m: int, n: int, cols, with_z: bool = True) -> dict:
     (413 bits for ``T(25,26)``).  Only partitions with empty m-core carry a plethysm
     coefficient, so the number of terms is at most the number of m-multipartitions of ``|lam|``.
 
-    The steps: the plethysm (character values, pure Python), one product per power of ``a``
+    The steps: the plethysm (character values, pure Python, once for every irreducible piece
+    of the tensor product of the colours of a link), one product per power of ``a``
     and group of terms, the divisions, and (``with_z``) the change to ``z``, whose cost is
     the empirical ``4.3e-13 rows span k^4`` seconds (fitted on a 2-core machine, whole
     evaluation in ``(a, z)``: ``T(30,31)`` 0.22 s, ``T(40,41)`` 0.88 s, ``T(60,61)`` 7.1 s).
@@ -148,6 +231,9 @@ def homfly_estimate(m: int, n: int, cols, with_z: bool = True) -> dict:
     >>> e = homfly_estimate(25, 26, ((1,),))
     >>> e["terms"], e["rows"]
     (25, 26)
+    >>> e = homfly_estimate(2, 3, ((1,),) * 15)                   # T(30,45), 15 components
+    >>> e["pieces"], round(e["seconds"])
+    (176, 2463)
     """
     lam_size = sum(sum(c) for c in cols)
     k = m * lam_size
@@ -157,7 +243,14 @@ def homfly_estimate(m: int, n: int, cols, with_z: bool = True) -> dict:
     span = int(2 * k * k * (n / m + 1)) + 1
     bits = 17 * k + 64
     words = max(1, bits // 64)
-    py = 0 if hooks_only else terms * partition_count(lam_size) * 40
+    # the plethysm: one Murnaghan-Nakayama character per candidate mu and class rho, for every
+    # irreducible piece nu of the tensor product of the colours (a link: at most p(|lam|) pieces,
+    # each with its own Adams operation).  The first piece fills the character cache (about
+    # 20 us a pair); further pieces reuse it while it holds the pairs (about 3 us a pair,
+    # measured: T(20,30) 2.8 s, T(22,33) 7.2 s, T(24,36) 17.7 s as 10-12 components coloured [1]).
+    pairs = terms * partition_count(lam_size)
+    pieces = 1 if len(cols) == 1 else partition_count(lam_size)
+    py = 0 if hooks_only else pairs * (40 + (pieces - 1) * (10 if pairs <= 100_000 else 40))
     c_ops = (terms * k * k * k                          # quantum-dimension rows
              + terms * rows * k * k * 20                # one product per row and group of terms
              + rows * span * words * 20)                # sums and divisions
@@ -166,7 +259,8 @@ def homfly_estimate(m: int, n: int, cols, with_z: bool = True) -> dict:
     if with_z:
         sec += 4.3e-13 * rows * span * k ** 4 + seconds_for(rows * span * words, "python")
     mem = 6 * rows * span * (8 * words + 32) / 2**20
-    return {"terms": terms, "rows": rows, "span": span, "bits": bits, "seconds": sec, "memory_mb": mem}
+    return {"terms": terms, "pieces": pieces, "rows": rows, "span": span, "bits": bits, "seconds": sec,
+            "memory_mb": mem}
 
 
 def guard_homfly(knot, cols, with_z: bool = False) -> None:
@@ -186,7 +280,8 @@ def guard_homfly(knot, cols, with_z: bool = False) -> None:
     what = user_label(f"the HOMFLY-PT polynomial of {knot} coloured by {col_s}")
     form = " in (a, z)" if with_z else ""
     require(f"{what}{form}: about {e['rows'] * e['span']:.2g} coefficients of up to ~{e['bits']} bits"
-            f" from {e['terms']} plethysm terms",
+            f" from {e['terms']} plethysm terms"
+            + (f" for each of up to {e['pieces']} irreducible pieces" if e["pieces"] > 1 else ""),
             seconds=e["seconds"], memory_mb=e["memory_mb"],
             accepted="choose a smaller knot or colour, the (a, q) form (--form aq), or a fixed N"
                      " (--group 'SU(N)', or the loop command with U(N))")

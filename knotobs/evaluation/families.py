@@ -240,7 +240,8 @@ def colored_jones(knot, n: int, t_is: str = "q^-1", mirror: bool = False, normal
                             {"knot": str(k0), "color": n, "t": t_is, "mirror": mirror, "normalized": normalized})
 
 
-def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
+def _refuse_non_laurent(knot: TorusLink, cols, normalized: bool) -> None:
+    """Refuse the requests whose HOMFLY-PT is not a Laurent polynomial (before any estimate or sum)."""
     c = knot.components
     # every component fundamental, or every component trivial (the value 1), stays a Laurent
     # polynomial; refusals come first, before the Rosso-Jones sum is computed
@@ -256,6 +257,11 @@ def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
             f" {[list(cc) for cc in cols]} is a rational function of (a, q), not a Laurent polynomial;"
             " coloured links are available for a fixed N: use wilson_loop / 'knotobs loop --group U(N)'"
         )
+
+
+def _homfly_value(knot: TorusLink, cols, normalized: bool) -> Laurent2:
+    c = knot.components
+    _refuse_non_laurent(knot, cols, normalized)
     num, D = rosso_jones_homfly(knot, cols, 0)
     # remove the U(N) linking phase: a^(-2 lk_ij |lam_i||lam_j|)
     lk = knot.linking_number
@@ -308,6 +314,7 @@ def homfly(knot, rep=(1,), mirror: bool = False, normalized: bool = True, form: 
         form = "az" if all(c == (1,) for c in cols) else "aq"
     if form not in ("az", "aq"):
         raise KnotobsError(f"unknown HOMFLY-PT form {form!r}: use 'az' or 'aq'")
+    _refuse_non_laurent(k, cols, normalized)       # an invalid request is named before its size
     guard_homfly(k, cols, with_z=(form == "az"))
     with labelled(f"the HOMFLY-PT polynomial of {k0} coloured by {col[0] if len(set(cols)) == 1 else col}"):
         val = _homfly_value(k, cols, normalized)

@@ -47,7 +47,12 @@ class PolynomialResult:
 
     # ------------------------------------------------------------ text forms
     def exact_string(self) -> str:
-        """Plain algebraic text, parsable by sympy after ``^ -> **`` (computed once, linear in the size)."""
+        """Plain algebraic text, parsable by sympy after ``^ -> **`` (computed once, linear in the size).
+
+        Raises :class:`~knotobs.errors.SizeLimitError` before building the text of a
+        one-variable polynomial whose printing is estimated beyond the limits
+        (:func:`~knotobs.evaluation.estimates.guard_format`).
+        """
         return self._exact_text
 
     @cached_property
@@ -56,7 +61,12 @@ class PolynomialResult:
             if self.profile.variables == ("a", "q"):
                 return self.value.to_aq_string()
             return self.value.to_az_string()
+        from knotobs.evaluation.estimates import guard_format, printed_terms
         from knotobs.output.notebook import laurent_text
+
+        # the text of 10^7 terms takes longer than computing them: checked before it is built
+        guard_format(f"the {self.quantity} of {self.knot} ({self.group}, colour "
+                     f"{','.join(str(list(c)) for c in self.colours)})", printed_terms(self.value))
 
         return laurent_text(self.value, self.profile.variables[0])
 

@@ -42,13 +42,21 @@ __all__ = ["hook_pairings", "hook_pairings_cost"]
 
 
 def hook_pairings_cost(n: int, k: int) -> float:
-    """Rough seconds for :func:`hook_pairings`: a part fixed by ``n`` (measured: n = 6 about 0.09 s,
-    n = 7 about 0.45 s, so ~5x per n) plus a part growing with the output, ``~k^(n-1)`` terms
-    (measured: T(3,1000) 3.9 s, T(4,201) 0.8 s, T(5,51) 0.34 s).  Computed from ``n`` and ``k``
-    alone (nothing is enumerated), so a huge request is refused at once.
+    """Rough seconds for :func:`hook_pairings`: a part fixed by ``n`` plus a part growing like ``k^2``.
+
+    Fitted, with a margin of about 1.5, on a 2-core machine (one process):
+    ``k = 1``: n = 7 0.71 s, n = 8 2.5 s, n = 9 31 s, n = 10 about 130 s (~4.2x per n, with a
+    jump at n = 9); the output has about ``a_n k^2`` terms, and the time beyond ``k = 1``
+    grows like ``k^2`` times ~8x per n (measured: T(3,1000) 1.6 s, T(4,601) 4.9 s,
+    T(5,201) 3.4 s, T(6,61) 2.5 s, T(8,25) 5.6 s).  Computed from ``n`` and ``k`` alone
+    (nothing is enumerated), so a huge request is refused at once.
+
+    >>> round(hook_pairings_cost(9, 1)), round(hook_pairings_cost(10, 1))
+    (47, 196)
     """
-    n = min(n, 400)
-    return 0.45 * 5.0 ** (n - 7) + 4e-5 * float(max(1, k)) ** (n - 1)
+    n = min(n, 300)
+    kk = float(min(max(1, k), 10**100))
+    return 0.15 * 4.2 ** (n - 5) + 0.04 * 8.0 ** (n - 6) * (kk * kk - 1.0)
 
 
 @lru_cache(maxsize=64)
