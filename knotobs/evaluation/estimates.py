@@ -27,7 +27,7 @@ from typing import Sequence
 from knotobs.guard import require, seconds_for
 from knotobs.labels import labelled, user_label
 
-__all__ = ["weight_count", "guard_fixed", "guard_dense", "guard_format", "format_seconds",
+__all__ = ["weight_count", "guard_fixed", "fixed_estimate", "guard_dense", "guard_format", "format_seconds",
            "printed_terms", "FORMAT_SECONDS_PER_TERM", "FORMAT_BYTES_PER_TERM",
            "user_label", "labelled"]
 
@@ -123,7 +123,24 @@ def _partitions_at_most(n: int, N: int) -> int:
 
 
 def guard_fixed(knot, group, cols, route: str = "Rosso-Jones") -> None:
-    """Refuse a fixed-N evaluation whose weight enumeration alone would exceed the limits.
+    """Refuse a fixed-N evaluation whose estimate (:func:`fixed_estimate`) exceeds the limits.
+
+    >>> from knotobs.fibrations.torus import TorusLink
+    >>> from knotobs.representations.groups import SU
+    >>> guard_fixed(TorusLink(3, 4), SU(2), ((799,),))
+    >>> from knotobs.guard import limits
+    >>> with limits(seconds=60):
+    ...     guard_fixed(TorusLink(3, 4), SU(2), ((2999,),))
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.SizeLimitError: T(3,4) for SU(2) coloured by [2999] by the Rosso-Jones route: about 3e+03 weights and 5.4e+07 output coefficients (printing included): estimated 82.7 s, above the limit of 60 s; choose a smaller colour or knot (or raise the limit: --max-seconds, KNOTOBS_MAX_SECONDS)
+    """
+    sec, mem, what = fixed_estimate(knot, group, cols, route)
+    require(what, seconds=sec, memory_mb=mem, accepted="choose a smaller colour or knot")
+
+
+def fixed_estimate(knot, group, cols, route: str = "Rosso-Jones") -> tuple[float, float, str]:
+    """``(seconds, megabytes, description)`` of a fixed-N evaluation of ``knot`` coloured by ``cols``.
 
     Knots: the weights of the colour.  Links: the weights of the tensor product (the
     weight-sum route) or its irreducible pieces, each with its weights (the Rosso–Jones route).
@@ -135,13 +152,8 @@ def guard_fixed(knot, group, cols, route: str = "Rosso-Jones") -> None:
 
     >>> from knotobs.fibrations.torus import TorusLink
     >>> from knotobs.representations.groups import SU
-    >>> guard_fixed(TorusLink(3, 4), SU(2), ((799,),))
-    >>> from knotobs.guard import limits
-    >>> with limits(seconds=60):
-    ...     guard_fixed(TorusLink(3, 4), SU(2), ((2999,),))
-    Traceback (most recent call last):
-    ...
-    knotobs.errors.SizeLimitError: T(3,4) for SU(2) coloured by [2999] by the Rosso-Jones route: about 3e+03 weights and 5.4e+07 output coefficients (printing included): estimated 82.7 s, above the limit of 60 s; choose a smaller colour or knot (or raise the limit: --max-seconds, KNOTOBS_MAX_SECONDS)
+    >>> round(fixed_estimate(TorusLink(3, 4), SU(2), ((2999,),))[0], 1)
+    82.7
     """
     N = group.N
     if len(cols) == 1:
@@ -169,9 +181,8 @@ def guard_fixed(knot, group, cols, route: str = "Rosso-Jones") -> None:
     printed = min(length, k * ((N - 1) * min(knot.P, knot.Q) * boxes + N ** 3))
     sec += format_seconds(printed)
     mem = (k * N * 8 * 8 + 3 * 8 * length) / 2**20
-    require(f"{user_label(_describe(knot, group, cols))} by the {route} route: about {k:.3g} weights"
-            f" and {length:.3g} output coefficients (printing included)",
-            seconds=sec, memory_mb=mem, accepted="choose a smaller colour or knot")
+    return sec, mem, (f"{user_label(_describe(knot, group, cols))} by the {route} route: about {k:.3g} weights"
+                      f" and {length:.3g} output coefficients (printing included)")
 
 
 def guard_dense(what: str, length: int, sparse_terms: int = 0, passes: int = 4, wide: bool = False) -> None:

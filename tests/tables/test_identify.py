@@ -106,3 +106,19 @@ def test_a_group_given_for_an_invariant_of_no_group_is_refused():
     with pytest.raises(KnotobsError, match="does not apply"):
         identify(hom, group="SU(3)", max_p=3, max_q=4)
     assert any(c.knot == "T(2,3)" for c in identify(hom, max_p=3, max_q=4).candidates)
+
+
+def test_a_search_too_large_as_a_whole_is_refused_before_it_starts(monkeypatch):
+    # each candidate is guarded on its own, but 1710 of them (colours up to 45 boxes) took 71 s
+    # under the default limit of 60 s: the sum of their estimates is checked first (internal
+    # check of the guard: the evaluation is replaced by one that fails, so any work would show)
+    import importlib
+
+    ident = importlib.import_module("knotobs.tables.identify")
+
+    def no_work(*a, **k):
+        raise AssertionError("a candidate was evaluated")
+
+    monkeypatch.setattr(ident, "compare", no_work)
+    with pytest.raises(SizeLimitError, match="identifying among 1710 candidates"):
+        identify("q^2+1", max_colour=45)
