@@ -263,3 +263,12 @@ def test_grid_refuses_options_it_would_not_apply(tmp_path):
         r = runner.invoke(app, base + extra)
         assert r.exit_code == 2 and r.output.startswith(f"error: {opt}"), r.output
     assert runner.invoke(app, base + ["-k", "generic,2", "-d", "40"]).exit_code == 0
+
+
+def test_grid_with_an_oversized_point_is_refused_before_any_point(tmp_path):
+    # T(2,3) coloured by the 10^5-dimensional irrep is far beyond the limits: the grid once
+    # computed the small points first and failed on this one mid-run; now nothing is computed
+    store = tmp_path / "g.sqlite"
+    r = runner.invoke(app, ["grid", "run", "--knots", "T(2,3)", "-c", "2,3,100000", "-s", str(store), "-w", "0"])
+    assert r.exit_code == 2 and r.output.startswith("error: grid point T(2,3) coloured by [99999]"), r.output
+    assert not store.exists()

@@ -526,6 +526,39 @@ def _connect_dask(scheduler: str, timeout: float):
                              " check the address (e.g. tcp://127.0.0.1:8786) and that the scheduler is running") from None
 
 
+def guard_points(points: list[dict]) -> None:
+    """Refuse a grid, before any point is computed, when one of its points is over the limits.
+
+    Each point is the exact polynomial at generic ``q`` (a level only evaluates it), so its
+    estimate is that of the polynomial route (:func:`~knotobs.evaluation.estimates.fixed_estimate`,
+    :func:`~knotobs.evaluation.estimates.homfly_estimate`), taken once per knot and colour.  The
+    grid as a whole is not bounded: it is stored point by point and resumable.
+
+    >>> guard_points(GridSpec(["T(2,3)"], "SU(2)", [[1]], [None, 3]).points())
+    """
+    from knotobs.evaluation.estimates import fixed_estimate, homfly_estimate
+    from knotobs.evaluation.rosso_jones import colours_for
+    from knotobs.guard import require
+
+    seen = set()
+    for d in points:
+        key = (d["quantity"], d["knot"], d["group"], tuple(map(tuple, d["rep"])))
+        if key in seen:
+            continue
+        seen.add(key)
+        k = parse_knot(d["knot"])
+        cols = colours_for(k, tuple(d["rep"][0]))
+        if d["quantity"] == "homfly":
+            e = homfly_estimate(min(k.P, k.Q), max(k.P, k.Q), cols, with_z=False)
+            sec, mem = e["seconds"], e["memory_mb"]
+        else:
+            g = parse_group("SU(2)" if d["quantity"] == "colored-jones" else d["group"])
+            sec, mem, _ = fixed_estimate(k, g, cols)
+        require(f"grid point {d['knot']} coloured by {d['rep'][0]} ({d['quantity']}, {d['group']})",
+                seconds=sec, memory_mb=mem,
+                accepted="leave the point out of the grid (a smaller colour or knot); nothing was computed")
+
+
 def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True,
              scheduler: str | None = None, batch_size: int | None = None,
              connect_timeout: float = 10.0, on_row: Callable[[dict], None] | None = None,
@@ -588,6 +621,7 @@ def run_grid(spec: GridSpec, store: str, workers: int = 2, progress: bool = True
         # points stored by any package version count as done (no recomputation, no duplicates)
         present = st.point_keys()
         todo = [d for k, d in keyed if k not in present]
+        guard_points(todo)
         report = GridReport(st.path, len(keyed), len(keyed) - len(todo), 0, 0, [], n_skip, 0.0, run_id,
                             "dask" if scheduler else ("local" if workers else "in-process"))
         client = _connect_dask(scheduler, connect_timeout) if scheduler else None
