@@ -294,5 +294,5 @@ def guard_homfly(knot, cols, with_z: bool = False) -> None:
             f" from {e['terms']} plethysm terms"
             + (f" for each of up to {e['pieces']} irreducible pieces" if e["pieces"] > 1 else ""),
             seconds=e["seconds"], memory_mb=e["memory_mb"],
-            accepted="choose a smaller knot or colour, the (a, q) form (--form aq), or a fixed N"
-                     " (--group 'SU(N)', or the loop command with U(N))")
+            accepted="choose a smaller knot or colour" + (", the (a, q) form (--form aq)," if with_z else "")
+                     + " or a fixed N (--group 'SU(N)', or the loop command with U(N))")
