@@ -138,3 +138,14 @@ def test_all_labels_counts_one_series_per_label():
 def test_cli_refuses_all_labels_of_five_fibers():
     line = _one_error_line(_cli("qseries", FIVE_FIBERS, "--order", "10", "--label", "all"))
     assert "3774 labels" in line and "--label" in line
+
+
+def test_two_variable_text_is_guarded_too():
+    """The HOMFLY-PT text (two variables) is checked before it is built, as the one-variable text
+    is (internal check of the guard, against the limit; the value itself is not printed)."""
+    from knotobs import homfly
+
+    r = homfly("T(9,10)", (3,))
+    with limits(seconds=1e-4), pytest.raises(SizeLimitError, match="printing the homfly of T"):
+        r.exact_string()
+    assert homfly("T(2,3)").exact_string() == "2*a^-2 + a^-2*z^2 - a^-4"

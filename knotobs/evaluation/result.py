@@ -57,16 +57,19 @@ class PolynomialResult:
 
     @cached_property
     def _exact_text(self) -> str:
-        if isinstance(self.value, Laurent2):
-            if self.profile.variables == ("a", "q"):
-                return self.value.to_aq_string()
-            return self.value.to_az_string()
         from knotobs.evaluation.estimates import guard_format, printed_terms
         from knotobs.output.notebook import laurent_text
 
         # the text of 10^7 terms takes longer than computing them: checked before it is built
-        guard_format(f"the {self.quantity} of {self.knot} ({self.group}, colour "
-                     f"{','.join(str(list(c)) for c in self.colours)})", printed_terms(self.value))
+        what = (f"the {self.quantity} of {self.knot} ({self.group}, colour "
+                f"{','.join(str(list(c)) for c in self.colours)})")
+        if isinstance(self.value, Laurent2):
+            # one s-polynomial per power of a: their terms (the (a, z) form has about as many)
+            guard_format(what, sum(printed_terms(f) for f in self.value.c.values()))
+            if self.profile.variables == ("a", "q"):
+                return self.value.to_aq_string()
+            return self.value.to_az_string()
+        guard_format(what, printed_terms(self.value))
 
         return laurent_text(self.value, self.profile.variables[0])
 
