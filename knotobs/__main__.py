@@ -22,8 +22,10 @@ def main(argv=None) -> None:
         sys.stdout.write(f"knotobs {__version__}\n")
         return
     from knotobs.cli import app
+    from knotobs.cli._app import only_command
 
-    app(args=args, prog_name="knotobs")
+    with only_command(app, args):
+        app(args=args, prog_name="knotobs")
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -196,3 +196,24 @@ def test_json_is_one_object_and_exact_round_trips():
         c, e = term.as_coeff_exponent(q)
         terms[Fraction(str(e))] = int(c)
     assert terms == lib.terms()
+
+
+@pytest.mark.parametrize("argv", [["space", "Sigma(2,3,5)", "--group", "SU(3)", "--level", "4"],
+                                  ["--max-seconds", "30", "loop", "T(2,3)", "--json"],
+                                  ["grid", "--help"], ["--help"], ["spac"]])
+def test_the_executable_registers_only_the_invoked_command_with_the_same_output(argv, capsys):
+    # knotobs.__main__.main builds only the command it runs (start-up); the output, the exit
+    # status and the full listing of --help must be those of the whole application
+    from knotobs.__main__ import main
+
+    with pytest.raises(SystemExit) as e:
+        main(argv)
+    out = capsys.readouterr()
+    full = CliRunner().invoke(app, argv)
+    assert e.value.code == full.exit_code
+    if argv == ["--help"]:      # the listing (its text is cut to the terminal width)
+        for name in ("loop", "poly", "fibers", "space", "match", "flat", "continue", "plot", "qseries", "borel", "grid"):
+            assert f"\n  {name} " in out.out and f"\n  {name} " in full.output, name
+    else:
+        assert " ".join((out.out + out.err).split()) == " ".join(full.output.split())
+    assert len(app.registered_commands) >= 10 and app.registered_groups     # restored
