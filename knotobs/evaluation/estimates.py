@@ -27,7 +27,7 @@ from typing import Sequence
 from knotobs.guard import require, seconds_for
 from knotobs.labels import labelled, user_label
 
-__all__ = ["weight_count", "guard_fixed", "fixed_estimate", "guard_dense", "guard_format", "format_seconds",
+__all__ = ["weight_count", "guard_fixed", "fixed_estimate", "polynomial_estimate", "guard_dense", "guard_format", "format_seconds",
            "printed_terms", "FORMAT_SECONDS_PER_TERM", "FORMAT_BYTES_PER_TERM",
            "user_label", "labelled"]
 
@@ -183,6 +183,24 @@ def fixed_estimate(knot, group, cols, route: str = "Rosso-Jones") -> tuple[float
     mem = (k * N * 8 * 8 + 3 * 8 * length) / 2**20
     return sec, mem, (f"{user_label(_describe(knot, group, cols))} by the {route} route: about {k:.3g} weights"
                       f" and {length:.3g} output coefficients (printing included)")
+
+
+def polynomial_estimate(knot, cols, group=None, with_z: bool = False) -> tuple[float, float]:
+    """``(seconds, megabytes)`` of the exact polynomial of ``knot`` coloured by ``cols``: at a fixed
+    group (:func:`fixed_estimate`) or, with ``group=None``, the generic-N HOMFLY-PT
+    (:func:`homfly_estimate`; ``with_z``: in ``(a, z)``).  For the guards of many evaluations at
+    once (a grid, an identification).
+
+    >>> from knotobs.fibrations.torus import TorusLink
+    >>> from knotobs.representations.groups import SU
+    >>> polynomial_estimate(TorusLink(3, 4), ((2999,),), SU(2))[0] > 60
+    True
+    """
+    if group is None:
+        e = homfly_estimate(min(knot.P, knot.Q), max(knot.P, knot.Q), cols, with_z)
+        return e["seconds"], e["memory_mb"]
+    sec, mem, _ = fixed_estimate(knot, group, cols)
+    return sec, mem
 
 
 def guard_dense(what: str, length: int, sparse_terms: int = 0, passes: int = 4, wide: bool = False) -> None:

@@ -202,7 +202,7 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         f = int(framing)
         K = level + g.N
         c = sum((casimir(g, lam) for lam in cols), Fraction(0))
-        f_eff = _reduced_framing(f, g, cols, K)
+        f_eff = _reduced_framing(f, c, K)
         phase = f_eff * c / K
         with working_precision(digits + 10):
             numeric = numeric * mpmath.expjpi(2 * mpmath.mpf(phase.numerator) / phase.denominator)
@@ -261,16 +261,14 @@ def _framing_int(framing) -> int:
     return int(framing) if _is_integer_framing(framing) else 0
 
 
-def _reduced_framing(f: int, g, cols, K: int) -> int:
+def _reduced_framing(f: int, c: Fraction, K: int) -> int:
     """``f`` modulo ``K`` times the denominator of ``c = sum_i C(lam_i)``: the value at level
     ``K - N`` depends on the framing only through ``exp(2 pi i f c/K)`` (CONVENTIONS §2), so a
     framing of ``10^30`` need not be carried as such (it overflowed, or lost the phase).
 
-    >>> from knotobs.representations.groups import parse_group
-    >>> _reduced_framing(10**30 + 7, parse_group("SU(3)"), ((2, 1),), 8)   # C([2,1]) = 3
+    >>> _reduced_framing(10**30 + 7, Fraction(3), 8)     # SU(3), C([2,1]) = 3, level 5
     7
     """
-    c = sum((casimir(g, lam) for lam in cols), Fraction(0))
     return f % (K * c.denominator) if c else 0
 
 
@@ -298,7 +296,8 @@ def _polynomial_only(k, g, cols, level, framing, mode, digits, F) -> FiniteLevel
     for lam in cols:
         check_integrable(lam, g.N, level)
     fr = _framing_int(framing) if mode == "zero" else "fiber"
-    poly = rosso_jones(k, g, cols, _reduced_framing(fr, g, cols, K) if fr != "fiber" else fr)
+    poly = rosso_jones(k, g, cols, fr if fr == "fiber" else
+                       _reduced_framing(fr, sum((casimir(g, lam) for lam in cols), Fraction(0)), K))
     exact = polynomial_at_root_of_unity(poly, K)
     numeric = exact.to_mpc(digits)
     framing_text = ("zero (Seifert) framing" if fr == 0 else

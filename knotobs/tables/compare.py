@@ -602,7 +602,7 @@ def compare(knot, target, group=None, rep=(1,), invariant: str = "auto",
     g = parse_group("SU(2)" if group is None else group)
     inv = invariant.lower().replace("_", "-") if isinstance(invariant, str) else invariant
     cols = colours_for(k, rep)
-    if inv not in ("homfly", "alexander", "conway", "kauffman"):
+    if inv not in GROUP_FREE:
         cols = tuple(g.check(c) for c in cols)
     tp = _target_mpoly(target, variables)
     fam = _choose_family(tp, inv, k, g, cols)

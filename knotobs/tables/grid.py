@@ -530,13 +530,12 @@ def guard_points(points: list[dict]) -> None:
     """Refuse a grid, before any point is computed, when one of its points is over the limits.
 
     Each point is the exact polynomial at generic ``q`` (a level only evaluates it), so its
-    estimate is that of the polynomial route (:func:`~knotobs.evaluation.estimates.fixed_estimate`,
-    :func:`~knotobs.evaluation.estimates.homfly_estimate`), taken once per knot and colour.  The
+    estimate is that of the polynomial route (:func:`~knotobs.evaluation.estimates.polynomial_estimate`), taken once per knot and colour.  The
     grid as a whole is not bounded: it is stored point by point and resumable.
 
     >>> guard_points(GridSpec(["T(2,3)"], "SU(2)", [[1]], [None, 3]).points())
     """
-    from knotobs.evaluation.estimates import fixed_estimate, homfly_estimate
+    from knotobs.evaluation.estimates import polynomial_estimate
     from knotobs.evaluation.rosso_jones import colours_for
     from knotobs.guard import require
 
@@ -548,12 +547,9 @@ def guard_points(points: list[dict]) -> None:
         seen.add(key)
         k = parse_knot(d["knot"])
         cols = colours_for(k, tuple(d["rep"][0]))
-        if d["quantity"] == "homfly":
-            e = homfly_estimate(min(k.P, k.Q), max(k.P, k.Q), cols, with_z=False)
-            sec, mem = e["seconds"], e["memory_mb"]
-        else:
-            g = parse_group("SU(2)" if d["quantity"] == "colored-jones" else d["group"])
-            sec, mem, _ = fixed_estimate(k, g, cols)
+        q = d["quantity"]
+        g = None if q == "homfly" else parse_group("SU(2)" if q == "colored-jones" else d["group"])
+        sec, mem = polynomial_estimate(k, cols, g)          # homfly points are stored in (a, q)
         require(f"grid point {d['knot']} coloured by {d['rep'][0]} ({d['quantity']}, {d['group']})",
                 seconds=sec, memory_mb=mem,
                 accepted="leave the point out of the grid (a smaller colour or knot); nothing was computed")

@@ -107,7 +107,7 @@ SEARCH_FACTOR = 4.0
 def _guard_search(knots, reps, g, homfly_like: bool, inv: str) -> None:
     """Refuse a search whose candidates together are estimated beyond the limits (each one is
     also guarded on its own; those over the limit are skipped and reported, so they do not count)."""
-    from knotobs.evaluation.estimates import fixed_estimate, homfly_estimate
+    from knotobs.evaluation.estimates import polynomial_estimate
     from knotobs.evaluation.rosso_jones import colours_for
     from knotobs.guard import current_limits, require
 
@@ -117,11 +117,7 @@ def _guard_search(knots, reps, g, homfly_like: bool, inv: str) -> None:
     total = 0.0
     for k in knots:
         for lam in reps:
-            cols = colours_for(k, lam)
-            if homfly_like:
-                sec = homfly_estimate(min(k.P, k.Q), max(k.P, k.Q), cols, with_z=True)["seconds"]
-            else:
-                sec = fixed_estimate(k, g, cols)[0]
+            sec = polynomial_estimate(k, colours_for(k, lam), None if homfly_like else g, with_z=True)[0]
             if sec <= lim:
                 total += SEARCH_FACTOR * sec
     require(f"identifying among {len(knots) * len(reps)} candidates (T(P,Q) and colours)", seconds=total,

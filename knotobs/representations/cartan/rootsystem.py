@@ -31,10 +31,9 @@ Representation Theory*, Springer GTM 9 (1972), §10–§13.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
-import math
 from fractions import Fraction
 from functools import cached_property
-from math import lcm
+from math import lcm, prod
 from typing import Sequence
 
 import numpy as np
@@ -258,7 +257,7 @@ class RootSystem:
         >>> type_d.root_system(10).weyl_order
         1857945600
         """
-        return math.prod(m + 1 for m in self.exponents)
+        return prod(m + 1 for m in self.exponents)
 
     @cached_property
     def positive_roots(self) -> tuple[Weight, ...]:
