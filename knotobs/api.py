@@ -575,7 +575,9 @@ def continued_partition_function(space, group="SU(2)", level=None, *, K=None, di
     SU(2) on every Seifert manifold with ``e != 0``; SU(3) on every Seifert manifold with
     ``e != 0`` within the size limits (orders sharing a factor and base genus ``g >= 1`` included);
     SU(N), N >= 4, on lens spaces (:mod:`knotobs.continuation.cartan`; poles for N >= 4 are
-    refused); ``S^1 x Sigma_g`` for every SU(N), as its Verlinde polynomial in ``K``.
+    refused); every SU(N) on every space with ``e = 0``: ``S^1 x Sigma_g`` as its Verlinde
+    polynomial in ``K``, and with exceptional fibers (torus bundles, ...) as a quasi-polynomial in
+    ``K`` (docs/continuation_sun.md §18.11).
 
     >>> z = continued_partition_function("Sigma(2,3,5)", "SU(2)", 3, digits=15)
     >>> abs(z.numeric - partition_function("Sigma(2,3,5)", "SU(2)", 3).numeric) < 1e-12
@@ -592,12 +594,13 @@ def continued_partition_function(space, group="SU(2)", level=None, *, K=None, di
             else:
                 as_group(group)
     g = str(group).replace(" ", "").upper() if isinstance(group, str) else str(group)
-    from knotobs.continuation.cartan.verlinde import is_circle_product
+    from knotobs.continuation.cartan.quasipolynomial import has_zero_euler
     from knotobs.fibrations.seifert import SeifertManifold, parse_space
 
     M = space if isinstance(space, SeifertManifold) else parse_space(space)
-    if g.startswith("SU(") and (g != "SU(2)" or is_circle_product(M)):
-        # SU(N), and S^1 x Sigma_g for every N (the Verlinde polynomial, H = 0)
+    if g.startswith("SU(") and (g != "SU(2)" or has_zero_euler(M)):
+        # SU(N), and e = 0 for every N (S^1 x Sigma_g: the Verlinde polynomial; with exceptional
+        # fibers the quasi-polynomial in K of docs §18.11)
         from knotobs.continuation.cartan import continued_sun_partition_function
 
         return continued_sun_partition_function(space, g, level, K=K, digits=digits, phases=phases)

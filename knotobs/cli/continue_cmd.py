@@ -124,11 +124,11 @@ def continue_(
     if level is not None and K is not None:
         refuse("--K", f"give the level once: --level k or --K (= k + {sun or 2})")
     if sun is None:
-        from knotobs.continuation.cartan.verlinde import is_circle_product
+        from knotobs.continuation.cartan.quasipolynomial import has_zero_euler
         from knotobs.fibrations.seifert import parse_space
 
-        if is_circle_product(parse_space(target)):
-            sun = 2                  # S^1 x Sigma_g: the Verlinde polynomial, for every SU(N)
+        if has_zero_euler(parse_space(target)):
+            sun = 2                  # e = 0: the Verlinde or quasi-polynomial in K, for every SU(N)
     if sun is not None:
         from knotobs.continuation.cartan import continued_sun_partition_function
         from knotobs.output.continuation_text import continued_text

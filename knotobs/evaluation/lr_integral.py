@@ -126,9 +126,9 @@ class LRData:
         pq, P, H, phi = data_of(raw) if raw else ([], 1, 0, Fraction(0))
         if H == 0:
             fibered = any(a > 1 for a, _ in M.fibers)
-            where = ("with exceptional fibers and H = 0 the value is not continued in K (without the"
-                     " Gaussian the values are not of the continued form: SU(2) Z_k is 0 at every odd k + 2 on"
-                     " M(0; -1; (2,1), (4,1), (4,1)); docs/continuation_sun.md 18.10);" if fibered else
+            where = ("with exceptional fibers and H = 0 it is continued in K as a quasi-polynomial (one"
+                     " polynomial per class of K mod lcm of the orders) by knotobs.continued_partition_function"
+                     " (knotobs continue SPACE; docs/continuation_sun.md 18.11);" if fibered else
                      "S^1 x Sigma_g (no exceptional fibers, b = 0) is continued in K as its Verlinde"
                      " polynomial by knotobs.continued_partition_function (knotobs continue SPACE);")
             raise InvalidSeifertDataError(

@@ -119,10 +119,8 @@ def test_precision_agreement_and_bad_input():
         continued_partition_function("Sigma(2,3,5)", K="-0.001-3i")
     with pytest.raises(KnotobsError, match="H = 0") as exc:
         continued_partition_function("S^2xS^1", K=5)
-    # the message says where S^1 x Sigma_g is continued, and that H = 0 with fibers is not
+    # the message says where S^1 x Sigma_g is continued (H = 0 with fibers: tests/test_continuation_zero_euler.py)
     assert "Verlinde polynomial by knotobs.continued_partition_function" in str(exc.value)
-    with pytest.raises(KnotobsError, match="with exceptional fibers and H = 0 the value is not continued"):
-        continued_partition_function("M(1; 0; (2,1), (2,-1))", K=5.5)
 
 
 def test_polynomial_at_complex_q_and_K():

@@ -92,3 +92,19 @@ def test_the_order_four_bundle_vanishes_at_odd_K():
     for k in (1, 3, 5, 7):
         z = knotobs.partition_function("M(0; -1; (2,1), (4,1), (4,1))", "SU(2)", k)
         assert z.exact is not None and z.exact.is_zero()
+
+
+def test_continued_values_at_integers_are_traces_of_the_monodromy():
+    # the continuation in K of e = 0 spaces (docs/continuation_sun.md 18.11) interpolates the
+    # finite values at k <= L (d + 3) (SU(2): at most k = 24 on these four) as a quasi-polynomial;
+    # at levels beyond those it must still give |Z| = |Tr rho(A)|.  (SU(3) beyond its
+    # interpolation points: tests/test_continuation_zero_euler.py, against both finite routes.)
+    from knotobs.continuation.cartan import continued_sun_partition_function
+
+    N = 2
+    with mpmath.workdps(30):
+        for k in (30, 61):
+            S, T = _modular_data(N, k)
+            for space, word in BUNDLES.items():
+                z = continued_sun_partition_function(space, f"SU({N})", K=k + N, digits=20).numeric
+                assert abs(abs(z) - abs(_trace_of(word, S, T))) < 1e-15, (space, N, k)

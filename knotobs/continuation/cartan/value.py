@@ -266,6 +266,8 @@ class CartanContinuedValue(NotebookMixin):
     def pieces(self) -> dict:
         """``{"integral": ..., "residues": ...}`` (the layout of the SU(2) value): the sectors of the
         abelian flat connections and the rest (``0`` when the integrand has no poles)."""
+        if self.method == "quasi-polynomial":        # e = 0: the lattice sum is all residues (§18.11)
+            return {"integral": mpmath.mpc(0), "residues": self.numeric}
         if self.method != "residues":
             return {"integral": self.numeric, "residues": mpmath.mpc(0)}
         integral = sum((v for cs, v in self.sectors.items() if cs in self.abelian), mpmath.mpc(0))
@@ -276,6 +278,9 @@ class CartanContinuedValue(NotebookMixin):
         """One line naming the route."""
         if self.method == "verlinde":
             return "the Verlinde polynomial in K (S^1 x Sigma_g, H = 0)"
+        if self.method == "quasi-polynomial":
+            return ("a quasi-polynomial in K (e = 0): one polynomial per class of K mod the period,"
+                    " interpolated from the finite levels (one sector exp(2 pi i K j/L) Q_j(K) per class j mod L)")
         if self.method == "residues":
             return ("SU(3) two-family Lawrence-Rozansky formula: plane integrals, line integrals of"
                     " residues and iterated residues, each at its saddle (one sector per Chern-Simons value"
@@ -351,6 +356,9 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     circle = _circle_product(space, group, level, K, digits, phases, method)
     if circle is not None:
         return circle
+    flat_base = _zero_euler(space, group, level, K, digits, phases, method)
+    if flat_base is not None:
+        return flat_base
     digits, N, d, Kv, method = _prepare(space, group, level, K, digits, phases, method)
     reduced = phases == "reduced"
     notes = []
@@ -410,6 +418,60 @@ def _circle_product(space, group, level, K, digits, phases, method):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
     return CartanContinuedValue(total, digits, Kv, N, str(M), {Fraction(0): total}, "verlinde", tuple(notes),
                                 frozenset({Fraction(0)}))
+
+
+def _zero_euler(space, group, level, K, digits, phases, method):
+    """``e = 0`` with exceptional fibers: the quasi-polynomial in ``K`` of §18.11, or ``None`` for
+    any other space."""
+    from knotobs.continuation.cartan import quasipolynomial as qp
+    from knotobs.fibrations.seifert import SeifertManifold, parse_space
+    from knotobs.numerics import working_precision
+
+    M = space if isinstance(space, SeifertManifold) else parse_space(space)
+    if not qp.has_zero_euler(M):
+        return None
+    if phases != "reduced":
+        raise DomainError(f"phases = {phases!r} (--phases): {M} has e = 0, so there is no Lawrence-Rozansky phase"
+                          " cs(u) = P|u|^2/(2H); its sectors exp(2 pi i K j/L) are reduced (j/L in (-1/2, 1/2]);"
+                          " use phases='reduced'")
+    if method != "auto":
+        raise DomainError(f"method = {method!r}: {M} has e = 0; its value is the quasi-polynomial in K of"
+                          " docs/continuation_sun.md 18.11; use 'auto'")
+    digits = check_digits(digits)
+    N = _group_N(group)
+    Kv = resolve_K(level, K, N)
+    q = qp.quasi_polynomial_data(M, N)
+    sec, what = qp.quasi_polynomial_seconds(q)
+    require(f"continued SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 12)}: {what}", seconds=sec,
+            accepted="use a smaller N, fewer exceptional fibers or a lower base genus")
+    guard = qp.guard_digits(q, Kv)
+    # the finite values carry no discretisation: both runs share them at the finer run's digits
+    # (their balls certify them), and differ in the precision of everything after
+    fine = digits + 12 + guard
+    found = {}
+
+    def comp(dg):
+        with working_bits(bits(dg + guard)):
+            Ka = to_acb(resolve_K(level, K, N))
+            sec_ = qp.quasi_polynomial_sectors(q, Ka, fine)
+            total = sum(sec_.values(), acb(0))
+            qp.check_radius(total, dg, f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)}")
+            found[dg] = {cs: to_mpc(v, dg) for cs, v in sec_.items()}
+            return total
+
+    total = checked(comp, digits, f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)} (quasi-polynomial)")
+    sectors = found[digits + 12]
+    with working_precision(digits):
+        sectors = {cs: +v for cs, v in sectors.items()}
+    notes = [f"e = 0: exp(i pi |rho|^2 phi/K) Z is a quasi-polynomial in K of period {q.period} and degree"
+             f" <= {q.degree} (phi = {q.phi}), interpolated from the finite levels k = 1..{q.levels[-1]}"
+             " of the localisation route and checked at two levels of every class",
+             f"{len(sectors)} of {q.period} sectors exp(2 pi i K j/{q.period}) Q_j(K) (j/{q.period} reduced to"
+             " (-1/2, 1/2]) are non-zero"]
+    if Kv.imag == 0 and Kv.real == int(Kv.real):
+        notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
+    return CartanContinuedValue(total, digits, Kv, N, str(M), sectors, "quasi-polynomial", tuple(notes),
+                                frozenset())
 
 
 def continued_sun_Z(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> mpmath.mpc:

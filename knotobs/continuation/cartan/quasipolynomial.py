@@ -1,0 +1,224 @@
+r"""``Z(M)`` of SU(N) on a Seifert manifold with ``e = 0`` as a quasi-polynomial in ``K`` (§18.11).
+
+When the Euler number vanishes (``H = 0``: torus bundles, ``M(1; 0; (2,1), (2,-1))``, ...) the
+Gaussian of the Gauss-sum form (docs/continuation_sun.md §18.1) is absent.  What is left at integer
+``K`` is a sum of a trigonometric rational function over the points ``lam/K`` of ``Lambda / L K Q``
+(``L = lcm p_j``) against a character of ``Lambda / L Q``, one per coset (§18.8).  Summing it by
+residues (§18.11 of the docs) shows that
+
+    F(K) = exp(i pi |rho|^2 phi / K) Z_{K - N}(M)
+
+is a *quasi-polynomial*: on each residue class ``K = c mod L`` a polynomial in ``K`` of degree at
+most ``d = |Delta+| max(n_> - 2 + 2g, 0) + (N - 1) g``.  Equivalently
+
+    F(K) = sum_{j mod L} exp(2 pi i K j / L) Q_j(K),      Q_j polynomials of degree <= d,
+
+and with ``j / L`` taken in ``(-1/2, 1/2]`` this is the continuation of least exponential type
+(Carlson's theorem, as for the reduced phases of §18.2): it is the value at complex ``K``, one
+sector ``exp(2 pi i K j/L) Q_j(K)`` per class ``j/L`` of Chern–Simons values.
+
+The polynomials are interpolated through the finite values of the localisation route at the first
+``L (d + 1)`` levels (``k >= 1``) and **checked** at two further levels of every class; a mismatch
+raises.  The finite values are balls with certified digits, and the interpolation runs in ball
+arithmetic, so the radii carry their error to the continued value.
+
+References
+----------
+E. Witten, Commun. Math. Phys. 121 (1989) 351–399 (``Z`` of a mapping torus is the trace of the
+mapping class on the conformal blocks); L. Jeffrey, Commun. Math. Phys. 147 (1992) 563–604
+(torus bundles); R. Lawrence and L. Rozansky, Commun. Math. Phys. 205 (1999) 287–314 (the
+Gauss-sum form and its residues in rank one).
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from fractions import Fraction
+from functools import lru_cache
+
+import mpmath
+from flint import acb, arb
+
+from knotobs.errors import KnotobsError, PrecisionError
+from knotobs.numerics import working_precision
+
+__all__ = ["has_zero_euler", "QuasiPolynomialData", "quasi_polynomial_data", "quasi_polynomial_levels",
+           "quasi_polynomial_sectors", "quasi_polynomial_seconds"]
+
+
+def has_zero_euler(M) -> bool:
+    """``e(M) = 0``: ``b + sum b_j/a_j = 0`` (``H = 0``, infinite ``H_1``).
+
+    >>> from knotobs.fibrations.seifert import parse_space
+    >>> has_zero_euler(parse_space("M(0; -1; (2,1), (4,1), (4,1))")), has_zero_euler(parse_space("Sigma(2,3,5)"))
+    (True, False)
+    """
+    return Fraction(M.b) + sum((Fraction(b, a) for a, b in M.fibers), Fraction(0)) == 0
+
+
+@dataclass(frozen=True)
+class QuasiPolynomialData:
+    """The shape of ``F(K)`` for ``SU(N)`` on ``M`` (``e = 0``).
+
+    Attributes
+    ----------
+    space : str
+    N : int
+    period : int
+        ``L = lcm`` of the exceptional orders (1 without them).
+    degree : int
+        The bound ``d = |Delta+| max(n_> - 2 + 2g, 0) + (N - 1) g`` on the degree of every
+        ``Q_j`` (docs §18.11).
+    phi : Fraction
+        ``sum_j (12 s(q_j, p_j) - q_j/p_j)`` over the fibers and ``(1, b)``: the framing phase
+        ``exp(-i pi |rho|^2 phi/K)`` of §18.1 with ``sign H = 0``.
+    rho2 : Fraction
+        ``|rho|^2 = N (N^2 - 1)/12``.
+
+    Examples
+    --------
+    >>> q = quasi_polynomial_data("M(0; -1; (2,1), (4,1), (4,1))", 2)
+    >>> q.period, q.degree, q.phi
+    (4, 1, Fraction(3, 1))
+    """
+
+    space: str
+    N: int
+    period: int
+    degree: int
+    phi: Fraction
+    rho2: Fraction
+
+    @property
+    def levels(self) -> list[int]:
+        """Levels ``k`` whose values are interpolated or checked (``L (d + 3)`` of them)."""
+        return list(range(1, self.period * (self.degree + 3) + 1))
+
+
+def quasi_polynomial_data(space, N: int) -> QuasiPolynomialData:
+    """Period, degree bound and framing phase of ``F(K)`` (see :class:`QuasiPolynomialData`)."""
+    from knotobs.evaluation.gauss_sum import lr_data
+    from knotobs.fibrations.seifert import SeifertManifold, parse_space
+
+    M = space if isinstance(space, SeifertManifold) else parse_space(space)
+    if not has_zero_euler(M):
+        raise KnotobsError(f"{M} has e != 0: it is continued by the Gauss-sum form (docs §18.2-18.9)")
+    raw = list(M.fibers) + ([(1, M.b)] if M.b else [])
+    phi = lr_data(raw, coprime=False)[3] if raw else Fraction(0)
+    big = [a for a, _ in M.fibers if a > 1]
+    L = math.lcm(*big) if big else 1
+    npos = N * (N - 1) // 2
+    d = npos * max(len(big) - 2 + 2 * M.genus, 0) + (N - 1) * M.genus
+    return QuasiPolynomialData(str(M), N, L, d, phi, Fraction(N * (N * N - 1), 12))
+
+
+def quasi_polynomial_seconds(q: QuasiPolynomialData) -> tuple[float, str]:
+    """Estimated seconds of the finite values (computed once per space and precision) and a description of the work."""
+    from knotobs.fibrations.seifert import parse_space
+    from knotobs.localisation.values import _sum, localisation_seconds
+
+    M = parse_space(q.space)
+    sec = sum(localisation_seconds(_sum(M, q.N, k))[0] for k in q.levels)
+    return sec + 0.05, (f"{len(q.levels)} finite levels k = 1..{q.levels[-1]} of SU({q.N}) on {q.space}"
+                            f" (period {q.period} in K, degree <= {q.degree})")
+
+
+@lru_cache(maxsize=32)
+def quasi_polynomial_levels(space: str, N: int, digits: int) -> tuple[tuple[int, str, str], ...]:
+    """``(K, Re F, Im F)`` at every level of :attr:`QuasiPolynomialData.levels`, ``digits`` certified
+    digits (strings, so the cache holds no precision-dependent objects)."""
+    from knotobs.localisation import localisation_partition_function
+
+    q = quasi_polynomial_data(space, N)
+    out = []
+    for k in q.levels:
+        K = k + N
+        z = localisation_partition_function(space, f"SU({N})", k, digits=digits, exact=False).numeric
+        with working_precision(digits + 10):
+            f = mpmath.mpc(z) * mpmath.expj(mpmath.pi * (q.rho2 * q.phi).numerator / (q.rho2 * q.phi).denominator / K)
+            out.append((K, mpmath.nstr(f.real, digits + 8), mpmath.nstr(f.imag, digits + 8)))
+    return tuple(out)
+
+
+def _ball(s: str, rad) -> arb:
+    return arb(s, rad)
+
+
+def _class_tables(q: QuasiPolynomialData, digits: int):
+    """Per residue class ``c`` of ``K`` mod ``L``: the nodes and Newton divided differences of the
+    polynomial through its first ``d + 1`` values; the remaining two values of the class are
+    checked against it.  Runs at the current precision."""
+    table = quasi_polynomial_levels(q.space, q.N, digits)
+    L, d = q.period, q.degree
+    err = arb(10) ** (-digits)
+    classes = []
+    for c in range(L):
+        pts = [(K, acb(_ball(re_, err * max(1, abs(float(re_)) + abs(float(im_)))),
+                       _ball(im_, err * max(1, abs(float(re_)) + abs(float(im_))))))
+               for i, (K, re_, im_) in enumerate(table) if i % L == c]
+        xs = [K for K, _ in pts[: d + 1]]
+        dd = [v for _, v in pts[: d + 1]]
+        for j in range(1, d + 1):
+            for i in range(d, j - 1, -1):
+                dd[i] = (dd[i] - dd[i - 1]) / (xs[i] - xs[i - j])
+        for K, v in pts[d + 1:]:
+            diff = _newton(xs, dd, acb(K)) - v
+            if not diff.contains(0):
+                raise KnotobsError(
+                    f"SU({q.N}) on {q.space}: exp(i pi |rho|^2 phi/K) Z is not a polynomial of degree <= {d}"
+                    f" on the class K = {xs[0] % L} mod {L} (it misses the value at K = {K} by"
+                    f" {mpmath.nstr(float(abs(diff).mid()), 3)}); docs/continuation_sun.md §18.11")
+        classes.append((xs, dd))
+    return classes
+
+
+def _newton(xs, dd, K: acb) -> acb:
+    out = dd[-1]
+    for i in range(len(dd) - 2, -1, -1):
+        out = out * (K - xs[i]) + dd[i]
+    return out
+
+
+def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int) -> dict[Fraction, acb]:
+    """``{j/L mod 1: exp(-i pi |rho|^2 phi/K) exp(2 pi i K j'/L) Q_j(K)}`` (``j'`` the representative
+    of ``j`` in ``(-L/2, L/2]``) from finite values with ``digits`` certified digits, at the current
+    precision.  Sectors with ``Q_j = 0`` (zero at ``d + 1`` points, to the radius of the balls) are
+    left out.
+    """
+    classes = _class_tables(q, digits)
+    L, d = q.period, q.degree
+    zeta = [acb.exp_pi_i(acb(2 * j) / L) for j in range(L)]
+    # Q_j(K) = (1/L) sum_c zeta^(-j c) P_c(K), c the residue of K mod L on which P_c holds
+    cls = [xs[0] % L for xs, _ in classes]
+
+    def Q(j, x):
+        s = acb(0)
+        for (xs, dd), c in zip(classes, cls):
+            s += zeta[(-j * c) % L] * _newton(xs, dd, x)
+        return s / L
+
+    probes = [acb(q.N + 1 + t) for t in range(d + 1)]
+    ph = acb.exp_pi_i(-acb((q.rho2 * q.phi).numerator) / (q.rho2 * q.phi).denominator / K)
+    out = {}
+    for j in range(L):
+        if all(Q(j, x).contains(0) for x in probes):
+            continue
+        jr = j if 2 * j <= L else j - L
+        out[Fraction(j, L)] = ph * acb.exp_pi_i(2 * jr * K / L) * Q(j, K)
+    return out
+
+
+def guard_digits(q: QuasiPolynomialData, Kv) -> int:
+    """Digits the interpolation and the sectors can lose at ``K``: extrapolation of degree ``d``
+    from nodes spaced ``L`` apart, and sectors of size up to ``exp(pi |Im K|)``."""
+    top = q.N + q.levels[-1]
+    far = (abs(complex(Kv)) + top) / q.period + 2
+    return int(math.ceil(q.degree * math.log10(2 * far) + math.pi * abs(float(mpmath.im(Kv))) / math.log(10))) + 5
+
+
+def check_radius(z: acb, digits: int, what: str) -> None:
+    """Raise when the ball ``z`` is wider than ``10^-digits max(1, |z|)``."""
+    if z.rad() > arb(10) ** (-digits) * max(1, float(abs(z).mid())):
+        raise PrecisionError(f"{what}: the interpolated value is certified only to radius"
+                             f" {mpmath.nstr(float(z.rad()), 3)}; request fewer digits")
