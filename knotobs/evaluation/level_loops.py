@@ -186,6 +186,10 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     if framing is None and mode == "zero" and F.homology_class is None \
             and not F.manifold.is_rational_homology_sphere:
         mode = "fiber"          # H_1 infinite (e = 0 or base genus >= 1): no zero framing to default to
+    if in_s3 and normalized and route in ("auto", None) and g.kind == "SU":
+        why = _polynomials_are_cheaper(F.manifold, g, k, cols, level, mode)
+        if why is not None:
+            return _polynomial_only(k, g, cols, level, framing, mode, digits, F, pair=why)
     try:
         v = fiber_wilson_loop(F.manifold, level, str(g), regular=list(cols), normalized=normalized,
                               digits=digits, framing=mode, route=route)
@@ -291,15 +295,65 @@ def polynomial_at_root_of_unity(poly: Laurent, K: int) -> Cyclotomic:
     return F.from_exponents([int(e * D) for e in terms], list(terms.values()))
 
 
-def _polynomial_only(k, g, cols, level, framing, mode, digits, F) -> FiniteLevelValue:
+#: In S^3 with ``--route auto``, the exact polynomials replace the Seifert routes when those are
+#: estimated above this many seconds and above :data:`POLYNOMIAL_RATIO` times the polynomials.
+POLYNOMIAL_SWITCH_SECONDS = 1.0
+POLYNOMIAL_RATIO = 3.0
+#: Above this ``K`` the polynomial routes give the numeric value only (no cyclotomic form).
+EXACT_PAIR_K = 2000
+
+
+def _polynomials_are_cheaper(M, g, k, cols, level, mode) -> str | None:
+    """Why the two polynomial routes (Rosso-Jones and the weight sum, exact in ``q``) answer a
+    normalised S^3 loop at ``level`` instead of surgery or localisation, or ``None``."""
+    from knotobs.evaluation.estimates import fixed_estimate
+    from knotobs.evaluation.seifert_routes import loop_estimates
+    from knotobs.localisation.values import check_fiber_lines
+
+    for lam in cols:
+        check_integrable(lam, g.N, level)
+    regular, exceptional = check_fiber_lines(M, g.N, level, list(cols), {}, mode)
+    fits = [e for e in loop_estimates(M, g.N, level, regular, exceptional, True, mode) if e.fits()]
+    if not fits:
+        return None             # the caller's fallback (one polynomial route) says so
+    best = min(fits, key=lambda e: e.seconds)
+    poly = sum(fixed_estimate(k, g, cols, r)[0] for r in ("Rosso-Jones", "weight-sum"))
+    if best.seconds > POLYNOMIAL_SWITCH_SECONDS and best.seconds > POLYNOMIAL_RATIO * poly:
+        return (f"auto: the exact polynomials at q (estimated {poly:.2g} s; the cheapest Seifert route,"
+                f" {best.route}, {best.seconds:.2g} s)")
+    return None
+
+
+def _polynomial_only(k, g, cols, level, framing, mode, digits, F, pair: str | None = None) -> FiniteLevelValue:
+    """The exact polynomial at ``q = exp(2 pi i/K)``: Rosso-Jones alone when the Seifert routes
+    are too large, or (``pair``: the reason) Rosso-Jones and the weight sum, equal as polynomials."""
+    from knotobs.evaluation.weight_sum import weight_sum
+
     K = level + g.N
     for lam in cols:
         check_integrable(lam, g.N, level)
     fr = _framing_int(framing) if mode == "zero" else "fiber"
-    poly = rosso_jones(k, g, cols, fr if fr == "fiber" else
-                       _reduced_framing(fr, sum((casimir(g, lam) for lam in cols), Fraction(0)), K))
-    exact = polynomial_at_root_of_unity(poly, K)
-    numeric = exact.to_mpc(digits)
+    frame = fr if fr == "fiber" else _reduced_framing(fr, sum((casimir(g, lam) for lam in cols), Fraction(0)), K)
+    poly = rosso_jones(k, g, cols, frame)
+    extra = {}
+    if pair is not None:
+        other = weight_sum(k, g, cols, frame)
+        if other != poly:
+            raise RouteMismatchError(f"Rosso-Jones and the weight sum differ for {k}, {g}, colours {cols}")
+        extra = {"route": "Rosso-Jones = weight-sum (exact polynomials, equal), at q = exp(2 pi i/K)",
+                 "routes": ["Rosso-Jones", "weight-sum"], "agreement": "exactly (equal polynomials in q)",
+                 "route_choice": pair}
+    if pair is not None and K > EXACT_PAIR_K:
+        # the cyclotomic form would have about phi(2K) terms: numeric only (as the Seifert routes
+        # at such levels), with the digits the coefficients can cancel added to the evaluation
+        exact = None
+        spread = max(1, sum(abs(int(c)) for c in poly.terms().values()))
+        numeric = poly.at_root_of_unity(K, dps=digits + 10 + len(str(spread)))
+        with working_precision(digits):
+            numeric = +numeric
+    else:
+        exact = polynomial_at_root_of_unity(poly, K)
+        numeric = exact.to_mpc(digits)
     framing_text = ("zero (Seifert) framing" if fr == 0 else
                     f"{fr} on every component relative to the zero framing" if mode == "zero" else
                     f"fiber framing P*Q = {k.P * k.Q}")
@@ -308,5 +362,5 @@ def _polynomial_only(k, g, cols, level, framing, mode, digits, F) -> FiniteLevel
         orientation=f"S^3 (the fibration {F.manifold})",
         normalisation="Z(M; L)/Z(M) (unknot in S^3 = dim_q)",
         details={"route": "exact polynomial at q = exp(2 pi i/K) only (modular data too large at this level)",
-                 "group": str(g), "level": level},
+                 "group": str(g), "level": level, **extra},
     )

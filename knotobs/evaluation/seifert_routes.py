@@ -442,15 +442,7 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
     M = as_manifold(space)
     N, k = _group_level(group, level)
     regular, exceptional = check_fiber_lines(M, N, k, regular, exceptional, framing)
-    factor = 2 if normalized else 1
-    ests = []
-    s = _surgery_estimate(M, N, k, lines=len(regular) + len(exceptional))
-    if s.applicable and exceptional and framing == "fiber" and not M.is_rational_homology_sphere:
-        s = RouteEstimate("surgery", None, None, "its framing of a core cannot be converted to the"
-                          " fibration framing when H_1 is infinite")
-    ests.append(dataclasses.replace(s, seconds=None if s.seconds is None else s.seconds * factor))
-    loc = _loc_estimate(M, N, k, exceptional, regular, exact)
-    ests.append(dataclasses.replace(loc, seconds=loc.seconds * factor, memory_mb=loc.memory_mb))
+    ests = loop_estimates(M, N, k, regular, exceptional, normalized, framing, exact)
     what = f"Wilson loop in {M}, SU({N}) at level {k}"
 
     def run(r):
@@ -461,6 +453,28 @@ def fiber_wilson_loop(space, level: int, group="SU(2)", regular: Sequence = (),
                                               exact=exact)
 
     return _dispatch(route, LOOP_ROUTES, ests, what, run, digits)
+
+
+def loop_estimates(M, N: int, k: int, regular, exceptional, normalized: bool = True, framing: str = "fiber",
+                   exact: bool | None = None) -> list[RouteEstimate]:
+    """Cost estimates of the surgery and localisation routes for fiber Wilson loops (checked
+    lines, as :func:`fiber_wilson_loop` passes them; normalised values count the partition
+    function too).
+
+    >>> from knotobs.localisation.values import as_manifold
+    >>> [e.route for e in loop_estimates(as_manifold("Sigma(2,3,5)"), 3, 30, [(2, 1)], {})]
+    ['surgery', 'localisation']
+    """
+    factor = 2 if normalized else 1
+    ests = []
+    s = _surgery_estimate(M, N, k, lines=len(regular) + len(exceptional))
+    if s.applicable and exceptional and framing == "fiber" and not M.is_rational_homology_sphere:
+        s = RouteEstimate("surgery", None, None, "its framing of a core cannot be converted to the"
+                          " fibration framing when H_1 is infinite")
+    ests.append(dataclasses.replace(s, seconds=None if s.seconds is None else s.seconds * factor))
+    loc = _loc_estimate(M, N, k, exceptional, regular, exact)
+    ests.append(dataclasses.replace(loc, seconds=loc.seconds * factor, memory_mb=loc.memory_mb))
+    return ests
 
 
 def _fr(f) -> str:

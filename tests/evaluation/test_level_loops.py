@@ -140,3 +140,22 @@ def test_large_level_in_s3_needs_no_modular_data():
         v = level_loop("T(2,3)", 100, "SU(3)", (2, 1), digits=15)
     assert "polynomial" in v.details["route"]
     assert abs(v.numeric - ref) < 1e-13
+
+
+def test_auto_takes_the_exact_polynomials_when_the_seifert_routes_are_slow():
+    # SU(2) at level 10^5 in S^3: localisation is estimated at ~10-20 s, the two exact polynomial
+    # routes (Rosso-Jones and the weight sum, equal as polynomials) at far less; auto takes them.
+    # The value is [2] V(q^-1) with the Jones polynomial of the trefoil V(t) = t + t^3 - t^4
+    # (V. Jones, Ann. of Math. 126 (1987) 335-388; the chirality is the library's, CONVENTIONS §3)
+    import mpmath
+
+    v = level_loop("T(2,3)", 100000, "SU(2)", (1,), digits=25)
+    assert v.details["routes"] == ["Rosso-Jones", "weight-sum"]
+    assert v.details["agreement"].startswith("exactly") and "estimated" in v.details["route_choice"]
+    with mpmath.workdps(40):
+        t = mpmath.expjpi(-2 / mpmath.mpf(100002))
+        want = (mpmath.sqrt(t) + 1 / mpmath.sqrt(t)) * (t + t ** 3 - t ** 4)
+        assert abs(v.numeric - want) < 1e-24
+    # a cheap Seifert route is still taken (and checked against the polynomial)
+    w = level_loop("T(2,3)", 30, "SU(3)", (2, 1), digits=20)
+    assert w.details["routes"] != ["Rosso-Jones", "weight-sum"] and w.details["polynomial_check"] < 1e-15
