@@ -5,7 +5,8 @@ included), and at integer K the continued value beside the two finite-level rout
 (localisation and surgery).  Sigma(2,3,5) for SU(3) has poles (three exceptional orders: the
 residue formula of docs/continuation_sun.md §18.7: its exact residues once per process, then about 0.35-0.55 s per value on two cores); its CLI row runs the
 first 5 of the 20 levels and also prints the time per process.  A third table times one value on
-spaces with shared orders and with base genus >= 1 (§18.8, §18.9).
+spaces with shared orders and with base genus >= 1 (§18.8, §18.9), a fourth one value on spaces
+with e = 0 and exceptional fibers through the CLI (§18.11).
 """
 
 from __future__ import annotations
@@ -74,6 +75,21 @@ def main() -> None:
         except KnotobsError as exc:
             n = "refused: " + str(exc)[:60]
         print(f"{space:<44} {time.perf_counter() - t:8.2f}  {n:>7}  {what}")
+    print()
+    print("e = 0 with exceptional fibers (quasi-polynomial in K, §18.11): one value at level 2.5+0.2i,")
+    print("20 digits, in a fresh process through the CLI (start-up and the finite levels included)")
+    print(f"{'case':<44} {'group':>6} {'cli':>8}  {'levels':>6}  status")
+    for space, group in (("M(0; -1; (2,1), (4,1), (4,1))", "SU(2)"), ("M(0; -1; (3,1), (3,1), (3,1))", "SU(3)"),
+                         ("M(0; -1; (2,1), (3,1), (6,1))", "SU(3)"), ("M(1; 0; (2,1), (2,-1))", "SU(3)"),
+                         ("M(0; -1; (2,1), (4,1), (4,1))", "SU(4)"), ("M(0; -1; (2,1), (3,1), (6,1))", "SU(4)")):
+        from knotobs.continuation.cartan.quasipolynomial import quasi_polynomial_data
+
+        n = len(quasi_polynomial_data(space, int(group[3:-1])).levels)
+        t = time.perf_counter()
+        r = subprocess.run([sys.executable, "-m", "knotobs", "--max-seconds", "120", "continue", space, "--group",
+                            group, "--level", "2.5+0.2i", "-d", "20"], capture_output=True, text=True)
+        status = "ok" if r.returncode == 0 else (r.stdout + r.stderr).strip().splitlines()[-1][:70]
+        print(f"{space:<44} {group:>6} {time.perf_counter() - t:7.2f}s  {n:>6}  {status}")
     print()
     print("integer K: continued value vs the finite-level routes (20 digits)")
     print(f"{'case':<22} {'k':>3}  {'continued':>48}  {'localisation':>48}  {'surgery':>48}  agree")
