@@ -148,3 +148,18 @@ def test_a_wrong_degree_bound_is_caught(monkeypatch):
     monkeypatch.setattr(qp, "quasi_polynomial_data", low)
     with pytest.raises(KnotobsError, match="not a polynomial of degree <= 0"):
         _Z("M(0; -2; (2,1), (2,1), (2,1), (2,1))", 2, "5.5+0.1i", 15)
+
+
+def test_level_plane_plot_of_su_n_and_of_e_zero():
+    # the figure's data are the continued values themselves (SU(3) on a lens space by the Gaussian
+    # integrals of docs 18.2; SU(2) on an e = 0 bundle by the quasi-polynomial), and integer K on
+    # the real axis are labelled from K = N
+    from knotobs.output.plots import plot_level_plane
+
+    for space, group in (("L(5,1)", "SU(3)"), ("M(0; -1; (2,1), (4,1), (4,1))", "SU(2)")):
+        fig = plot_level_plane(space, None, (3.0, 6.0), (-0.5, 0.5), n=2, digits=12, group=group)
+        N = int(group[3:-1])
+        assert fig.data["group"] == group and fig.data["integer_K"][0] == max(3, N)
+        z = continued_sun_partition_function(space, group, K=mpmath.mpc(6.0, 0.5), digits=12).numeric
+        re_, im_ = fig.data["Z"][1][1]
+        assert abs(complex(re_, im_) - complex(z)) < 1e-10

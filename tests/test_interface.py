@@ -271,6 +271,7 @@ CASES = [
     ("plot", "--rep", None, ["plot", "zeros", "T(2,3)", "--json", "-r", "[2]"], "refused"),
     ("plot", "--group", ["plot", "wilson-level", "T(2,3)", "--json", "--kmax", "3"], ["plot", "wilson-level", "T(2,3)", "--json", "--kmax", "3", "-g", "SU(3)"], "changes"),
     ("plot", "--group", None, ["plot", "zeros", "T(2,3)", "--json", "-g", "SU(3)"], "refused"),
+    ("plot", "--group", ["plot", "level-plane", "L(5,1)", "--json", "--n", "2"], ["plot", "level-plane", "L(5,1)", "--json", "--n", "2", "-g", "SU(3)"], "changes"),
     ("plot", "--framing", ["plot", "wilson-level", "T(2,3)", "--json", "--kmax", "3"], ["plot", "wilson-level", "T(2,3)", "--json", "--kmax", "3", "-f", "1"], "changes"),
     ("plot", "--framing", None, ["plot", "zeros", "T(2,3)", "--json", "-f", "1"], "refused"),
     ("plot", "--normalized", ["plot", "wilson-level", "T(2,3)", "--json", "--kmax", "3"], ["plot", "wilson-level", "T(2,3)", "--json", "--kmax", "3", "--normalized"], "changes"),

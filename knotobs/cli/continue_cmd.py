@@ -156,7 +156,7 @@ _PLOT_KINDS = ("level-plane", "asymptotics", "zeros", "wilson-level", "borel")
 #: options of ``plot`` and the kinds they apply to
 _PLOT_OPTIONS = {"--re": ("level-plane",), "--im": ("level-plane",), "--n": ("level-plane",),
                  "--progress": ("level-plane",), "--kmax": ("asymptotics", "wilson-level"),
-                 "--color": ("zeros", "wilson-level"), "--rep": ("wilson-level",), "--group": ("wilson-level",),
+                 "--color": ("zeros", "wilson-level"), "--rep": ("wilson-level",), "--group": ("wilson-level", "level-plane"),
                  "--framing": ("wilson-level",), "--normalized": ("wilson-level",)}
 
 
@@ -172,7 +172,7 @@ def plot(
     kmax: Optional[int] = typer.Option(None, "--kmax", help="asymptotics: largest K (default 200); wilson-level: largest k (default 40)."),
     color: Optional[int] = typer.Option(None, "--color", "-c", help="zeros: colored Jones J_n; wilson-level: SU(2) n-dimensional irrep."),
     rep: Optional[str] = typer.Option(None, "--rep", "-r", help="wilson-level: partition (default [1])."),
-    group: Optional[str] = typer.Option(None, "--group", "-g", help="wilson-level: SU(N) (default SU(2))."),
+    group: Optional[str] = typer.Option(None, "--group", "-g", help="wilson-level, level-plane: SU(N) (default SU(2))."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="wilson-level: integer framing (default 0) or fiber."),
     normalized: Optional[bool] = typer.Option(None, "--normalized/--unnormalized", help="wilson-level: divide by the unknot (default unnormalized)."),
     progress: Optional[bool] = typer.Option(None, "--progress/--no-progress", help="level-plane: progress bar on stderr (default: when it is a terminal)."),
@@ -199,7 +199,7 @@ def plot(
     if k == "level-plane":
         fig = plots.plot_level_plane(target, output, _inputs.float_range(re_range or "3,12", "--re"),
                                      _inputs.float_range(im_range or "-1,1", "--im"),
-                                     n=24 if n is None else n, progress=progress)
+                                     n=24 if n is None else n, progress=progress, group=group or "SU(2)")
     elif k == "asymptotics":
         if kmax is not None:
             _inputs.int_at_least(kmax, 4, "--kmax", "every integer K from 3 is sampled and the plot needs two levels")

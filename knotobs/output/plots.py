@@ -170,11 +170,13 @@ _SPACE_PROFILE = "SU(2), color: none (no Wilson line); canonical 2-framing; norm
 
 
 def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0), n=24, digits=12,
-                     smooth: int = 6, progress: Optional[bool] = None) -> Figure:
+                     smooth: int = 6, progress: Optional[bool] = None, group: str = "SU(2)") -> Figure:
     """Modulus (log scale) and phase of ``Z(K)`` over ``re_range x im_range`` in the ``K`` plane.
 
     ``Z`` is computed on an ``n x n`` grid and drawn after bicubic upsampling by ``smooth``;
     integer points on the real axis (the finite levels) are marked and named in a legend.
+    ``group``: ``SU(N)``; SU(2) uses the Lawrence–Rozansky continuation (docs §9), SU(N) and the
+    spaces with ``e = 0`` that of docs/continuation_sun.md (§18).
 
     >>> import tempfile, os
     >>> f = os.path.join(tempfile.mkdtemp(), "z.png")
@@ -187,21 +189,41 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
     """
     import numpy as np
 
-    from knotobs.continuation.level import continued_partition_function
+    from knotobs.continuation.cartan.quasipolynomial import has_zero_euler
+    from knotobs.fibrations.seifert import parse_space
+    from knotobs.representations.groups import parse_group
 
     p = _out(out)
     if n < 2 or n > 400:
         raise PlotError(f"--n {n}: the grid size must be between 2 and 400")
     re_range = _range(re_range, "--re")
     im_range = _range(im_range, "--im")
-    from knotobs.continuation.level import LRData, continuation_cost
     from knotobs.guard import require
 
-    d = LRData.from_space(space)
+    g = parse_group(group)
+    if g.kind != "SU":
+        raise PlotError(f"--group {group}: the continuation in the level is computed for SU(N)")
+    N = g.N
     corner = mpmath.mpc(max(abs(re_range[0]), abs(re_range[1])), max(abs(im_range[0]), abs(im_range[1])))
-    one, mem, _ = continuation_cost(d, corner, digits)
-    require(f"plot level-plane of {space}: {n} x {n} continued values to {digits} digits", seconds=one * n * n,
-            memory_mb=mem, accepted=f"use a smaller grid (--n below {n}) or a smaller range")
+    if N == 2 and not has_zero_euler(parse_space(space)):
+        from knotobs.continuation.level import LRData, continuation_cost
+
+        once, (one, mem, _) = 0.0, continuation_cost(LRData.from_space(space), corner, digits)
+
+        def continued(K):
+            from knotobs.continuation.level import continued_partition_function
+
+            return continued_partition_function(space, K=K, digits=digits).numeric
+    else:
+        from knotobs.continuation.cartan.value import continued_sun_partition_function, continued_sun_seconds
+
+        once, one, mem = continued_sun_seconds(space, str(g), corner, digits)
+
+        def continued(K):
+            return continued_sun_partition_function(space, str(g), K=K, digits=digits).numeric
+    require(f"plot level-plane of {space}, {g}: {n} x {n} continued values to {digits} digits",
+            seconds=once + one * n * n, memory_mb=mem,
+            accepted=f"use a smaller grid (--n below {n}) or a smaller range")
     show = sys.stderr.isatty() if progress is None else progress
     step = _progress(n * n, show)
     xs = np.linspace(*re_range, n)
@@ -213,14 +235,14 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
     arg = np.zeros((n, n))
     for i, y in enumerate(ys):
         for j, x in enumerate(xs):
-            z = continued_partition_function(space, K=mpmath.mpc(float(x), float(y)), digits=digits).numeric
+            z = continued(mpmath.mpc(float(x), float(y)))
             Z[i, j] = complex(z) if abs(z) < 1e300 else complex("nan")
             logabs[i, j] = float(mpmath.log10(abs(z))) if z != 0 else -digits
             arg[i, j] = float(mpmath.arg(z))
             step(i * n + j + 1)
-    ints = [k for k in range(int(np.ceil(re_range[0])), int(np.floor(re_range[1])) + 1) if k >= 2]
+    ints = [k for k in range(int(np.ceil(re_range[0])), int(np.floor(re_range[1])) + 1) if k >= N]
     finite = bool(np.isfinite(Z).all())
-    data = {"space": str(space), "profile": _SPACE_PROFILE, "re": xs.tolist(), "im": ys.tolist(),
+    data = {"space": str(space), "group": str(g), "profile": _SPACE_PROFILE, "re": xs.tolist(), "im": ys.tolist(),
             "Z": [[[z.real, z.imag] if np.isfinite(z) else None for z in row] for row in Z],
             "log10_abs_Z": logabs.tolist(), "arg_Z": arg.tolist(), "integer_K": ints}
     if p is None:
@@ -241,11 +263,11 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
     fig.colorbar(im1, ax=axes[1], label=r"$\arg Z(K)$")
     for ax, title in zip(axes, ("modulus", "phase")):
         if im_range[0] <= 0 <= im_range[1] and ints:
-            ax.plot(ints, [0] * len(ints), "wo", ms=4, mec="k", label="integer K: finite level k = K - 2")
+            ax.plot(ints, [0] * len(ints), "wo", ms=4, mec="k", label=f"integer K: finite level k = K - {N}")
             ax.legend(loc="upper right", fontsize=8)
         ax.set_xlabel(r"Re $K$")
         ax.set_ylabel(r"Im $K$")
-        ax.set_title(f"$Z(K)$ of {space}: {title}")
+        ax.set_title(f"{g} $Z(K)$ of {space}: {title}")
     fig.suptitle(_SPACE_PROFILE, fontsize=9)
     _save(fig, p, plt)
     return Figure(p, "level-plane", data)

@@ -40,7 +40,7 @@ from knotobs.precision import certified_parts, check_digits
 from knotobs.representations.groups import parse_group
 
 __all__ = ["CartanContinuedValue", "continued_sun_partition_function", "continued_sun_Z",
-           "continued_sun_sectors", "continuation_sun_cost", "METHODS"]
+           "continued_sun_sectors", "continuation_sun_cost", "continued_sun_seconds", "METHODS"]
 
 #: ``closed``: the Gaussian integrals in closed form; ``quadrature``: the trapezoid rule on the
 #: rotated Cartan; ``both``: both, compared to the requested digits (spaces without poles);
@@ -472,6 +472,35 @@ def _zero_euler(space, group, level, K, digits, phases, method):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
     return CartanContinuedValue(total, digits, Kv, N, str(M), sectors, "quasi-polynomial", tuple(notes),
                                 frozenset())
+
+
+def continued_sun_seconds(space, group, K, digits: int = 20) -> tuple[float, float, float]:
+    """``(once, per_value, megabytes)``: estimated seconds of the work done once per space (the
+    finite levels of a Verlinde or quasi-polynomial) and of one continued value at ``K`` (the
+    residue route counts its exact pieces in every value: an upper estimate), before any work.
+
+    >>> once, each, mb = continued_sun_seconds("L(5,1)", "SU(3)", mpmath.mpc(7.5, 0.3), 20)
+    >>> once == 0 and each < 1
+    True
+    """
+    from knotobs.continuation.cartan import quasipolynomial as qp
+    from knotobs.continuation.cartan.verlinde import is_circle_product
+    from knotobs.fibrations.seifert import SeifertManifold, parse_space
+
+    M = space if isinstance(space, SeifertManifold) else parse_space(space)
+    N = _group_N(group)
+    Kv = mpmath.mpc(K)
+    if qp.has_zero_euler(M):
+        if is_circle_product(M):
+            return 2.0, 0.01, 10.0       # the Verlinde numbers at d + 3 levels (refused by size otherwise)
+        return qp.quasi_polynomial_seconds(qp.quasi_polynomial_data(M, N))[0], 0.02, 10.0
+    d = CartanData.from_space(M, N)
+    _covered(d)
+    method = _method(d, "auto")
+    if method == "residues":
+        pole_domain(d.H, complex(Kv))
+    sec, mb, _ = continuation_sun_cost(d, Kv, check_digits(digits), method)
+    return 0.0, sec, mb
 
 
 def continued_sun_Z(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> mpmath.mpc:
