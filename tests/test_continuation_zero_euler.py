@@ -163,3 +163,12 @@ def test_level_plane_plot_of_su_n_and_of_e_zero():
         z = continued_sun_partition_function(space, group, K=mpmath.mpc(6.0, 0.5), digits=12).numeric
         re_, im_ = fig.data["Z"][1][1]
         assert abs(complex(re_, im_) - complex(z)) < 1e-10
+
+
+def test_reversed_orientation_is_the_conjugate():
+    # Z(-M) = conj Z(M) at every level (common practice: reversing the orientation conjugates the
+    # partition function); the least-type continuations then satisfy Z_{-M}(K) = conj Z_M(conj K).
+    # -M(0; -1; (3,1)^3) = M(0; -2; (3,2)^3)
+    a = _Z("M(0; -1; (3,1), (3,1), (3,1))", 3, "5.5+0.2i", 20).numeric
+    b = _Z("M(0; -2; (3,2), (3,2), (3,2))", 3, "5.5-0.2i", 20).numeric
+    assert abs(a - mpmath.conj(b)) < 1e-19
