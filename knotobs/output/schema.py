@@ -235,7 +235,7 @@ SCHEMAS: dict[str, dict] = {
         "type": "object",
         "properties": {
             "kind": {"type": "string", "enum": ["identification"]},
-            "target": _STR, "invariant": _STR, "bounds": {"type": "object"}, "tried": _INT,
+            "target": _STR, "invariant": _STR, "bounds": {"type": "object"}, "tried": _INT, "compared": _INT,
             "candidates": {"type": "array", "items": {
                 "type": "object",
                 "properties": {"knot": _STR, "representation": {"type": "array", "items": _PARTITION},

@@ -67,14 +67,15 @@ class Identification(NotebookMixin):
 
     def to_json(self) -> dict[str, Any]:
         return {"kind": "identification", "target": self.target, "invariant": self.invariant,
-                "bounds": self.bounds, "tried": self.tried,
+                "bounds": self.bounds, "tried": self.tried, "compared": self.tried - len(self.skipped),
                 "skipped_over_limits": [{"knot": k, "representation": list(lam)} for k, lam in self.skipped],
                 "candidates": [c.to_json() for c in self.candidates]}
 
     def describe(self) -> str:
         head = (f"identify {self.target}\n  searched T(P,Q), 2 <= P <= {self.bounds['max_p']}, P <= Q <= "
                 f"{self.bounds['max_q']}, colours up to {self.bounds['max_colour']} boxes"
-                f"{', links included' if self.bounds['links'] else ''} ({self.tried} tried)")
+                f"{', links included' if self.bounds['links'] else ''} ({self.tried - len(self.skipped)} compared"
+                f"{f', {len(self.skipped)} over the size limits' if self.skipped else ''})")
         lines = [head]
         if self.skipped:
             shown = ", ".join(f"{k} {_colours_text((lam,))}" for k, lam in self.skipped[:4])
