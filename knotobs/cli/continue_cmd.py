@@ -61,7 +61,7 @@ def continue_(
     level: Optional[str] = typer.Option(None, "--level", "-k", help="Complex level k, e.g. 7.5+0.3i (K = k + N)."),
     K: Optional[str] = typer.Option(None, "--K", help="Complex shifted level K instead of --level."),
     couplings: Optional[str] = typer.Option(None, "--couplings", help="SL(N,C) couplings t,tt, e.g. 10+2i,10-2i."),
-    group: Optional[str] = typer.Option(None, "--group", "-g", help="SU(N) at complex level (default SU(2); SU(3): every Seifert rational homology sphere within the size limits; SU(N), N >= 4: lens spaces; S^1 x Sigma_g: every SU(N)); SL(N,C) with --couplings (default SL(2,C))."),
+    group: Optional[str] = typer.Option(None, "--group", "-g", help="SU(N) at complex level (default SU(2); SU(3): every Seifert rational homology sphere within the size limits; SU(N), N >= 4: lens spaces; e = 0 (S^1 x Sigma_g, torus bundles, ...): every SU(N)); SL(N,C) with --couplings (default SL(2,C))."),
     rep: Optional[str] = typer.Option(None, "--rep", "-r", help="With --couplings and a knot: [lam];[lamt] (default [1];[])."),
     digits: int = typer.Option(30, "--digits", "-d", help="Correct digits (1 to 2000)."),
     phases: Optional[str] = typer.Option(None, "--phases", help="Complex level: reduced (default; CS values in (-1/2,1/2]) or lawrence-rozansky."),
