@@ -315,7 +315,10 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     Parameters
     ----------
     space : str or SeifertManifold
-        ``H != 0``.  Base genus 0 with at most two exceptional orders ``> 1`` (``"L(5,1)"``,
+        ``H = 0`` (``e = 0``): every space, as a polynomial (``S^1 x Sigma_g``, §18.10) or a
+        quasi-polynomial in ``K`` (torus bundles and other spaces with exceptional fibers,
+        §18.11), for every SU(N) within the size limits.
+        ``H != 0``: base genus 0 with at most two exceptional orders ``> 1`` (``"L(5,1)"``,
         ``"L(7,2)"``, ``"M(0; 1; (2,1), (3,1))"``, ``"S^3"``); for SU(3) also three or more
         (``"Sigma(2,3,5)"``, §18.7; sharing a factor, ``"M(0; -1; (2,1), (4,1), (6,1))"``, §18.8)
         and base genus ``g >= 1`` (``"M(1; -1; (2,1), (3,1))"``, ``"M(2; -1)"``, §18.9).
@@ -331,7 +334,7 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     method : ``"auto"`` (default), ``"closed"``, ``"quadrature"``, ``"both"`` or ``"residues"``
         Without poles: closed-form Gaussians, the trapezoid rule on the rotated Cartan, or both
         compared (``auto`` = ``closed``); with poles (SU(3), three orders): the two-family
-        residue formula of §18.7 (``auto`` = ``residues``).
+        residue formula of §18.7 (``auto`` = ``residues``); ``H = 0``: ``auto`` only.
 
     Returns
     -------
@@ -347,6 +350,9 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
     >>> w = continued_sun_partition_function("L(5,1)", "SU(3)", level="7.5+0.3i", digits=15)
     >>> sorted(str(c) for c in w.sectors)
     ['0', '1/5', '2/5', '3/5', '4/5']
+    >>> b = continued_sun_partition_function("M(0; -2; (2,1), (2,1), (2,1), (2,1))", "SU(2)", K="4.5+0.1i", digits=15)
+    >>> mpmath.nstr(b.numeric, 6), b.method                 # Tr C = k + 1 = K - 1 on this torus bundle
+    ('(3.5 + 0.1j)', 'quasi-polynomial')
 
     References
     ----------
