@@ -173,3 +173,17 @@ def test_reversed_orientation_is_the_conjugate():
     b = _Z("M(0; -2; (3,2), (3,2), (3,2))", 3, "5.5-0.2i", 20).numeric
     with mpmath.workdps(30):
         assert abs(a - mpmath.conj(b)) < 1e-19
+
+
+def test_both_finite_routes_give_the_same_continuation():
+    # method 'both' (CLI --route both) interpolates the quasi-polynomial a second time, through the
+    # surgery route's finite values (modular data, independent of the localisation sum)
+    z = continued_sun_partition_function("M(0; -1; (2,1), (3,1), (6,1))", "SU(3)", level="2.5+0.2i", digits=20,
+                                         method="both")
+    assert any("surgery route: agree to 20 digits" in n for n in z.notes)
+    r = subprocess.run([sys.executable, "-m", "knotobs", "continue", "M(0; -1; (2,1), (4,1), (4,1))", "--level",
+                        "2.5+0.2i", "-d", "15", "--route", "both"], capture_output=True, text=True, timeout=120)
+    assert r.returncode == 0 and "surgery route: agree to 15 digits" in r.stdout, r.stdout + r.stderr
+    bad = subprocess.run([sys.executable, "-m", "knotobs", "continue", "L(5,1)", "--level", "2.5+0.2i", "--route",
+                          "both"], capture_output=True, text=True, timeout=120)
+    assert bad.returncode == 2 and "error: --route" in bad.stdout + bad.stderr, bad.stdout + bad.stderr

@@ -238,6 +238,8 @@ CASES = [
     ("continue", "--group", ["continue", "L(5,1)", "-k", "3.5", "-d", "10"], ["continue", "L(5,1)", "-k", "3.5", "-d", "10", "-g", "SU(3)"], "changes"),
     ("continue", "--group", None, ["continue", "L(5,1)", "-k", "3.5", "-g", "SO(3)"], "refused"),
     ("continue", "--K", ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "10", "--json"], ["continue", "L(5,1)", "-g", "SU(3)", "--K", "6.5", "-d", "10", "--json"], "same-numeric"),
+    ("continue", "--route", ["continue", "M(0; -1; (2,1), (4,1), (4,1))", "-k", "3.5", "-d", "10"], ["continue", "M(0; -1; (2,1), (4,1), (4,1))", "-k", "3.5", "-d", "10", "--route", "both"], "changes"),
+    ("continue", "--route", None, ["continue", "L(5,1)", "-k", "3.5", "--route", "both"], "refused"),
     ("continue", "--phases", ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "10"], ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "10", "--phases", "lawrence-rozansky"], "changes"),
     ("continue", "--digits", ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "10"], ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "12"], "changes"),
     ("continue", "--json", ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "10"], ["continue", "L(5,1)", "-g", "SU(3)", "-k", "3.5", "-d", "10", "--json"], "changes"),

@@ -65,6 +65,7 @@ def continue_(
     rep: Optional[str] = typer.Option(None, "--rep", "-r", help="With --couplings and a knot: [lam];[lamt] (default [1];[])."),
     digits: int = typer.Option(30, "--digits", "-d", help="Correct digits (1 to 2000)."),
     phases: Optional[str] = typer.Option(None, "--phases", help="Complex level: reduced (default; CS values in (-1/2,1/2]) or lawrence-rozansky."),
+    route: Optional[str] = typer.Option(None, "--route", help="SU(N) and e = 0: auto (default), closed, quadrature, residues or both (two methods compared; e = 0: interpolated from the localisation and from the surgery route)."),
     old_N: Optional[int] = typer.Option(None, "--N", hidden=True),
     as_json: bool = typer.Option(False, "--json", help="Print one JSON object."),
 ) -> None:
@@ -74,7 +75,7 @@ def continue_(
     digits = _inputs.digits(digits)
     is_knot = target.strip().upper().startswith("T(")
     if couplings is not None:
-        for opt, val in (("--level", level), ("--K", K), ("--phases", phases)):
+        for opt, val in (("--level", level), ("--K", K), ("--phases", phases), ("--route", route)):
             if val is not None:
                 refuse(opt, "does not apply with --couplings (the couplings t, tt set both levels)")
         import re
@@ -134,9 +135,14 @@ def continue_(
         from knotobs.output.continuation_text import continued_text
 
         ph = phases or "reduced"
-        res = continued_sun_partition_function(target, f"SU({sun})", level, K=K, digits=digits, phases=ph)
+        res = continued_sun_partition_function(target, f"SU({sun})", level, K=K, digits=digits, phases=ph,
+                                               method=route or "auto")
         emit(res.to_json, lambda: continued_text(res, ph), as_json)
         return
+    if route not in (None, "auto"):
+        refuse("--route", f"{route}: the SU(2) continuation of a space with e != 0 has one method (the"
+                          " Lawrence-Rozansky integral plus residues, docs §9); --route chooses among the"
+                          " SU(N) methods (--group 'SU(N)') and for e = 0")
     from knotobs.continuation.level import continued_partition_function
     from knotobs.output.continuation_text import continued_text
 

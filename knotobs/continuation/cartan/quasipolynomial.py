@@ -43,7 +43,7 @@ from flint import acb, arb
 from knotobs.errors import KnotobsError, PrecisionError
 from knotobs.numerics import working_precision
 
-__all__ = ["has_zero_euler", "QuasiPolynomialData", "quasi_polynomial_data", "quasi_polynomial_levels",
+__all__ = ["has_zero_euler", "FINITE_ROUTES", "QuasiPolynomialData", "quasi_polynomial_data", "quasi_polynomial_levels",
            "quasi_polynomial_sectors", "quasi_polynomial_seconds"]
 
 
@@ -113,26 +113,41 @@ def quasi_polynomial_data(space, N: int) -> QuasiPolynomialData:
     return QuasiPolynomialData(str(M), N, L, d, phi, Fraction(N * (N * N - 1), 12))
 
 
-def quasi_polynomial_seconds(q: QuasiPolynomialData) -> tuple[float, str]:
+#: The finite routes the values can be interpolated from.
+FINITE_ROUTES = ("localisation", "surgery")
+
+
+def quasi_polynomial_seconds(q: QuasiPolynomialData, route: str = "localisation") -> tuple[float, str]:
     """Estimated seconds of the finite values (computed once per space and precision) and a description of the work."""
     from knotobs.fibrations.seifert import parse_space
-    from knotobs.localisation.values import _sum, localisation_seconds
-
     from knotobs.paired_runs import second_core
 
     M = parse_space(q.space)
-    sec = sum(localisation_seconds(_sum(M, q.N, k))[0] for k in q.levels)
+    if route == "surgery":
+        from knotobs.evaluation.seifert_routes import _surgery_estimate
+
+        ests = [_surgery_estimate(M, q.N, k) for k in q.levels]
+        bad = next((e for e in ests if not e.applicable), None)
+        if bad is not None:
+            raise KnotobsError(f"the surgery route does not apply to {q.space}: {bad.reason}")
+        sec = sum(e.seconds for e in ests)
+    else:
+        from knotobs.localisation.values import _sum, localisation_seconds
+
+        sec = sum(localisation_seconds(_sum(M, q.N, k))[0] for k in q.levels)
     if sec > 0.5 and second_core():
         sec *= 0.65         # half the levels on each core, each about 30% slower beside the other
     return sec + 0.05, (f"{len(q.levels)} finite levels k = 1..{q.levels[-1]} of SU({q.N}) on {q.space}"
-                            f" (period {q.period} in K, degree <= {q.degree})")
+                            f" by the {route} route (period {q.period} in K, degree <= {q.degree})")
 
 
 @lru_cache(maxsize=32)
-def quasi_polynomial_levels(space: str, N: int, digits: int) -> tuple[tuple[int, str, str], ...]:
+def quasi_polynomial_levels(space: str, N: int, digits: int,
+                            route: str = "localisation") -> tuple[tuple[int, str, str], ...]:
     """``(K, Re F, Im F)`` at every level of :attr:`QuasiPolynomialData.levels`, ``digits`` certified
-    digits (strings, so the cache holds no precision-dependent objects)."""
-    from knotobs.localisation import localisation_partition_function
+    digits, from the finite ``route`` (``localisation`` or ``surgery``; strings, so the cache
+    holds no precision-dependent objects)."""
+    from knotobs.evaluation.seifert_routes import partition_function
     from knotobs.paired_runs import run_both
 
     q = quasi_polynomial_data(space, N)
@@ -141,7 +156,7 @@ def quasi_polynomial_levels(space: str, N: int, digits: int) -> tuple[tuple[int,
         out = []
         for k in q.levels[i::2]:
             K = k + N
-            z = localisation_partition_function(space, f"SU({N})", k, digits=digits, exact=False).numeric
+            z = partition_function(space, f"SU({N})", k, digits=digits, exact=False, route=route).numeric
             with working_precision(digits + 10):
                 ph = (q.rho2 * q.phi).numerator / mpmath.mpf((q.rho2 * q.phi).denominator)
                 f = mpmath.mpc(z) * mpmath.expj(mpmath.pi * ph / K)
@@ -150,7 +165,7 @@ def quasi_polynomial_levels(space: str, N: int, digits: int) -> tuple[tuple[int,
 
     # every other level on a second core when there is one (the cost grows with the level, so
     # alternate levels balance the halves); the values are the same either way
-    big = quasi_polynomial_seconds(q)[0] > 0.35
+    big = quasi_polynomial_seconds(q, route)[0] > 0.35
     a, b = run_both(part, 0, 1, parallel=None if big else False)
     return tuple(sorted(a + b))
 
@@ -159,11 +174,11 @@ def _ball(s: str, rad) -> arb:
     return arb(s, rad)
 
 
-def _class_tables(q: QuasiPolynomialData, digits: int):
+def _class_tables(q: QuasiPolynomialData, digits: int, route: str = "localisation"):
     """Per residue class ``c`` of ``K`` mod ``L``: the nodes and Newton divided differences of the
     polynomial through its first ``d + 1`` values; the remaining two values of the class are
     checked against it.  Runs at the current precision."""
-    table = quasi_polynomial_levels(q.space, q.N, digits)
+    table = quasi_polynomial_levels(q.space, q.N, digits, route)
     L, d = q.period, q.degree
     err = arb(10) ** (-digits)
     classes = []
@@ -194,13 +209,14 @@ def _newton(xs, dd, K: acb) -> acb:
     return out
 
 
-def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int) -> dict[Fraction, acb]:
+def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int,
+                             route: str = "localisation") -> dict[Fraction, acb]:
     """``{j/L mod 1: exp(-i pi |rho|^2 phi/K) exp(2 pi i K j'/L) Q_j(K)}`` (``j'`` the representative
     of ``j`` in ``(-L/2, L/2]``) from finite values with ``digits`` certified digits, at the current
     precision.  Sectors with ``Q_j = 0`` (zero at ``d + 1`` points, to the radius of the balls) are
     left out.
     """
-    classes = _class_tables(q, digits)
+    classes = _class_tables(q, digits, route)
     L, d = q.period, q.degree
     zeta = [acb.exp_pi_i(acb(2 * j) / L) for j in range(L)]
     # Q_j(K) = (1/L) sum_c zeta^(-j c) P_c(K), c the residue of K mod L on which P_c holds

@@ -87,10 +87,10 @@ def _method(d: CartanData, method: str) -> str:
     if method == "auto":
         return "closed" if d.entire else "residues"
     if d.entire and method == "residues":
-        raise DomainError(f"method = 'residues': {d.space} has at most two exceptional orders > 1, so the"
+        raise DomainError(f"method = 'residues' (--route): {d.space} has at most two exceptional orders > 1, so the"
                           " integrand has no poles; use 'closed', 'quadrature', 'both' or 'auto'")
     if not d.entire and method != "residues":
-        raise DomainError(f"method = {method!r}: {d.space} has {len(d.big_orders)} exceptional orders > 1,"
+        raise DomainError(f"method = {method!r} (--route): {d.space} has {len(d.big_orders)} exceptional orders > 1,"
                           " so the integrand has poles and the value is the residue formula of"
                           " docs/continuation_sun.md §18.7; use 'residues' or 'auto'")
     return method
@@ -145,7 +145,7 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
 
             raise SizeLimitError(
                 f"{where}: the trapezoid rule needs {nodes} nodes (at most {MAX_NODES}; rank {d.r},"
-                f" |H| = {abs(d.H)}); use method='closed', fewer digits or a smaller |H|"
+                f" |H| = {abs(d.H)}); use method='closed' (--route closed), fewer digits or a smaller |H|"
             )
         sec += ball_seconds(2 * nodes * (d.npos + 2), digits + 12) / 3.0
         what += f", {nodes} trapezoid nodes"
@@ -157,7 +157,7 @@ def _prepare(space, group, level, K, digits, phases, method):
     if phases not in PHASES:
         raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
     if method not in METHODS:
-        raise DomainError(f"method = {method!r}: use one of {', '.join(METHODS)}")
+        raise DomainError(f"method = {method!r} (--route): use one of {', '.join(METHODS)}")
     digits = check_digits(digits)
     N = _group_N(group)
     d = CartanData.from_space(space, N)
@@ -406,7 +406,7 @@ def _circle_product(space, group, level, K, digits, phases, method):
     if phases not in PHASES:
         raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
     if method not in ("auto", "closed"):
-        raise DomainError(f"method = {method!r}: {M} is S^1 x Sigma_{M.genus}, whose partition function is"
+        raise DomainError(f"method = {method!r} (--route): {M} is S^1 x Sigma_{M.genus}, whose partition function is"
                           " the Verlinde polynomial in K; use 'auto'")
     digits = check_digits(digits)
     N = _group_N(group)
@@ -440,16 +440,19 @@ def _zero_euler(space, group, level, K, digits, phases, method):
         raise DomainError(f"phases = {phases!r} (--phases): {M} has e = 0, so there is no Lawrence-Rozansky phase"
                           " cs(u) = P|u|^2/(2H); its sectors exp(2 pi i K j/L) are reduced (j/L in (-1/2, 1/2]);"
                           " use phases='reduced'")
-    if method != "auto":
-        raise DomainError(f"method = {method!r}: {M} has e = 0; its value is the quasi-polynomial in K of"
-                          " docs/continuation_sun.md 18.11; use 'auto'")
+    if method not in ("auto", "both"):
+        raise DomainError(f"method = {method!r} (--route): {M} has e = 0; its value is the quasi-polynomial in K of"
+                          " docs/continuation_sun.md 18.11, interpolated from the localisation route ('auto')"
+                          " or from it and from the surgery route, compared ('both')")
     digits = check_digits(digits)
     N = _group_N(group)
     Kv = resolve_K(level, K, N)
     q = qp.quasi_polynomial_data(M, N)
-    sec, what = qp.quasi_polynomial_seconds(q)
-    require(f"continued SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 12)}: {what}", seconds=sec,
-            accepted="use a smaller N, fewer exceptional fibers or a lower base genus")
+    routes = ("localisation", "surgery") if method == "both" else ("localisation",)
+    for route in routes:
+        sec, what = qp.quasi_polynomial_seconds(q, route)
+        require(f"continued SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 12)}: {what}", seconds=sec,
+                accepted="use a smaller N, fewer exceptional fibers or a lower base genus")
     guard = qp.guard_digits(q, Kv)
     # the finite values carry no discretisation: both runs share them at the finer run's digits
     # (their balls certify them), and differ in the precision of everything after
@@ -467,6 +470,21 @@ def _zero_euler(space, group, level, K, digits, phases, method):
 
     total = checked(comp, digits, f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)} (quasi-polynomial)")
     sectors = found[digits + 12]
+    agree = None
+    if method == "both":         # the same interpolation through the surgery route's finite values
+        with working_bits(bits(digits + 12 + guard)):
+            other = sum(qp.quasi_polynomial_sectors(q, to_acb(resolve_K(level, K, N)), fine, "surgery").values(),
+                        acb(0))
+            other = to_mpc(other, digits + 10)
+        with working_precision(digits + 10):
+            diff = abs(other - total)
+            if diff > mpmath.mpf(10) ** (-digits) * max(1, abs(total)):
+                from knotobs.evaluation.two_routes import RouteMismatchError
+
+                raise RouteMismatchError(f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)}: interpolated from the"
+                                         f" localisation and the surgery route the values differ by {mpmath.nstr(diff, 3)}")
+        agree = (f"interpolated from the localisation route and from the surgery route: agree to {digits} digits"
+                 f" (|difference| = {mpmath.nstr(diff, 3)})")
     with working_precision(digits):
         sectors = {cs: +v for cs, v in sectors.items()}
     notes = [f"e = 0: exp(i pi |rho|^2 phi/K) Z is a quasi-polynomial in K of period {q.period} and degree"
@@ -474,6 +492,8 @@ def _zero_euler(space, group, level, K, digits, phases, method):
              " of the localisation route and checked at two levels of every class",
              f"{len(sectors)} of {q.period} sectors exp(2 pi i K j/{q.period}) Q_j(K) (j/{q.period} reduced to"
              " (-1/2, 1/2]) are non-zero"]
+    if agree:
+        notes.append(agree)
     if Kv.imag == 0 and Kv.real == int(Kv.real):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
     return CartanContinuedValue(total, digits, Kv, N, str(M), sectors, "quasi-polynomial", tuple(notes),
