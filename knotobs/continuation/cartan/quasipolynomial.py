@@ -122,6 +122,8 @@ def quasi_polynomial_seconds(q: QuasiPolynomialData, route: str = "localisation"
     from knotobs.fibrations.seifert import parse_space
     from knotobs.paired_runs import second_core
 
+    if route not in FINITE_ROUTES:
+        raise KnotobsError(f"route {route!r}: the finite values come from one of {', '.join(FINITE_ROUTES)}")
     M = parse_space(q.space)
     if route == "surgery":
         from knotobs.evaluation.seifert_routes import _surgery_estimate
