@@ -1043,6 +1043,14 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
     >>> 1e5 < ops < 1e8 and "line integrals" in what
     True
     """
+    lines_ops, points_ops, what = pole_cost_parts(orders, H, P, K, digits, cosets, genus)
+    return lines_ops + points_ops, what
+
+
+def pole_cost_parts(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
+                    cosets=None, genus: int = 0) -> tuple[float, float, str]:
+    """:func:`pole_cost` split into the line integrals (every value) and the iterated residues
+    (mostly the exact pieces, computed once per space and cached)."""
     H = abs(H)
     theta = _theta(H, K)
     cabs = abs(K) * H / (3 * P)
@@ -1056,5 +1064,5 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
     points = nterms * ((3 * P) ** 2 + lines * P // 2)
     # measured: higher poles cost more per line (Taylor grids) and per residue (longer series)
     scale = 0.55 if deg <= 1 else 0.6 * deg ** 1.3
-    ops = (25.0 * lines * nodes + 30.0 * points) * scale
-    return ops, f"{lines} line integrals of {nodes} nodes, about {points} iterated residues"
+    return (25.0 * lines * nodes * scale, 30.0 * points * scale,
+            f"{lines} line integrals of {nodes} nodes, about {points} iterated residues")

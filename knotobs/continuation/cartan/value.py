@@ -525,8 +525,17 @@ def continued_sun_seconds(space, group, K, digits: int = 20) -> tuple[float, flo
     method = _method(d, "auto")
     if method == "residues":
         pole_domain(d.H, complex(Kv))
-    sec, mb, _ = continuation_sun_cost(d, Kv, check_digits(digits), method)
-    return 0.0, sec, mb
+    digits = check_digits(digits)
+    sec, mb, _ = continuation_sun_cost(d, Kv, digits, method)
+    if method != "residues":
+        return 0.0, sec, mb
+    # the iterated residues are mostly the exact pieces, computed once per space (docs 18.7)
+    from knotobs.continuation.cartan.poles import pole_cost_parts
+
+    lines, points, _ = pole_cost_parts(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
+                                       d.cosets(), d.genus)
+    share = lines / (lines + points)
+    return sec * (1 - share), sec * share, mb
 
 
 def continued_sun_Z(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> mpmath.mpc:
