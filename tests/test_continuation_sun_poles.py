@@ -504,3 +504,34 @@ def test_cached_exact_pieces_are_recomputed_for_a_higher_precision():
     assert max(float(v.rad()) for v in coarse.values()) > 1e-30
     for phi, v in fine.items():
         assert v.overlaps(fresh[phi]) and v.overlaps(coarse[phi])
+
+
+def test_odd_third_family_lines_vanish_and_are_skipped(monkeypatch):
+    # docs 18.7: on u + w = m the merged term of three orders is odd under u -> m - u, so its
+    # lattice sums vanish.  (a) the symmetry itself, from the term's own factors at random complex
+    # points; (b) the continued value with the line sums computed equals the one without them
+    from knotobs.continuation.cartan import poles
+
+    rng = random.Random(5)
+    for orders in ((2, 3, 5), (2, 2, 3), (3, 4, 5)):
+        t = merged_terms(orders)[0]
+        assert poles.odd_third_family(t)
+        for m in (1, 2, 7):
+            for _ in range(3):
+                u = complex(rng.uniform(-2, 2), rng.uniform(-0.5, 0.5))
+                f = _root_fn(t.A, u) * _root_fn(t.B, m - u)
+                g = _root_fn(t.A, m - u) * _root_fn(t.B, u)
+                assert abs(f + g) < 1e-9 * max(1.0, abs(f))
+    assert not poles.odd_third_family(merged_terms((2, 3, 5, 7))[0])
+    with mpmath.workdps(40):
+        for space, K in (("Sigma(2,3,5)", "7.3+0.4i"), ("M(0; -1; (2,1), (2,1), (3,1))", "6.6+0.3i")):
+            vals = []
+            for flag in (False, True):
+                monkeypatch.setattr(poles, "SKIP_ODD_THIRD", flag)
+                poles._EXACT.clear()                 # the cached exact pieces hold the lines or not
+                z = continued_sun_partition_function(space, "SU(3)", K=K, digits=30)
+                vals.append((z.numeric, {k: v for k, v in z.sectors.items()}))
+            poles._EXACT.clear()
+            assert abs(vals[0][0] - vals[1][0]) < 1e-29
+            assert set(vals[0][1]) == set(vals[1][1])
+            assert all(abs(vals[0][1][k] - vals[1][1][k]) < 1e-29 for k in vals[0][1])
