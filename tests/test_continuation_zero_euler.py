@@ -50,9 +50,10 @@ def test_monodromy_minus_one_counts_self_conjugate_weights(N, K):
     # M(0; -2; (2,1)^4) is the torus bundle with monodromy -1, Z_k = Tr C (phi = 0: no framing
     # phase; the sign is checked at the integers).  Tr C counts the self-conjugate integrable
     # weights: k + 1 for SU(2); floor(k/2) + 1 for SU(3), (a, a) with 2a <= k; for SU(4) the
-    # weights (a, b, a) with 2a + b <= k.  Their least-type continuations, written by hand:
-    # K - 1;  K/2 - 3/4 - exp(i pi K)/4;  for SU(4), with k = K - 4, sum_a (k - 2a + 1) over
-    # 0 <= a <= k/2 is (k + 2)^2/4 at even k and (k + 1)(k + 3)/4 at odd k.
+    # weights (a, b, a) with 2a + b <= k.  Their least-type continuations (cos(pi K) for the
+    # sign (-1)^K, docs 18.11), written by hand: K - 1;  K/2 - 3/4 - cos(pi K)/4;  for SU(4), with
+    # k = K - 4, sum_a (k - 2a + 1) over 0 <= a <= k/2 is (k + 2)^2/4 at even k and (k + 1)(k + 3)/4
+    # at odd k.
     space = "M(0; -2; (2,1), (2,1), (2,1), (2,1))"
 
     def count(N, k):
@@ -63,7 +64,7 @@ def test_monodromy_minus_one_counts_self_conjugate_weights(N, K):
         return sum(k - 2 * a + 1 for a in range(k // 2 + 1))
 
     def closed(N, K):
-        e = mpmath.expjpi(K)
+        e = mpmath.cospi(K)
         if N == 2:
             return K - 1
         if N == 3:
@@ -97,14 +98,14 @@ def test_integer_K_equals_both_finite_routes(space, N, k):
 def test_order_four_bundle_closed_form_at_complex_K():
     # SU(2) on the bundle with monodromy S: Tr S = sqrt(2/K) sum_n sin(pi n^2/K) is 1 at even K and
     # 0 at odd K (Landsberg-Schaar; common practice), so with the framing phase of the finite
-    # values (read off at K = 4) the least-type continuation is c exp(-3 pi i/(2K)) (1 + e^{i pi K})/2
+    # values (read off at K = 4) the least-type continuation is c exp(-3 pi i/(2K)) (1 + cos(pi K))/2
     space = "M(0; -1; (2,1), (4,1), (4,1))"
     with mpmath.workdps(40):
         c = _Z(space, 2, 4).numeric * mpmath.expjpi(mpmath.mpf(3) / 8)
         assert abs(abs(c) - 1) < 1e-20
         for K in ("5.5+0.3i", "3.25-0.5i", "12.1+1i"):
             Kc = parse_complex(K)
-            want = c * mpmath.expjpi(-mpmath.mpf(3) / (2 * Kc)) * (1 + mpmath.expjpi(Kc)) / 2
+            want = c * mpmath.expjpi(-mpmath.mpf(3) / (2 * Kc)) * (1 + mpmath.cospi(Kc)) / 2
             res = _Z(space, 2, K)
             assert abs(res.numeric - want) < 1e-20
             assert sorted(res.sectors) == [0, Fraction(1, 2)]
@@ -165,14 +166,70 @@ def test_level_plane_plot_of_su_n_and_of_e_zero():
         assert abs(complex(re_, im_) - complex(z)) < 1e-10
 
 
-def test_reversed_orientation_is_the_conjugate():
+@pytest.mark.parametrize("space,mirror,N", [
+    ("M(0; -1; (3,1), (3,1), (3,1))", "M(0; -2; (3,2), (3,2), (3,2))", 3),
+    ("M(0; -1; (2,1), (4,1), (4,1))", "M(0; 1; (2,-1), (4,-1), (4,-1))", 2),      # a sector at 1/2
+    ("M(1; 0; (2,1), (2,-1))", "M(1; 0; (2,-1), (2,1))", 2),                       # its own mirror
+    ("M(0; -1; (2,1), (3,1), (6,1))", "M(0; 1; (2,-1), (3,-1), (6,-1))", 3),
+])
+def test_reversed_orientation_is_the_conjugate(space, mirror, N):
     # Z(-M) = conj Z(M) at every level (common practice: reversing the orientation conjugates the
-    # partition function); the least-type continuations then satisfy Z_{-M}(K) = conj Z_M(conj K).
-    # -M(0; -1; (3,1)^3) = M(0; -2; (3,2)^3)
-    a = _Z("M(0; -1; (3,1), (3,1), (3,1))", 3, "5.5+0.2i", 20).numeric
-    b = _Z("M(0; -2; (3,2), (3,2), (3,2))", 3, "5.5-0.2i", 20).numeric
+    # partition function); the continuations must keep Z_{-M}(K) = conj Z_M(conj K), which is what
+    # fixes cos(pi K) for the sector at 1/2 (e^{+i pi K} alone failed it)
+    a = _Z(space, N, "5.3+0.2i", 20)
+    b = _Z(mirror, N, "5.3-0.2i", 20)
     with mpmath.workdps(30):
-        assert abs(a - mpmath.conj(b)) < 1e-19
+        assert abs(a.numeric - mpmath.conj(b.numeric)) < 1e-19
+        for cs, v in a.sectors.items():           # the sector j/L of M is the sector -j/L of -M
+            assert abs(v - mpmath.conj(b.sectors[(-cs) % 1])) < 1e-19
+
+
+def test_far_from_the_real_axis_and_wide_nodes():
+    # K = 5 + 5000i: the sectors differ by e^{5000 pi}; the finite values need no such digits (this
+    # once asked for 6900 of them and failed).  A genus-4 space whose nodes are far larger than the
+    # value: the finite values are recomputed with the digits the ball was short of
+    space = "M(0; -1; (2,1), (4,1), (4,1))"
+    z = _Z(space, 2, "7+5000i", 15).numeric
+    with mpmath.workdps(40):
+        c = _Z(space, 2, 4).numeric * mpmath.expjpi(mpmath.mpf(3) / 8)     # as in the closed form above
+        Kc = mpmath.mpc(7, 5000)
+        want = c * mpmath.expjpi(-mpmath.mpf(3) / (2 * Kc)) * (1 + mpmath.cospi(Kc)) / 2
+        assert abs(want) > mpmath.mpf(10) ** 6000 and abs(z / want - 1) < 1e-14
+
+
+def test_a_too_wide_ball_recomputes_the_finite_values(monkeypatch):
+    # with no guard digits the extrapolation to K = 500 (degree 6, nodes below 22) loses about 16
+    # digits; the first ball is too wide, the finite values are recomputed with the missing digits,
+    # and the value is the closed form of the monodromy -1 bundle (Tr C, as above)
+    misses = []
+    real = qp.check_radius
+
+    def spy(z, digits, what):
+        try:
+            real(z, digits, what)
+        except qp.WideBallError as exc:
+            misses.append(exc.missing)
+            raise
+
+    monkeypatch.setattr(qp, "guard_digits", lambda q, Kv, sectors=True: 0)
+    monkeypatch.setattr(qp, "check_radius", spy)
+    z = _Z("M(0; -2; (2,1), (2,1), (2,1), (2,1))", 3, "500.5+0.5i", 20).numeric
+    assert misses and max(misses) > 3
+    with mpmath.workdps(40):
+        K = mpmath.mpc("500.5", "0.5")
+        assert abs(z - (K / 2 - mpmath.mpf(3) / 4 - mpmath.cospi(K) / 4)) < 1e-20 * abs(z)
+
+
+@pytest.mark.slow
+def test_genus_four_nodes_far_larger_than_the_value():
+    # 595 finite levels whose values reach 10^39 while Z_3 is about 7178: the first ball is too
+    # wide and the recomputed one gives the finite value
+    big = "M(4; 0; (5,1), (5,-1), (7,2), (7,-2))"
+    v = _Z(big, 2, 5, 10).numeric
+    fin = knotobs.partition_function(big, "SU(2)", 3, digits=15).numeric
+    with mpmath.workdps(30):
+        assert abs(v - fin) < 1e-10 * abs(fin)
+    assert abs(_Z(big, 2, "5.5+0.1i", 15).numeric) > 0
 
 
 def test_both_finite_routes_give_the_same_continuation():

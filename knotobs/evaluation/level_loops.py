@@ -190,6 +190,19 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         why = _polynomials_are_cheaper(F.manifold, g, k, cols, level, mode)
         if why is not None:
             return _polynomial_only(k, g, cols, level, framing, mode, digits, F, pair=why)
+    check_skipped = None
+    if in_s3 and normalized:
+        # the exact polynomial is the second route: its estimate before any work, so that a
+        # colour too large for it is said (and the Seifert route still answers) instead of being
+        # refused after the Seifert route has run
+        from knotobs.evaluation.estimates import fixed_estimate
+        from knotobs.guard import current_limits
+
+        psec, pmb, pwhat = fixed_estimate(k, g, cols, "Rosso-Jones")
+        lim = current_limits()
+        if psec > lim.seconds or pmb > lim.memory_mb:
+            check_skipped = (f"not computed: {pwhat}, estimated {psec:.3g} s and {pmb:.3g} MB, above the"
+                             f" limits ({lim.seconds:g} s, {lim.memory_mb:g} MB)")
     try:
         v = fiber_wilson_loop(F.manifold, level, str(g), regular=list(cols), normalized=normalized,
                               digits=digits, framing=mode, route=route)
@@ -215,7 +228,9 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         framing_text = f"{f} on every component relative to the zero framing"
         extra = f
     details["framing_value"] = "zero" if mode == "zero" and not extra else (extra if extra else "fiber")
-    if in_s3 and normalized:
+    if check_skipped is not None:
+        details["polynomial_check"] = check_skipped
+    elif in_s3 and normalized:
         poly = rosso_jones(k, g, cols, (f_eff if extra else 0) if mode == "zero" else "fiber")
         check = poly.at_root_of_unity(level + g.N, dps=digits + 5)
         with working_precision(digits + 5):

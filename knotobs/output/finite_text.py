@@ -52,6 +52,8 @@ def finite_text(value: FiniteLevelValue, title: str) -> str:
         lines.append(f"route:         {value.details['route']}")
     if "agreement" in value.details:
         lines.append(f"agreement:     {' and '.join(value.details.get('routes', []))} agree {value.details['agreement']}")
-    if "polynomial_check" in value.details:
+    if isinstance(value.details.get("polynomial_check"), str):
+        lines.append(f"check:         exact polynomial at q = exp(2 pi i/K) {value.details['polynomial_check']}")
+    elif "polynomial_check" in value.details:
         lines.append(f"check:         exact polynomial at q = exp(2 pi i/K) agrees to {value.details['polynomial_check']:.1e}")
     return "\n".join(lines)

@@ -159,3 +159,28 @@ def test_auto_takes_the_exact_polynomials_when_the_seifert_routes_are_slow():
     # a cheap Seifert route is still taken (and checked against the polynomial)
     w = level_loop("T(2,3)", 30, "SU(3)", (2, 1), digits=20)
     assert w.details["routes"] != ["Rosso-Jones", "weight-sum"] and w.details["polynomial_check"] < 1e-15
+
+
+def test_polynomial_check_over_the_limits_is_said_not_refused_after_the_work(monkeypatch):
+    # the second route (the exact polynomial in S^3) is estimated before the Seifert route runs;
+    # over the limits it is reported as not computed (the value still comes from the Seifert route)
+    import knotobs.evaluation.estimates as est
+
+    monkeypatch.setattr(est, "fixed_estimate", lambda *a, **k: (1e9, 1.0, "the polynomial"))
+    v = level_loop("T(2,3)", 30, "SU(3)", (2, 1), digits=20)
+    assert isinstance(v.details["polynomial_check"], str) and "not computed" in v.details["polynomial_check"]
+    monkeypatch.undo()
+    w = level_loop("T(2,3)", 30, "SU(3)", (2, 1), digits=20)
+    assert abs(v.numeric - w.numeric) < 1e-18 and w.details["polynomial_check"] < 1e-15
+
+
+def test_polynomial_at_an_integer_root_of_unity_reduced_mod_its_order():
+    # a polynomial longer than the order of q is reduced mod y^n - 1 before it is evaluated; the
+    # value equals the direct evaluation at the same (non-integer-typed) K
+    import mpmath
+
+    p = rosso_jones(TorusLink(2, 3), SU(2), (300,))
+    a = p.at_root_of_unity(1002, dps=25)
+    b = p.at_root_of_unity(mpmath.mpf(1002), dps=25)
+    with mpmath.workdps(40):
+        assert abs(a - b) < 1e-22 * abs(b)

@@ -43,7 +43,7 @@ from flint import acb, arb
 from knotobs.errors import KnotobsError, PrecisionError
 from knotobs.numerics import working_precision
 
-__all__ = ["has_zero_euler", "FINITE_ROUTES", "QuasiPolynomialData", "quasi_polynomial_data", "quasi_polynomial_levels",
+__all__ = ["has_zero_euler", "FINITE_ROUTES", "WideBallError", "QuasiPolynomialData", "quasi_polynomial_data", "quasi_polynomial_levels",
            "quasi_polynomial_sectors", "quasi_polynomial_seconds"]
 
 
@@ -236,21 +236,41 @@ def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int,
     for j in range(L):
         if all(Q(j, x).contains(0) for x in probes):
             continue
-        jr = j if 2 * j <= L else j - L
-        out[Fraction(j, L)] = ph * acb.exp_pi_i(2 * jr * K / L) * Q(j, K)
+        if 2 * j == L:
+            # exp(i pi K) and exp(-i pi K) agree at the integers: cos(pi K), the choice that keeps
+            # Z_{-M}(K) = conj Z_M(conj K) (docs 18.11)
+            e = acb.cos_pi(K)
+        else:
+            jr = j if 2 * j < L else j - L
+            e = acb.exp_pi_i(2 * jr * K / L)
+        out[Fraction(j, L)] = ph * e * Q(j, K)
     return out
 
 
-def guard_digits(q: QuasiPolynomialData, Kv) -> int:
-    """Digits the interpolation and the sectors can lose at ``K``: extrapolation of degree ``d``
-    from nodes spaced ``L`` apart, and sectors of size up to ``exp(pi |Im K|)``."""
+def guard_digits(q: QuasiPolynomialData, Kv, sectors: bool = True) -> int:
+    """Digits the interpolation (and with ``sectors`` the sum of the sectors) can lose at ``K``:
+    extrapolation of degree ``d`` from nodes spaced ``L`` apart, and sectors of size up to
+    ``exp(pi |Im K|)``."""
     top = q.N + q.levels[-1]
     far = (abs(complex(Kv)) + top) / q.period + 2
-    return int(math.ceil(q.degree * math.log10(2 * far) + math.pi * abs(float(mpmath.im(Kv))) / math.log(10))) + 5
+    size = math.pi * abs(float(mpmath.im(Kv))) / math.log(10) if sectors else 0.0
+    return int(math.ceil(q.degree * math.log10(2 * far) + size)) + 5
+
+
+class WideBallError(PrecisionError):
+    """The interpolated ball is wider than the digits asked for; ``missing`` digits short."""
+
+    def __init__(self, message: str, missing: int):
+        super().__init__(message)
+        self.missing = missing
 
 
 def check_radius(z: acb, digits: int, what: str) -> None:
-    """Raise when the ball ``z`` is wider than ``10^-digits max(1, |z|)``."""
-    if z.rad() > arb(10) ** (-digits) * max(1, float(abs(z).mid())):
-        raise PrecisionError(f"{what}: the interpolated value is certified only to radius"
-                             f" {mpmath.nstr(float(z.rad()), 3)}; request fewer digits")
+    """Raise :class:`WideBallError` when the ball ``z`` is wider than ``10^-digits max(1, |z|)``."""
+    mag = abs(z).mid()
+    scale = arb(1) if mag < 1 else mag
+    if z.rad() > arb(10) ** (-digits) * scale:
+        ratio = z.rad() / (arb(10) ** (-digits) * scale)
+        missing = int(math.ceil(float(ratio.log() / arb(10).log()))) + 1
+        raise WideBallError(f"{what}: the interpolated value is certified only to radius"
+                            f" {z.rad().str(3, radius=False)}", missing)

@@ -33,7 +33,7 @@ from knotobs.continuation.cartan.gaussian import abelian_cs_values, gaussian_sec
 from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_range_digits, pole_sum_sectors
 from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_sectors
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
-from knotobs.errors import KnotobsError
+from knotobs.errors import KnotobsError, PrecisionError
 from knotobs.guard import require
 from knotobs.paired_runs import run_both, second_core
 from knotobs.precision import certified_parts, check_digits
@@ -376,8 +376,6 @@ def continued_sun_partition_function(space, group="SU(3)", level=None, *, K=None
         with working_precision(digits + 10):
             diff = abs(total - total_q)
             if diff > mpmath.mpf(10) ** (-digits) * max(abs(total), 1):
-                from knotobs.errors import PrecisionError
-
                 raise PrecisionError(f"SU({N}) Z({d.space}): closed form and trapezoid rule differ by"
                                      f" {mpmath.nstr(diff, 3)} at {digits} digits")
         notes.append(f"closed form and trapezoid rule agree to {digits} digits")
@@ -455,34 +453,45 @@ def _zero_euler(space, group, level, K, digits, phases, method):
                 accepted="use a smaller N, fewer exceptional fibers or a lower base genus")
     guard = qp.guard_digits(q, Kv)
     # the finite values carry no discretisation: both runs share them at the finer run's digits
-    # (their balls certify them), and differ in the precision of everything after
-    fine = digits + 12 + guard
+    # (their balls certify them), and differ in the precision of everything after.  They need the
+    # digits the extrapolation loses; when the ball of the result is still too wide (the values at
+    # the nodes much larger than the result, or sectors cancelling), they are recomputed with the
+    # missing digits (at most twice)
+    fine = digits + 12 + qp.guard_digits(q, Kv, sectors=False)
+    what = f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)}"
     found = {}
 
-    def comp(dg):
-        with working_bits(bits(dg + guard)):
-            Ka = to_acb(resolve_K(level, K, N))
-            sec_ = qp.quasi_polynomial_sectors(q, Ka, fine)
-            total = sum(sec_.values(), acb(0))
-            qp.check_radius(total, dg, f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)}")
-            found[dg] = {cs: to_mpc(v, dg) for cs, v in sec_.items()}
-            return total
+    def run(route, fine_digits):
+        def comp(dg):
+            with working_bits(bits(dg + guard)):
+                Ka = to_acb(resolve_K(level, K, N))
+                sec_ = qp.quasi_polynomial_sectors(q, Ka, fine_digits, route)
+                total = sum(sec_.values(), acb(0))
+                qp.check_radius(total, dg, what)
+                found[dg] = {cs: to_mpc(v, dg) for cs, v in sec_.items()}
+                return total
+        return checked(comp, digits, f"{what} (quasi-polynomial)")
 
-    total = checked(comp, digits, f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)} (quasi-polynomial)")
+    for attempt in range(3):
+        try:
+            total = run("localisation", fine)
+            break
+        except qp.WideBallError as exc:
+            if attempt == 2 or exc.missing > 1000:
+                raise PrecisionError(f"{what}: {exc}; request fewer digits or a level closer to the real"
+                                     " axis") from None
+            fine += exc.missing + 5
     sectors = found[digits + 12]
     agree = None
     if method == "both":         # the same interpolation through the surgery route's finite values
-        with working_bits(bits(digits + 12 + guard)):
-            other = sum(qp.quasi_polynomial_sectors(q, to_acb(resolve_K(level, K, N)), fine, "surgery").values(),
-                        acb(0))
-            other = to_mpc(other, digits + 10)
+        other = run("surgery", fine)
         with working_precision(digits + 10):
             diff = abs(other - total)
             if diff > mpmath.mpf(10) ** (-digits) * max(1, abs(total)):
                 from knotobs.evaluation.two_routes import RouteMismatchError
 
-                raise RouteMismatchError(f"SU({N}) Z({M}) at K = {mpmath.nstr(Kv, 10)}: interpolated from the"
-                                         f" localisation and the surgery route the values differ by {mpmath.nstr(diff, 3)}")
+                raise RouteMismatchError(f"{what}: interpolated from the localisation and the surgery route the"
+                                         f" values differ by {mpmath.nstr(diff, 3)}")
         agree = (f"interpolated from the localisation route and from the surgery route: agree to {digits} digits"
                  f" (|difference| = {mpmath.nstr(diff, 3)})")
     with working_precision(digits):
@@ -490,8 +499,8 @@ def _zero_euler(space, group, level, K, digits, phases, method):
     notes = [f"e = 0: exp(i pi |rho|^2 phi/K) Z is a quasi-polynomial in K of period {q.period} and degree"
              f" <= {q.degree} (phi = {q.phi}), interpolated from the finite levels k = 1..{q.levels[-1]}"
              " of the localisation route and checked at two levels of every class",
-             f"{len(sectors)} of {q.period} sectors exp(2 pi i K j/{q.period}) Q_j(K) (j/{q.period} reduced to"
-             " (-1/2, 1/2]) are non-zero"]
+             f"{len(sectors)} of {q.period} sectors exp(2 pi i K j/{q.period}) Q_j(K) are non-zero (keyed by"
+             f" j/{q.period} mod 1; the exponent uses the representative in (-1/2, 1/2), and cos(pi K) at 1/2)"]
     if agree:
         notes.append(agree)
     if Kv.imag == 0 and Kv.real == int(Kv.real):
