@@ -140,6 +140,10 @@ def continue_(
         emit(res.to_json, lambda: continued_text(res, ph), as_json)
         return
     if route not in (None, "auto"):
+        from knotobs.continuation.cartan.value import METHODS
+
+        if route not in METHODS:
+            refuse("--route", f"{route}: use one of {', '.join(METHODS)} (with --group 'SU(N)' or for e = 0)")
         refuse("--route", f"{route}: the SU(2) continuation of a space with e != 0 has one method (the"
                           " Lawrence-Rozansky integral plus residues, docs §9); --route chooses among the"
                           " SU(N) methods (--group 'SU(N)') and for e = 0")

@@ -126,7 +126,8 @@ def resolve_K(level=None, K=None, N: int = 2) -> mpmath.mpc:
         raise DomainError(f"K = 0 (level k = {-N}) is not allowed: q = exp(2 pi i/K) is undefined")
     if not (mpmath.isfinite(Kv.real) and mpmath.isfinite(Kv.imag)) or abs(Kv) > mpmath.mpf(10) ** 100:
         given = K if K is not None else level
-        raise DomainError(f"{'K' if K is not None else 'level'} = {given!s}: |K| must be at most 1e100")
+        raise DomainError(f"{'K' if K is not None else 'level'} = {given!s}: |K| (K = k + N) must be at most"
+                          " 10^100")
     return Kv
 
 

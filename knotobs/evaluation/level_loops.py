@@ -176,6 +176,10 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     elif _is_integer_framing(framing):
         mode = "zero"
     else:
+        if isinstance(framing, (list, tuple)):
+            raise KnotobsError(f"framing {tuple(framing)}: at a level one framing for every component (zero,"
+                               " fiber or an integer); per-component framings are taken by the polynomial"
+                               " routes (without --level)")
         raise KnotobsError(f"unknown framing {framing!r}: use zero, fiber or an integer")
     if mode == "zero" and not null_homologous:
         raise KnotobsError(

@@ -223,7 +223,8 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
             return continued_sun_partition_function(space, str(g), K=K, digits=digits).numeric
     require(f"plot level-plane of {space}, {g}: {n} x {n} continued values to {digits} digits",
             seconds=once + one * n * n, memory_mb=mem,
-            accepted=f"use a smaller grid (--n below {n}) or a smaller range")
+            accepted=(f"use a smaller grid (--n below {n}) or a smaller range" if n > 2 else
+                      "the grid is already the smallest (--n 2): use a smaller N, fewer digits or a smaller range"))
     show = sys.stderr.isatty() if progress is None else progress
     step = _progress(n * n, show)
     xs = np.linspace(*re_range, n)
