@@ -3,7 +3,7 @@
 Rows: 20 complex K to 20 digits from Python and through the CLI (whole processes, start-up
 included), and at integer K the continued value beside the two finite-level routes
 (localisation and surgery).  Sigma(2,3,5) for SU(3) has poles (three exceptional orders: the
-residue formula of docs/continuation_sun.md §18.7: its exact residues once per process, then about 0.35-0.55 s per value on two cores); its CLI row runs the
+residue formula of docs/continuation_sun.md §18.7: its exact residues once per process, then about 0.2-0.3 s per value on two cores); its CLI row runs the
 first 5 of the 20 levels and also prints the time per process.  A third table times one value on
 spaces with shared orders and with base genus >= 1 (§18.8, §18.9), a fourth one value on spaces
 with e = 0 and exceptional fibers through the CLI (§18.11).
