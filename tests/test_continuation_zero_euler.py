@@ -244,3 +244,19 @@ def test_both_finite_routes_give_the_same_continuation():
     bad = subprocess.run([sys.executable, "-m", "knotobs", "continue", "L(5,1)", "--level", "2.5+0.2i", "--route",
                           "both"], capture_output=True, text=True, timeout=120)
     assert bad.returncode == 2 and "error: --route" in bad.stdout + bad.stderr, bad.stdout + bad.stderr
+
+
+def test_sector_polynomials_are_reported():
+    # the sector polynomials of the monodromy -1 bundle for SU(3) are those of the self-conjugate
+    # weight count above: Q_0 = K/2 - 3/4, Q_{1/2} = -1/4 (text, JSON and the result object)
+    z = _Z("M(0; -2; (2,1), (2,1), (2,1), (2,1))", 3, "6.7+0.3i", 20)
+    with mpmath.workdps(30):
+        q0 = [c for c, _ in z.polynomials[Fraction(0)]]
+        q1 = [c for c, _ in z.polynomials[Fraction(1, 2)]]
+        assert len(q0) == 2 and abs(q0[0] + mpmath.mpf(3) / 4) < 1e-18 and abs(q0[1] - mpmath.mpf(1) / 2) < 1e-18
+        assert len(q1) == 1 and abs(q1[0] + mpmath.mpf(1) / 4) < 1e-18
+    js = z.to_json()
+    assert js["sector_polynomials"]["1/2"][0]["re"].startswith("-0.25")
+    r = subprocess.run([sys.executable, "-m", "knotobs", "continue", "M(0; -2; (2,1), (2,1), (2,1), (2,1))", "-g",
+                        "SU(3)", "--level", "3.7+0.3i", "-d", "15"], capture_output=True, text=True, timeout=120)
+    assert "Q = -0.75 + 0.5 K" in r.stdout and "Q = -0.25" in r.stdout, r.stdout

@@ -84,6 +84,16 @@ def continued_text(res, phases: str) -> str:
             f"  continuation: {how}, phases {phases}")
     for cs, v in sorted(getattr(res, "sectors", {}).items()):
         text += f"\n    cs = {str(cs):>8s}  sector = {certified_str(v, min(res.digits, 12))}"
+    polys = getattr(res, "polynomials", {})
+    if polys:
+        text += "\n  sector polynomials Q_j(K) (sector = exp(-i pi |rho|^2 phi/K) exp(2 pi i K j/L) Q_j(K)):"
+        for cs, cf in sorted(polys.items()):
+            terms = [f"{certified_str(c, min(d, 12))}" + ("" if i == 0 else " K" if i == 1 else f" K^{i}")
+                     for i, (c, d) in enumerate(cf) if d > 0]
+            line = terms[0] if terms else "0"
+            for t in terms[1:]:
+                line += f" - {t[1:]}" if t.startswith("-") else f" + {t}"
+            text += f"\n    cs = {str(cs):>8s}  Q = {line}"
     for n in res.notes:
         text += f"\n  note: {n}"
     return text

@@ -43,7 +43,8 @@ from flint import acb, arb
 from knotobs.errors import KnotobsError, PrecisionError
 from knotobs.numerics import working_precision
 
-__all__ = ["has_zero_euler", "FINITE_ROUTES", "WideBallError", "QuasiPolynomialData", "quasi_polynomial_data", "quasi_polynomial_levels",
+__all__ = ["has_zero_euler", "FINITE_ROUTES", "WideBallError", "QuasiPolynomialData", "quasi_polynomial_data",
+           "quasi_polynomial_levels", "quasi_polynomial_coefficients",
            "quasi_polynomial_sectors", "quasi_polynomial_seconds"]
 
 
@@ -244,6 +245,47 @@ def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int,
             jr = j if 2 * j < L else j - L
             e = acb.exp_pi_i(2 * jr * K / L)
         out[Fraction(j, L)] = ph * e * Q(j, K)
+    return out
+
+
+def _monomial(xs, dd) -> list[acb]:
+    """Newton form (nodes ``xs``, divided differences ``dd``) to monomial coefficients."""
+    n = len(dd)
+    coeffs = [acb(0)] * n
+    for i in range(n - 1, -1, -1):          # p = dd[i] + (K - x_i) p
+        new = [acb(0)] * n
+        for k in range(n - 1):
+            new[k + 1] += coeffs[k]
+            new[k] -= xs[i] * coeffs[k]
+        new[0] += dd[i]
+        coeffs = new
+    return coeffs
+
+
+def quasi_polynomial_coefficients(q: QuasiPolynomialData, digits: int,
+                                  route: str = "localisation") -> dict[Fraction, list[acb]]:
+    """``{j/L mod 1: [c_0, c_1, ...]}`` with ``Q_j(K) = sum_i c_i K^i`` (balls at the current
+    precision; trailing coefficients that are balls containing 0 dropped, classes with ``Q_j = 0``
+    left out), from finite values with ``digits`` certified digits.
+
+    >>> from knotobs.numerics import working_precision
+    >>> q = quasi_polynomial_data("M(0; -2; (2,1), (2,1), (2,1), (2,1))", 2)    # Q_0 = K - 1
+    >>> with working_precision(30):
+    ...     c = quasi_polynomial_coefficients(q, 30)
+    >>> sorted(c), [round(float(x.real.mid())) for x in c[Fraction(0)]]
+    ([Fraction(0, 1)], [-1, 1])
+    """
+    classes = _class_tables(q, digits, route)
+    L = q.period
+    zeta = [acb.exp_pi_i(acb(2 * j) / L) for j in range(L)]
+    mono = [(xs[0] % L, _monomial(xs, dd)) for xs, dd in classes]
+    out = {}
+    for j in range(L):
+        cs = [sum((zeta[(-j * c) % L] * m[i] for c, m in mono), acb(0)) / L for i in range(q.degree + 1)]
+        while cs and cs[-1].contains(0):
+            cs.pop()
+        if cs:
+            out[Fraction(j, L)] = cs
     return out
 
 

@@ -24,7 +24,7 @@ from fractions import Fraction
 from typing import Any
 
 import mpmath
-from flint import acb
+from flint import acb, arb
 
 from knotobs._notebook import NotebookMixin
 from knotobs.continuation._num import ball_seconds, bits, checked, to_acb, to_mpc, working_bits
@@ -261,6 +261,9 @@ class CartanContinuedValue(NotebookMixin):
     notes: tuple[str, ...] = ()
     #: CS values mod 1 of the abelian flat connections (their sectors are ``pieces["integral"]``)
     abelian: frozenset = field(default_factory=frozenset, compare=False)
+    #: ``e = 0``: ``{j/L: [(c_i, digits_i), ...]}``, the sector polynomials ``Q_j(K) = sum c_i K^i``
+    #: of the quasi-polynomial with the digits each coefficient is certified to (docs 18.11)
+    polynomials: dict = field(default_factory=dict, compare=False)
 
     @property
     def pieces(self) -> dict:
@@ -302,6 +305,12 @@ class CartanContinuedValue(NotebookMixin):
             "numeric": {**cj(self.numeric), "digits": self.digits},
             "pieces": {k: cj(v) for k, v in self.pieces.items()},
             "sectors": {str(cs): cj(v) for cs, v in sorted(self.sectors.items())},
+            **({"sector_polynomials": {
+                str(cs): [dict(zip(("re", "im"), certified_parts(c, d))) for c, d in cf]
+                for cs, cf in sorted(self.polynomials.items())},
+                "sector_polynomials_note": "Q_j(K) = sum_i c_i K^i; the sector j/L is exp(-i pi |rho|^2 phi/K)"
+                                           " exp(2 pi i K j/L) Q_j(K) (cos(pi K) at 1/2); coefficient i at index i"}
+               if self.polynomials else {}),
             "route": f"{self.how}; analytic continuation in K",
             "normalisation": "Z(S^3) = S_00, Z(S^2 x S^1) = 1, canonical 2-framing",
             "notes": list(self.notes),
@@ -503,10 +512,22 @@ def _zero_euler(space, group, level, K, digits, phases, method):
              f" j/{q.period} mod 1; the exponent uses the representative in (-1/2, 1/2), and cos(pi K) at 1/2)"]
     if agree:
         notes.append(agree)
+    polys = {}
+    with working_bits(bits(fine)):
+        for cs, cf in qp.quasi_polynomial_coefficients(q, fine).items():
+            row = []
+            for c in cf:
+                mag = abs(c).mid()
+                if c.contains(0):
+                    row.append((mpmath.mpc(0), 0))
+                    continue
+                good = int(math.floor(float((mag / c.rad()).log() / arb(10).log()))) if c.rad() > 0 else digits
+                row.append((to_mpc(c, digits), max(1, min(digits, good))))
+            polys[cs] = row
     if Kv.imag == 0 and Kv.real == int(Kv.real):
         notes.append(f"integer K: equals the finite-level value Z_k with k = K - {N}")
     return CartanContinuedValue(total, digits, Kv, N, str(M), sectors, "quasi-polynomial", tuple(notes),
-                                frozenset())
+                                frozenset(), polys)
 
 
 def continued_sun_seconds(space, group, K, digits: int = 20) -> tuple[float, float, float]:
