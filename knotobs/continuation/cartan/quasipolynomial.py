@@ -40,6 +40,7 @@ from functools import lru_cache
 import mpmath
 from flint import acb, arb
 
+from knotobs.continuation.cartan.newton import divided_differences, newton_to_monomial, newton_value
 from knotobs.errors import KnotobsError, PrecisionError
 from knotobs.numerics import working_precision
 
@@ -190,10 +191,7 @@ def _class_tables(q: QuasiPolynomialData, digits: int, route: str = "localisatio
                        _ball(im_, err * max(1, abs(float(re_)) + abs(float(im_))))))
                for i, (K, re_, im_) in enumerate(table) if i % L == c]
         xs = [K for K, _ in pts[: d + 1]]
-        dd = [v for _, v in pts[: d + 1]]
-        for j in range(1, d + 1):
-            for i in range(d, j - 1, -1):
-                dd[i] = (dd[i] - dd[i - 1]) / (xs[i] - xs[i - j])
+        dd = divided_differences(xs, [v for _, v in pts[: d + 1]])
         for K, v in pts[d + 1:]:
             diff = _newton(xs, dd, acb(K)) - v
             if not diff.contains(0):
@@ -206,10 +204,7 @@ def _class_tables(q: QuasiPolynomialData, digits: int, route: str = "localisatio
 
 
 def _newton(xs, dd, K: acb) -> acb:
-    out = dd[-1]
-    for i in range(len(dd) - 2, -1, -1):
-        out = out * (K - xs[i]) + dd[i]
-    return out
+    return newton_value(xs, dd, K)
 
 
 def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int,
@@ -248,20 +243,6 @@ def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int,
     return out
 
 
-def _monomial(xs, dd) -> list[acb]:
-    """Newton form (nodes ``xs``, divided differences ``dd``) to monomial coefficients."""
-    n = len(dd)
-    coeffs = [acb(0)] * n
-    for i in range(n - 1, -1, -1):          # p = dd[i] + (K - x_i) p
-        new = [acb(0)] * n
-        for k in range(n - 1):
-            new[k + 1] += coeffs[k]
-            new[k] -= xs[i] * coeffs[k]
-        new[0] += dd[i]
-        coeffs = new
-    return coeffs
-
-
 def quasi_polynomial_coefficients(q: QuasiPolynomialData, digits: int,
                                   route: str = "localisation") -> dict[Fraction, list[acb]]:
     """``{j/L mod 1: [c_0, c_1, ...]}`` with ``Q_j(K) = sum_i c_i K^i`` (balls at the current
@@ -278,7 +259,7 @@ def quasi_polynomial_coefficients(q: QuasiPolynomialData, digits: int,
     classes = _class_tables(q, digits, route)
     L = q.period
     zeta = [acb.exp_pi_i(acb(2 * j) / L) for j in range(L)]
-    mono = [(xs[0] % L, _monomial(xs, dd)) for xs, dd in classes]
+    mono = [(xs[0] % L, newton_to_monomial(xs, dd, acb(0))) for xs, dd in classes]
     out = {}
     for j in range(L):
         cs = [sum((zeta[(-j * c) % L] * m[i] for c, m in mono), acb(0)) / L for i in range(q.degree + 1)]

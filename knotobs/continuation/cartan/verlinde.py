@@ -107,19 +107,10 @@ def verlinde_polynomial(N: int, g: int) -> tuple[Fraction, ...]:
 
 def _interpolate(xs: list[int], ys: list[int]) -> list[Fraction]:
     """Coefficients of the polynomial through ``(xs, ys)`` (Newton's divided differences, exact)."""
-    n = len(xs)
-    dd = [Fraction(y) for y in ys]
-    for j in range(1, n):
-        for i in range(n - 1, j - 1, -1):
-            dd[i] = (dd[i] - dd[i - 1]) / (xs[i] - xs[i - j])
-    coeffs = [Fraction(0)] * n
-    for i in range(n - 1, -1, -1):       # Horner on the Newton form: p = dd[i] + (K - x_i) p
-        new = [Fraction(0)] * n
-        for k in range(n - 1):
-            new[k + 1] += coeffs[k]
-            new[k] -= xs[i] * coeffs[k]
-        new[0] += dd[i]
-        coeffs = new
+    from knotobs.continuation.cartan.newton import divided_differences, newton_to_monomial
+
+    dd = divided_differences(xs, [Fraction(y) for y in ys])
+    coeffs = newton_to_monomial(xs, dd, Fraction(0))
     while len(coeffs) > 1 and coeffs[-1] == 0:
         coeffs.pop()
     return coeffs
