@@ -161,6 +161,7 @@ def test_level_plane_plot_of_su_n_and_of_e_zero():
         fig = plot_level_plane(space, None, (3.0, 6.0), (-0.5, 0.5), n=2, digits=12, group=group)
         N = int(group[3:-1])
         assert fig.data["group"] == group and fig.data["integer_K"][0] == max(3, N)
+        assert fig.data["profile"].startswith(group + ",")
         z = continued_sun_partition_function(space, group, K=mpmath.mpc(6.0, 0.5), digits=12).numeric
         re_, im_ = fig.data["Z"][1][1]
         assert abs(complex(re_, im_) - complex(z)) < 1e-10

@@ -169,6 +169,11 @@ def smooth_grid(values, factor: int):
 _SPACE_PROFILE = "SU(2), color: none (no Wilson line); canonical 2-framing; normalization Z(S^3) = S_00"
 
 
+def _space_profile(group: str) -> str:
+    """The profile line of a partition-function figure for ``group``."""
+    return _SPACE_PROFILE.replace("SU(2)", group, 1)
+
+
 def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0), n=24, digits=12,
                      smooth: int = 6, progress: Optional[bool] = None, group: str = "SU(2)") -> Figure:
     """Modulus (log scale) and phase of ``Z(K)`` over ``re_range x im_range`` in the ``K`` plane.
@@ -243,7 +248,8 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
             step(i * n + j + 1)
     ints = [k for k in range(int(np.ceil(re_range[0])), int(np.floor(re_range[1])) + 1) if k >= N]
     finite = bool(np.isfinite(Z).all())
-    data = {"space": str(space), "group": str(g), "profile": _SPACE_PROFILE, "re": xs.tolist(), "im": ys.tolist(),
+    profile = _space_profile(str(g))
+    data = {"space": str(space), "group": str(g), "profile": profile, "re": xs.tolist(), "im": ys.tolist(),
             "Z": [[[z.real, z.imag] if np.isfinite(z) else None for z in row] for row in Z],
             "log10_abs_Z": logabs.tolist(), "arg_Z": arg.tolist(), "integer_K": ints}
     if p is None:
@@ -269,7 +275,7 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
         ax.set_xlabel(r"Re $K$")
         ax.set_ylabel(r"Im $K$")
         ax.set_title(f"{g} $Z(K)$ of {space}: {title}")
-    fig.suptitle(_SPACE_PROFILE, fontsize=9)
+    fig.suptitle(profile, fontsize=9)
     _save(fig, p, plt)
     return Figure(p, "level-plane", data)
 
