@@ -445,7 +445,7 @@ def _zero_euler(space, group, level, K, digits, phases, method):
         return None
     if phases != "reduced":
         raise DomainError(f"phases = {phases!r} (--phases): {M} has e = 0, so there is no Lawrence-Rozansky phase"
-                          " cs(u) = P|u|^2/(2H); its sectors exp(2 pi i K j/L) are reduced (j/L in (-1/2, 1/2]);"
+                          " cs(u) = P|u|^2/(2H); its sectors exp(2 pi i K j/L) are reduced (j/L in (-1/2, 1/2), cos(pi K) at 1/2);"
                           " use phases='reduced'")
     if method not in ("auto", "both"):
         raise DomainError(f"method = {method!r} (--route): {M} has e = 0; its value is the quasi-polynomial in K of"
@@ -532,8 +532,9 @@ def _zero_euler(space, group, level, K, digits, phases, method):
 
 def continued_sun_seconds(space, group, K, digits: int = 20) -> tuple[float, float, float]:
     """``(once, per_value, megabytes)``: estimated seconds of the work done once per space (the
-    finite levels of a Verlinde or quasi-polynomial) and of one continued value at ``K`` (the
-    residue route counts its exact pieces in every value: an upper estimate), before any work.
+    finite levels of a Verlinde or quasi-polynomial; the residue route's iterated residues, mostly
+    exact pieces cached per space) and of one continued value at ``K`` (an upper estimate: it
+    counts every line integral, docs 18.7), before any work.
 
     >>> once, each, mb = continued_sun_seconds("L(5,1)", "SU(3)", mpmath.mpc(7.5, 0.3), 20)
     >>> once == 0 and each < 1
