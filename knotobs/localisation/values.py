@@ -118,7 +118,9 @@ def localisation_seconds(s: LocalisationSum, exact: bool = False) -> tuple[float
            + seconds_for(roots * 4, "ball") / 8)
     if exact:
         sec += exact_cost(s) * EXACT_SECONDS_PER_OP
-    mb = (terms * 8 * 6 + tables * 8 * 3 + s.size * s.N * 8 * 4) / 1e6
+    # the root-of-unity tables of every fiber (modulus 2 N a K entries each): about 200 bytes an
+    # entry (measured 2026-12-04: SU(2) at K = 5 10^4 on Sigma(2,3,7), 565 MB for 2.6 10^6 entries)
+    mb = (terms * 8 * 6 + tables * 8 * 3 + s.size * s.N * 8 * 4 + roots * 200) / 1e6
     return sec, mb
 
 
