@@ -190,10 +190,6 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
     if framing is None and mode == "zero" and F.homology_class is None \
             and not F.manifold.is_rational_homology_sphere:
         mode = "fiber"          # H_1 infinite (e = 0 or base genus >= 1): no zero framing to default to
-    if in_s3 and normalized and route in ("auto", None) and g.kind == "SU":
-        why = _polynomials_are_cheaper(F.manifold, g, k, cols, level, mode)
-        if why is not None:
-            return _polynomial_only(k, g, cols, level, framing, mode, digits, F, pair=why)
     check_skipped = None
     if in_s3 and normalized:
         # the exact polynomial is the second route: its estimate before any work, so that a
@@ -203,6 +199,10 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         from knotobs.guard import current_limits
 
         psec, pmb, pwhat = fixed_estimate(k, g, cols, "Rosso-Jones")
+        if route in ("auto", None) and g.kind == "SU":
+            why = _polynomials_are_cheaper(F.manifold, g, k, cols, level, mode, psec)
+            if why is not None:
+                return _polynomial_only(k, g, cols, level, framing, mode, digits, F, pair=why)
         lim = current_limits()
         if psec > lim.seconds or pmb > lim.memory_mb:
             check_skipped = (f"not computed: {pwhat}, estimated {psec:.3g} s and {pmb:.3g} MB, above the"
@@ -322,9 +322,10 @@ POLYNOMIAL_RATIO = 3.0
 EXACT_PAIR_K = 2000
 
 
-def _polynomials_are_cheaper(M, g, k, cols, level, mode) -> str | None:
+def _polynomials_are_cheaper(M, g, k, cols, level, mode, rj_seconds: float) -> str | None:
     """Why the two polynomial routes (Rosso-Jones and the weight sum, exact in ``q``) answer a
-    normalised S^3 loop at ``level`` instead of surgery or localisation, or ``None``."""
+    normalised S^3 loop at ``level`` instead of surgery or localisation, or ``None``
+    (``rj_seconds``: the Rosso-Jones estimate the caller already has)."""
     from knotobs.evaluation.estimates import fixed_estimate
     from knotobs.evaluation.seifert_routes import loop_estimates
     from knotobs.localisation.values import check_fiber_lines
@@ -336,7 +337,7 @@ def _polynomials_are_cheaper(M, g, k, cols, level, mode) -> str | None:
     if not fits:
         return None             # the caller's fallback (one polynomial route) says so
     best = min(fits, key=lambda e: e.seconds)
-    poly = sum(fixed_estimate(k, g, cols, r)[0] for r in ("Rosso-Jones", "weight-sum"))
+    poly = rj_seconds + fixed_estimate(k, g, cols, "weight-sum")[0]
     if best.seconds > POLYNOMIAL_SWITCH_SECONDS and best.seconds > POLYNOMIAL_RATIO * poly:
         return (f"auto: the exact polynomials at q (estimated {poly:.2g} s; the cheapest Seifert route,"
                 f" {best.route}, {best.seconds:.2g} s)")

@@ -166,12 +166,9 @@ def smooth_grid(values, factor: int):
     return along(along(values, 0), 1)
 
 
-_SPACE_PROFILE = "SU(2), color: none (no Wilson line); canonical 2-framing; normalization Z(S^3) = S_00"
-
-
-def _space_profile(group: str) -> str:
+def _space_profile(group: str = "SU(2)") -> str:
     """The profile line of a partition-function figure for ``group``."""
-    return _SPACE_PROFILE.replace("SU(2)", group, 1)
+    return f"{group}, color: none (no Wilson line); canonical 2-framing; normalization Z(S^3) = S_00"
 
 
 def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0), n=24, digits=12,
@@ -318,7 +315,7 @@ def plot_asymptotics(space, out=None, Ks=None, orders=(0, 1, 2), digits=30, kmax
         return [0.0 if abs(float(mpmath.re(z))) < 1e-25 else float(mpmath.re(z)),
                 0.0 if abs(float(mpmath.im(z))) < 1e-25 else float(mpmath.im(z))]
 
-    data = {"space": str(space), "profile": _SPACE_PROFILE, "K": Ks,
+    data = {"space": str(space), "profile": _space_profile(), "K": Ks,
             "exact": [clean(r.exact) for r in rows0],
             "asymptotic": {str(o): [_c(r.asymptotic) for r in rows] for o, rows in per_order.items()},
             "error": {str(o): [float(r.error) for r in rows] for o, rows in per_order.items()},
@@ -358,7 +355,7 @@ def plot_asymptotics(space, out=None, Ks=None, orders=(0, 1, 2), digits=30, kmax
     axes[2].set_ylabel(r"$|Z_K - Z_K^{\mathrm{asympt}}|$")
     axes[2].set_title("error (dashed: predicted power of K)")
     axes[2].legend(fontsize=8)
-    fig.suptitle(_SPACE_PROFILE, fontsize=9)
+    fig.suptitle(_space_profile(), fontsize=9)
     _save(fig, p, plt)
     return Figure(p, "asymptotics", data)
 

@@ -174,10 +174,6 @@ def quasi_polynomial_levels(space: str, N: int, digits: int,
     return tuple(sorted(a + b))
 
 
-def _ball(s: str, rad) -> arb:
-    return arb(s, rad)
-
-
 def _class_tables(q: QuasiPolynomialData, digits: int, route: str = "localisation"):
     """Per residue class ``c`` of ``K`` mod ``L``: the nodes and Newton divided differences of the
     polynomial through its first ``d + 1`` values; the remaining two values of the class are
@@ -187,13 +183,14 @@ def _class_tables(q: QuasiPolynomialData, digits: int, route: str = "localisatio
     err = arb(10) ** (-digits)
     classes = []
     for c in range(L):
-        pts = [(K, acb(_ball(re_, err * max(1, abs(float(re_)) + abs(float(im_)))),
-                       _ball(im_, err * max(1, abs(float(re_)) + abs(float(im_))))))
-               for i, (K, re_, im_) in enumerate(table) if i % L == c]
+        pts = []
+        for K, re_, im_ in table[c::L]:
+            rad = err * max(1, abs(float(re_)) + abs(float(im_)))
+            pts.append((K, acb(arb(re_, rad), arb(im_, rad))))
         xs = [K for K, _ in pts[: d + 1]]
         dd = divided_differences(xs, [v for _, v in pts[: d + 1]])
         for K, v in pts[d + 1:]:
-            diff = _newton(xs, dd, acb(K)) - v
+            diff = newton_value(xs, dd, acb(K)) - v
             if not diff.contains(0):
                 raise KnotobsError(
                     f"SU({q.N}) on {q.space}: exp(i pi |rho|^2 phi/K) Z is not a polynomial of degree <= {d}"
@@ -201,10 +198,6 @@ def _class_tables(q: QuasiPolynomialData, digits: int, route: str = "localisatio
                     f" {mpmath.nstr(float(abs(diff).mid()), 3)}); docs/continuation_sun.md §18.11")
         classes.append((xs, dd))
     return classes
-
-
-def _newton(xs, dd, K: acb) -> acb:
-    return newton_value(xs, dd, K)
 
 
 def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int,
@@ -223,7 +216,7 @@ def quasi_polynomial_sectors(q: QuasiPolynomialData, K: acb, digits: int,
     def Q(j, x):
         s = acb(0)
         for (xs, dd), c in zip(classes, cls):
-            s += zeta[(-j * c) % L] * _newton(xs, dd, x)
+            s += zeta[(-j * c) % L] * newton_value(xs, dd, x)
         return s / L
 
     probes = [acb(q.N + 1 + t) for t in range(d + 1)]
