@@ -139,8 +139,9 @@ def guard_fixed(knot, group, cols, route: str = "Rosso-Jones") -> None:
     require(what, seconds=sec, memory_mb=mem, accepted="choose a smaller colour or knot")
 
 
-def fixed_estimate(knot, group, cols, route: str = "Rosso-Jones") -> tuple[float, float, str]:
-    """``(seconds, megabytes, description)`` of a fixed-N evaluation of ``knot`` coloured by ``cols``.
+def fixed_estimate(knot, group, cols, route: str = "Rosso-Jones", printed: bool = True) -> tuple[float, float, str]:
+    """``(seconds, megabytes, description)`` of a fixed-N evaluation of ``knot`` coloured by ``cols``
+    (``printed=False``: a polynomial only evaluated at a root of unity, never printed).
 
     Knots: the weights of the colour.  Links: the weights of the tensor product (the
     weight-sum route) or its irreducible pieces, each with its weights (the Rosso–Jones route).
@@ -178,11 +179,11 @@ def fixed_estimate(knot, group, cols, route: str = "Rosso-Jones") -> tuple[float
     boxes = sum(sum(c) for c in cols)
     length = knot.P * knot.Q * boxes * boxes // 2 + N ** 3
     sec = seconds_for(py, "python") + seconds_for(npy + 6 * length, "numpy")
-    printed = min(length, k * ((N - 1) * min(knot.P, knot.Q) * boxes + N ** 3))
-    sec += format_seconds(printed)
+    if printed:
+        sec += format_seconds(min(length, k * ((N - 1) * min(knot.P, knot.Q) * boxes + N ** 3)))
     mem = (k * N * 8 * 8 + 3 * 8 * length) / 2**20
     return sec, mem, (f"{user_label(_describe(knot, group, cols))} by the {route} route: about {k:.3g} weights"
-                      f" and {length:.3g} output coefficients (printing included)")
+                      f" and {length:.3g} output coefficients{' (printing included)' if printed else ''}")
 
 
 def polynomial_estimate(knot, cols, group=None, with_z: bool = False) -> tuple[float, float]:

@@ -198,13 +198,17 @@ def level_loop(knot: Optional[str] = None, level: int = 1, group="SU(2)", rep=(1
         from knotobs.evaluation.estimates import fixed_estimate
         from knotobs.guard import current_limits
 
+        # rosso_jones guards itself with the estimate that includes printing; the route choice
+        # compares the cost of the evaluation alone
         psec, pmb, pwhat = fixed_estimate(k, g, cols, "Rosso-Jones")
-        if route in ("auto", None) and g.kind == "SU":
-            why = _polynomials_are_cheaper(F.manifold, g, k, cols, level, mode, psec)
+        lim = current_limits()
+        fits = psec <= lim.seconds and pmb <= lim.memory_mb
+        if fits and route in ("auto", None) and g.kind == "SU":
+            why = _polynomials_are_cheaper(F.manifold, g, k, cols, level, mode,
+                                           fixed_estimate(k, g, cols, "Rosso-Jones", printed=False)[0])
             if why is not None:
                 return _polynomial_only(k, g, cols, level, framing, mode, digits, F, pair=why)
-        lim = current_limits()
-        if psec > lim.seconds or pmb > lim.memory_mb:
+        if not fits:
             check_skipped = (f"not computed: {pwhat}, estimated {psec:.3g} s and {pmb:.3g} MB, above the"
                              f" limits ({lim.seconds:g} s, {lim.memory_mb:g} MB)")
     try:
@@ -327,7 +331,7 @@ def _polynomials_are_cheaper(M, g, k, cols, level, mode, rj_seconds: float) -> s
     normalised S^3 loop at ``level`` instead of surgery or localisation, or ``None``
     (``rj_seconds``: the Rosso-Jones estimate the caller already has)."""
     from knotobs.evaluation.estimates import fixed_estimate
-    from knotobs.evaluation.seifert_routes import loop_estimates
+    from knotobs.evaluation.seifert_routes import RouteEstimate, loop_estimates
     from knotobs.localisation.values import check_fiber_lines
 
     for lam in cols:
@@ -337,7 +341,10 @@ def _polynomials_are_cheaper(M, g, k, cols, level, mode, rj_seconds: float) -> s
     if not fits:
         return None             # the caller's fallback (one polynomial route) says so
     best = min(fits, key=lambda e: e.seconds)
-    poly = rj_seconds + fixed_estimate(k, g, cols, "weight-sum")[0]
+    ws_full, ws_mb, _ = fixed_estimate(k, g, cols, "weight-sum")
+    if not RouteEstimate("weight-sum", ws_full, ws_mb).fits():
+        return None             # the weight sum would refuse itself (its guard counts printing)
+    poly = rj_seconds + fixed_estimate(k, g, cols, "weight-sum", printed=False)[0]
     if best.seconds > POLYNOMIAL_SWITCH_SECONDS and best.seconds > POLYNOMIAL_RATIO * poly:
         return (f"auto: the exact polynomials at q (estimated {poly:.2g} s; the cheapest Seifert route,"
                 f" {best.route}, {best.seconds:.2g} s)")
@@ -365,10 +372,9 @@ def _polynomial_only(k, g, cols, level, framing, mode, digits, F, pair: str | No
                  "route_choice": pair}
     if pair is not None and K > EXACT_PAIR_K:
         # the cyclotomic form would have about phi(2K) terms: numeric only (as the Seifert routes
-        # at such levels), with the digits the coefficients can cancel added to the evaluation
+        # at such levels); the evaluation adds the digits its coefficients can cancel
         exact = None
-        spread = max(1, sum(abs(int(c)) for c in poly.terms().values()))
-        numeric = poly.at_root_of_unity(K, dps=digits + 10 + len(str(spread)))
+        numeric = poly.at_root_of_unity(K, dps=digits + 10)
         with working_precision(digits):
             numeric = +numeric
     else:

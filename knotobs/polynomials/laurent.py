@@ -348,10 +348,10 @@ class Laurent:
         >>> (q + q**-1).evaluate(2)
         mpf('2.5')
         """
-        with working_precision(dps + 10):
-            c = self.canonical()
-            if c._p.is_zero():
-                return mpmath.mpf(0)
+        c = self.canonical()
+        if c._p.is_zero():
+            return mpmath.mpf(0)
+        with working_precision(dps + 10 + c._cancel_digits()):
             if log_x is None:
                 if c._d == 1 and x is not None:
                     x = mpmath.mpmathify(x)
@@ -388,6 +388,11 @@ class Laurent:
                 Kv = mpmath.mpmathify(K)
             return self.evaluate(log_x=2j * mpmath.pi / Kv, dps=dps)
 
+    def _cancel_digits(self) -> int:
+        """Digits a sum of these terms can lose to cancellation: the size of the largest
+        coefficient and of the number of terms."""
+        return int(0.302 * self._p.height_bits()) + len(str(self._p.degree() + 1))
+
     def _at_integer_root(self, K: int, dps: int):
         """``at_root_of_unity`` at an integer ``K`` for a canonical element whose span exceeds the
         order ``n = K d`` of ``y = exp(2 pi i/(K d))`` (``x = y^d``): the exact integer polynomial is
@@ -397,7 +402,7 @@ class Laurent:
 
         n = K * self._d
         red = self._p % fmpz_poly([-1] + [0] * (n - 1) + [1])
-        with working_precision(dps + 10 + len(str(max((abs(int(a)) for a in red.coeffs()), default=1)))):
+        with working_precision(dps + 10 + int(0.302 * red.height_bits()) + len(str(n))):
             y = acb.exp_pi_i(acb(2) / n)
             val = acb_poly(red.coeffs())(y) * acb.exp_pi_i(acb(2 * (self._s % n)) / n)
             return mpmath.mpc(mpmath.mpf(val.real.mid().str(dps + 10, radius=False)),
