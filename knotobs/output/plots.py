@@ -207,10 +207,18 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
         raise PlotError(f"--group {group}: the continuation in the level is computed for SU(N)")
     N = g.N
     corner = mpmath.mpc(max(abs(re_range[0]), abs(re_range[1])), max(abs(im_range[0]), abs(im_range[1])))
+    xs = np.linspace(*re_range, n)
+    ys = np.linspace(*im_range, n)
+    # the work per value grows with |K| (sizes of the Gaussian sums) or as K -> 0 (wider
+    # Gaussians, more nodes): estimated at the far corner and at the grid point nearest 0
+    near = min((complex(float(x), float(y)) for x in xs for y in ys), key=abs)
+    points = (corner, mpmath.mpc(near))
     if N == 2 and not has_zero_euler(parse_space(space)):
         from knotobs.continuation.level import LRData, continuation_cost
 
-        once, (one, mem, _) = 0.0, continuation_cost(LRData.from_space(space), corner, digits)
+        data = LRData.from_space(space)
+        costs = [continuation_cost(data, K, digits) for K in points]
+        once, one, mem = 0.0, max(c[0] for c in costs), max(c[1] for c in costs)
 
         def continued(K):
             from knotobs.continuation.level import continued_partition_function
@@ -219,7 +227,8 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
     else:
         from knotobs.continuation.cartan.value import continued_sun_partition_function, continued_sun_seconds
 
-        once, one, mem = continued_sun_seconds(space, str(g), corner, digits)
+        costs = [continued_sun_seconds(space, str(g), K, digits) for K in points]
+        once, one, mem = (max(c[i] for c in costs) for i in range(3))
 
         def continued(K):
             return continued_sun_partition_function(space, str(g), K=K, digits=digits).numeric
@@ -229,8 +238,6 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
                       "the grid is already the smallest (--n 2): use a smaller N, fewer digits or a smaller range"))
     show = sys.stderr.isatty() if progress is None else progress
     step = _progress(n * n, show)
-    xs = np.linspace(*re_range, n)
-    ys = np.linspace(*im_range, n)
     Z = np.zeros((n, n), dtype=complex)
     # log10 |Z| and arg Z from the certified values themselves: far from the real axis |Z| leaves
     # the range of floats (10^308), where Z itself is given as null (never Infinity)

@@ -43,7 +43,7 @@ from knotobs.continuation.cartan.rootfn import (RootFunction, Scale, _q, grid_se
                                                period_phase, reflection_sign, shifted_grid, symbolic_scale)
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain",
-           "pole_range_digits"]
+           "pole_range_digits", "pole_line_count"]
 
 
 # ------------------------------------------------------------------ partial fractions
@@ -1079,6 +1079,23 @@ def pole_cost(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
     return lines_ops + points_ops, what
 
 
+def pole_line_count(orders: tuple[int, ...], H: int, P: int, cosets=None, genus: int = 0) -> tuple[int, int]:
+    """``(line integrals, terms)`` of the formula of CONVENTIONS §18.7 (``~ 3P (H^2 + 4H)`` lines per
+    term plus the contour shifts of the planes, ``~ 2P`` each, and the third-family lines of the
+    terms that are not odd), counted before the symmetries that spare most of them.
+
+    >>> pole_line_count((2, 3, 5), 1, 30)
+    (630, 1)
+    """
+    H = abs(H)
+    deg = len(orders) - 2 + 2 * genus
+    cosets = cosets if cosets is not None else [Coset.trivial(len(orders))]
+    terms = [t for c in cosets for t in merged_terms(tuple(orders), c.shifts, c.lin, deg)]
+    nterms = len(terms)
+    odd = sum(1 for t in terms if SKIP_ODD_THIRD and odd_third_family(t))     # no third-family lines
+    return nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P) + (nterms - odd) * 2 * P * H, nterms
+
+
 def pole_cost_parts(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
                     cosets=None, genus: int = 0) -> tuple[float, float, str]:
     """:func:`pole_cost` split into the line integrals (every value) and the iterated residues
@@ -1089,14 +1106,10 @@ def pole_cost_parts(orders: tuple[int, ...], H: int, P: int, K: complex, digits:
     growth = _plan_growth(theta, cabs, 2 * (sum(1 / p for p in orders) + 1))
     _, h, S, _ = pole_plan(math.sin(theta), cabs, digits, growth)
     nodes = 2 * int(math.ceil(S / h)) + 1
-    deg = len(orders) - 2 + 2 * genus
-    cosets = cosets if cosets is not None else [Coset.trivial(len(orders))]
-    terms = [t for c in cosets for t in merged_terms(tuple(orders), c.shifts, c.lin, deg)]
-    nterms = len(terms)
-    odd = sum(1 for t in terms if SKIP_ODD_THIRD and odd_third_family(t))     # no third-family lines
-    lines = nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P) + (nterms - odd) * 2 * P * H
+    lines, nterms = pole_line_count(orders, H, P, cosets, genus)
     points = nterms * ((3 * P) ** 2 + lines * P // 2)
     # measured: higher poles cost more per line (Taylor grids) and per residue (longer series)
+    deg = len(orders) - 2 + 2 * genus
     scale = 0.55 if deg <= 1 else 0.6 * deg ** 1.3
     return (25.0 * lines * nodes * scale, 30.0 * points * scale,
             f"{lines} line integrals of {nodes} nodes, about {points} iterated residues")

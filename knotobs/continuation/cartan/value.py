@@ -30,11 +30,11 @@ from knotobs._notebook import NotebookMixin
 from knotobs.continuation._num import ball_seconds, bits, checked, to_acb, to_mpc, working_bits
 from knotobs.continuation.cartan.data import B_N, CartanData, PolesNotCoveredError
 from knotobs.continuation.cartan.gaussian import abelian_cs_values, gaussian_sectors, gaussian_terms
-from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_range_digits, pole_sum_sectors
+from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_line_count, pole_range_digits, pole_sum_sectors
 from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_sectors
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
 from knotobs.errors import KnotobsError, PrecisionError
-from knotobs.guard import require
+from knotobs.guard import current_limits, require
 from knotobs.paired_runs import run_both, second_core
 from knotobs.precision import certified_parts, check_digits
 from knotobs.representations.groups import parse_group
@@ -115,9 +115,15 @@ def _range_digits(d: CartanData, Kv, method: str) -> int:
     return max(0, int(math.ceil(lost)) - 15)
 
 
-def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed") -> tuple[float, float, str]:
+def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed",
+                          counted: bool = False) -> tuple[float, float, str]:
     """Estimated ``(seconds, megabytes, description)`` of one continued value (both runs; for the
     residue route the longer of them when they run side by side, :func:`knotobs.paired_runs.second_core`).
+
+    For the residue route the closed-form count of :func:`.poles.pole_cost` is an upper estimate
+    (4-30 times the work); with ``counted`` the integrals the run will evaluate are counted first
+    (:func:`.pole_tally.pole_tally`, a dry run of the enumeration, when its closed-form line count
+    is at most :data:`.pole_tally.TALLY_LINES`) and the smaller estimate is taken.
 
     >>> s, mb, what = continuation_sun_cost(CartanData.from_space("L(5,1)", 3), mpmath.mpc(7.5, 0.3), 30)
     >>> s < 1 and "900 exponentials" in what
@@ -125,11 +131,21 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
     """
     where = f"continued SU({d.N}) Z({d.space}) at K = {mpmath.nstr(Kv, 12)} to {digits} digits"
     if method == "residues":
-        ops, what = pole_cost(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
-                              d.cosets(), d.genus)
+        target = digits + 12 + _guard_digits(Kv, method)
+        ops, what = pole_cost(d.big_orders, d.HL, d.L, complex(Kv), target, d.cosets(), d.genus)
         rng = _range_digits(d, Kv, method)
         fine = ball_seconds(ops, digits + 12 + rng) / 6.0                  # measured
         coarse = ball_seconds(ops * 0.8, digits + 3 + rng) / 6.0
+        if counted:
+            from knotobs.continuation.cartan import pole_tally as pt
+
+            if pole_line_count(d.big_orders, d.HL, d.L, d.cosets(), d.genus)[0] <= pt.TALLY_LINES:
+                tally = pt.pole_tally(d.big_orders, d.HL, d.L, complex(Kv), target, d.cosets(), d.genus)
+                run = pt.tallied_run_seconds(tally, target + rng)
+                if run < fine:
+                    # the coarse run has fewer nodes at lower precision: at most the fine one
+                    fine, coarse = run, run
+                    what += f"; counted: {tally['distinct']} lines integrated, {tally['planes']} planes"
         # side by side (knotobs.paired_runs) the wait is the longer run, about 30% slower beside
         # the other (measured on two cores)
         sec = 1.3 * max(fine, coarse) if second_core() else fine + coarse
@@ -167,6 +183,9 @@ def _prepare(space, group, level, K, digits, phases, method):
     if method == "residues":
         pole_domain(d.H, complex(Kv))
     sec, mb, what = continuation_sun_cost(d, Kv, digits, method)
+    if method == "residues" and sec > current_limits().seconds:
+        # the closed-form count is an upper estimate: count what the run integrates before refusing
+        sec, mb, what = continuation_sun_cost(d, Kv, digits, method, counted=True)
     accepted = ("ask for fewer digits, or a space with smaller |H|, fewer exceptional fibers or a lower"
                 " base genus" if method == "residues" else
                 "ask for fewer digits, a smaller N or a lens space with smaller |H|")
@@ -560,13 +579,15 @@ def continued_sun_seconds(space, group, K, digits: int = 20) -> tuple[float, flo
     sec, mb, _ = continuation_sun_cost(d, Kv, digits, method)
     if method != "residues":
         return 0.0, sec, mb
-    # the iterated residues are mostly the exact pieces, computed once per space (docs 18.7)
+    # the iterated residues are mostly the exact pieces, computed once per space (docs 18.7); the
+    # quadratures of every value are counted (continuation_sun_cost with counted=True)
     from knotobs.continuation.cartan.poles import pole_cost_parts
 
     lines, points, _ = pole_cost_parts(d.big_orders, d.HL, d.L, complex(Kv), digits + 12 + _guard_digits(Kv, method),
                                        d.cosets(), d.genus)
     share = lines / (lines + points)
-    return sec * (1 - share), sec * share, mb
+    each = continuation_sun_cost(d, Kv, digits, method, counted=True)[0]
+    return sec * (1 - share), min(sec * share, each), mb
 
 
 def continued_sun_Z(space, K, group="SU(3)", digits: int = 30, phases: str = "reduced") -> mpmath.mpc:
