@@ -88,6 +88,16 @@ def _c(z) -> list[float]:
     return [float(mpmath.re(z)), float(mpmath.im(z))]
 
 
+def _to_digits(x: float, digits: int) -> float:
+    """``x`` rounded to ``digits`` significant digits (a figure's data carry no digits beyond those
+    its values were certified to; doubles hold at most 17).
+
+    >>> _to_digits(0.12345678901234567, 6), _to_digits(-2.5e-40, 3)
+    (0.123457, -2.5e-40)
+    """
+    return float(f"{x:.{max(1, min(int(digits), 17))}g}")
+
+
 def _save(fig, p: Path, plt) -> None:
     """Write the figure; a file that cannot be written is a :class:`PlotError`, never a partial file."""
     try:
@@ -254,8 +264,10 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
     finite = bool(np.isfinite(Z).all())
     profile = _space_profile(str(g))
     data = {"space": str(space), "group": str(g), "profile": profile, "re": xs.tolist(), "im": ys.tolist(),
-            "Z": [[[z.real, z.imag] if np.isfinite(z) else None for z in row] for row in Z],
-            "log10_abs_Z": logabs.tolist(), "arg_Z": arg.tolist(), "integer_K": ints}
+            "Z": [[[_to_digits(z.real, digits), _to_digits(z.imag, digits)] if np.isfinite(z) else None
+                   for z in row] for row in Z],
+            "log10_abs_Z": [[_to_digits(v, digits) for v in row] for row in logabs.tolist()],
+            "arg_Z": [[_to_digits(v, digits) for v in row] for row in arg.tolist()], "integer_K": ints}
     if p is None:
         return Figure(None, "level-plane", data)
     plt = _plt()
