@@ -137,7 +137,7 @@ def _rep_for(group, rep, color):
         if color is not None:
             raise ParseError(f"color={color!r} is the SU(2) shorthand; for {group} give rep (a partition or Dynkin labels)")
         return "[1]" if rep is None else rep
-    return as_rep(rep, color)
+    return as_rep(rep, color, group)
 
 
 _LEVEL_ROUTES = (None, "auto", "surgery", "localisation", "both")
@@ -150,15 +150,20 @@ def _looks_like_rep(x) -> bool:
     return isinstance(x, (list, tuple))
 
 
-def as_rep(rep, color: Optional[int] = None):
+def as_rep(rep, color: Optional[int] = None, group=None):
     """A partition, or a list of partitions (one per component), from text or sequences.
 
-    ``color = n`` is the SU(2) shorthand for the ``n``-dimensional irrep, ``[n-1]``.
+    ``color = n`` is the SU(2) shorthand for the ``n``-dimensional irrep, ``[n-1]``.  Text in round
+    brackets, ``"(1,1)"``, is SU(N) Dynkin labels of ``group``
+    (:func:`knotobs.representations.partitions.parse_rep_for`), never a partition.
 
     >>> as_rep("[2,1]"), as_rep("[1];[2]"), as_rep([[1], [2]]), as_rep(None, color=3)
     ((2, 1), [(1,), (2,)], [(1,), (2,)], (2,))
     """
-    from knotobs.representations.partitions import as_partition, parse_partition
+    from knotobs.representations.partitions import as_partition, parse_rep_for
+
+    def parse_partition(text):
+        return parse_rep_for(text, None if group is None else str(group))
 
     if color is not None:
         if rep is not None:
@@ -183,10 +188,10 @@ def as_rep(rep, color: Optional[int] = None):
     raise InvalidRepresentationError(f"rep {rep!r}: give a partition such as [2,1], or one per component")
 
 
-def _required_rep(rep):
+def _required_rep(rep, group=None):
     if rep is None:
         raise InvalidRepresentationError("rep None: give a partition such as [1] or [2,1] (one per component for links)")
-    return as_rep(rep)
+    return as_rep(rep, group=group)
 
 
 def as_level(level, name: str = "level") -> int:
@@ -427,11 +432,11 @@ def fiber_wilson_loop(space, group="SU(2)", level=None, rep=None, *, fiber: Opti
     for i, lam in (exceptional or {}).items():
         if not _is_int(i) or i < offset:
             raise ParseError(f"exceptional fiber {i!r}: fibers are numbered {offset}..n")
-        exc[i - offset] = as_rep(lam)
+        exc[i - offset] = as_rep(lam, group=g)
     if fiber is not None:
         if not _is_int(fiber) or fiber < 1:
             raise ParseError(f"fiber {fiber!r}: exceptional fibers are numbered 1..n")
-        exc[fiber - 1] = as_rep(rep)
+        exc[fiber - 1] = as_rep(rep, group=g)
     elif rep is not None:
         raise ParseError("rep colours an exceptional fiber: give fiber=i too (or regular=[...] for regular fibers)")
     if isinstance(space, str):
@@ -449,9 +454,9 @@ def fiber_wilson_loop(space, group="SU(2)", level=None, rep=None, *, fiber: Opti
             raise ParseError("U(N) fiber loops are computed normalised by Z(M): drop raw=True")
         if route not in ("auto", "both"):
             raise ParseError(f"route={route!r}: U(N) fiber loops take route 'auto' or 'both'")
-        return unitary_fiber_loop(space, str(g), k, regular=[as_rep(c) for c in regular], exceptional=exc,
+        return unitary_fiber_loop(space, str(g), k, regular=[as_rep(c, group=g) for c in regular], exceptional=exc,
                                   framing=framing, digits=digits, route=route)
-    return _fwl(space, k, str(g), regular=[as_rep(c) for c in regular], exceptional=exc,
+    return _fwl(space, k, str(g), regular=[as_rep(c, group=g) for c in regular], exceptional=exc,
                 normalized=normalized, digits=digits, framing=framing, exact=exact, route=route or "auto")
 
 
@@ -468,7 +473,7 @@ def rosso_jones(knot, group="SU(2)", rep=(1,), framing=0):
     """
     from knotobs.evaluation.rosso_jones import rosso_jones as _rj
 
-    return _rj(as_knot(knot), as_group(group), _required_rep(rep), framing)
+    return _rj(as_knot(knot), as_group(group), _required_rep(rep, group), framing)
 
 
 @_only_knotobs_errors
@@ -484,7 +489,7 @@ def weight_sum(knot, group="SU(2)", rep=(1,), framing=0):
     """
     from knotobs.evaluation.weight_sum import weight_sum as _ws
 
-    return _ws(as_knot(knot), as_group(group), _required_rep(rep), framing)
+    return _ws(as_knot(knot), as_group(group), _required_rep(rep, group), framing)
 
 
 @_only_knotobs_errors

@@ -13,7 +13,7 @@ from contextlib import contextmanager
 from pathlib import Path
 from typing import Iterator, Optional
 
-from knotobs.errors import ParseError, SizeLimitError
+from knotobs.errors import InvalidRepresentationError, ParseError, SizeLimitError
 from knotobs.precision import check_digits
 
 __all__ = ["digits", "reps", "float_range", "output_path", "int_at_least", "naming"]
@@ -24,9 +24,10 @@ def digits(value, option: str = "--digits") -> int:
     return check_digits(value, option)
 
 
-def reps(text: Optional[str], option: str = "--rep", one_allowed: bool = True):
-    """``[2,1]`` (one partition) or ``[1];[2]`` (one per component); nothing empty or unbalanced."""
-    from knotobs.representations.partitions import parse_partition
+def reps(text: Optional[str], option: str = "--rep", one_allowed: bool = True, group: Optional[str] = None):
+    """``[2,1]`` (one partition) or ``[1];[2]`` (one per component); nothing empty or unbalanced.
+    ``(1,1)`` are SU(N) Dynkin labels of ``group`` (:func:`knotobs.representations.partitions.parse_rep_for`)."""
+    from knotobs.representations.partitions import parse_rep_for
 
     if text is None or not str(text).strip():
         raise ParseError(f"{option} {text!r} is empty: give a partition such as [1] or [2,1]"
@@ -38,9 +39,13 @@ def reps(text: Optional[str], option: str = "--rep", one_allowed: bool = True):
             raise ParseError(f"{option} {text!r} has an empty entry: separate partitions by one ';',"
                              " e.g. [1];[2]")
         try:
-            out.append(parse_partition(p))
+            out.append(parse_rep_for(p, group))
         except ParseError as exc:
             raise ParseError(f"{option} {text!r}: {exc}") from None
+        except InvalidRepresentationError as exc:
+            if not p.strip().startswith("("):
+                raise
+            raise InvalidRepresentationError(f"{option} {text!r}: {exc}") from None
     if len(out) == 1 and one_allowed:
         return out[0]
     return out

@@ -8,7 +8,7 @@ from __future__ import annotations
 
 from typing import Any, Optional
 
-from knotobs.errors import ParseError
+from knotobs.errors import KnotobsError, ParseError
 
 __all__ = ["refuse", "renamed", "reps", "rep_or_color", "framing", "check_renamed"]
 
@@ -31,29 +31,47 @@ def check_renamed(**given: Any) -> None:
             renamed(old, new)
 
 
-def reps(text: str, option: str = "--rep"):
-    """``[2,1]`` or ``[2,1];[1]`` (one partition per component); the checks of :func:`knotobs.cli._inputs.reps`."""
+def reps(text: str, option: str = "--rep", group: Optional[str] = None):
+    """``[2,1]`` or ``[2,1];[1]`` (one partition per component), or SU(N) Dynkin labels ``(1,1)`` of
+    ``group``; the checks of :func:`knotobs.cli._inputs.reps`."""
     from knotobs.cli._inputs import reps as _reps
 
-    return _reps(text, option)
+    return _reps(text, option, group=group)
 
 
-def rep_or_color(rep: Optional[str], color: Optional[int], default="[1]"):
-    """The representation from ``--rep PARTITION`` or ``--color n`` (= ``--rep [n-1]``)."""
+def _su2(group: Optional[str]) -> bool:
+    return group is None or str(group).replace(" ", "").upper() == "SU(2)"
+
+
+def rep_or_color(rep: Optional[str], color: Optional[int], default="[1]", group: Optional[str] = None):
+    """The representation from ``--rep PARTITION`` (or Dynkin labels of ``group``) or ``--color n``
+    (= ``--rep [n-1]``, SU(2) only)."""
     if rep is not None and color is not None:
         refuse("--color", "give the representation once: --rep PARTITION or --color n (= --rep [n-1])")
     if color is not None:
+        if not _su2(group):
+            refuse("--color", f"{color} is the SU(2) shorthand for --rep [{color - 1}]; for {group} give --rep,"
+                              " a partition such as [2,1] (or Dynkin labels for SU(N))")
         if color < 1:
             refuse("--color", f"{color}: the dimension n of the SU(2) irrep is an integer >= 1")
         return (color - 1,) if color > 1 else ()
-    return reps(rep if rep is not None else default)
+    return reps(rep if rep is not None else default, group=group)
 
 
-def rep_text(rep: Optional[str], color: Optional[int], default: str = "[1]") -> str:
-    """The representation as the user would write it with ``--rep``."""
+def rep_text(rep: Optional[str], color: Optional[int], default: str = "[1]", group: Optional[str] = None) -> str:
+    """The representation as the user would write it with ``--rep``; Dynkin labels with the partition
+    they stand for (``(1,1) = [2,1]``)."""
     if color is not None:
         return f"[{color - 1}]" if color > 1 else "[]"
-    return rep if rep is not None else default
+    text = rep if rep is not None else default
+    if group is not None and "(" in text:
+        try:
+            parts = reps(text, group=group)
+        except KnotobsError:                   # reported by the parse itself
+            return text
+        parts = parts if isinstance(parts, list) else [parts]
+        return text + " = " + ";".join("[" + ",".join(map(str, p)) + "]" for p in parts)
+    return text
 
 
 def framing(text: Optional[str]):

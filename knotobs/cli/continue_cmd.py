@@ -226,8 +226,8 @@ def plot(
         fig = plots.plot_zeros(target, output, family="colored-jones" if color else "jones", color=color)
     else:
         fr = _framing(framing)
-        fig = plots.plot_wilson_level(target, output, group or "SU(2)", rep_or_color(rep, color),
+        fig = plots.plot_wilson_level(target, output, group or "SU(2)", rep_or_color(rep, color, group=group or "SU(2)"),
                                       kmax=40 if kmax is None else kmax, framing=0 if fr is None else fr,
                                       normalized=bool(normalized))
-        fig.data["inputs"] = {"rep": rep_text(rep, color)}
+        fig.data["inputs"] = {"rep": rep_text(rep, color, group=group or "SU(2)")}
     emit(fig.to_json, lambda: f"wrote {fig.path}", as_json)

@@ -120,7 +120,8 @@ def run(
             refuse("--color", f"{color!r}: dimensions are integers >= 1")
         cols = [(d - 1,) if d > 1 else () for d in dims]
     else:
-        cols = _inputs.reps(rep if rep is not None else "[1]", "--rep", one_allowed=False)
+        cols = _inputs.reps(rep if rep is not None else "[1]", "--rep", one_allowed=False,
+                            group=group if group is not None else ("SU(2)" if q == "wilson-loop" else None))
     norm = (q != "wilson-loop") if normalized is None else normalized
     levels = _levels(level)
     if group is not None and q == "colored-jones" and group.replace(" ", "").upper() != "SU(2)":

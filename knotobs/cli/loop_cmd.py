@@ -29,7 +29,7 @@ def _colors(group: str, rep, color):
         if color is not None:
             refuse("--color", f"is the SU(2) shorthand (--rep [n-1]); for {group} give --rep, e.g. [1] or (1,0)")
         return rep if rep is not None else "[1]"
-    return rep_or_color(rep, color)
+    return rep_or_color(rep, color, group=group)
 
 _POLY_ROUTES = ("auto", "rosso-jones", "weight-sum", "both")
 
@@ -39,7 +39,7 @@ _POLY_ROUTES = ("auto", "rosso-jones", "weight-sum", "both")
 def loop(
     knot: Optional[str] = typer.Argument(None, help="Torus knot or link, e.g. T(2,3) or T(4,6); 'fiber' for a regular fiber of --in."),
     group: str = typer.Option("SU(2)", "--group", "-g", help="SU(N), U(N), SO(N), Spin(N), Sp(2n) or G2 (at a level: SU(N), U(N), SO(3) at odd k)."),
-    rep: Optional[str] = typer.Option(None, "--rep", "-r", help="Partition, e.g. [2,1], or Dynkin labels (1,0) (SO/Sp/G2); links: [1];[2] per component. Default [1]."),
+    rep: Optional[str] = typer.Option(None, "--rep", "-r", help="Partition, e.g. [2,1], or Dynkin labels (1,0) (SU(N): N-1 labels; SO/Sp/G2); links: [1];[2] per component. Default [1]."),
     color: Optional[int] = typer.Option(None, "--color", "-c", help="SU(2) shorthand: the n-dimensional irrep, i.e. --rep [n-1]."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
     normalized: bool = typer.Option(False, "--normalized/--unnormalized", help="Polynomial only: divide by the unknot (default: unnormalized, unknot = dim_q)."),
@@ -53,7 +53,7 @@ def loop(
 ) -> None:
     """Wilson loop of a torus knot/link: exact polynomial in q, or its value at level k."""
     cols = _colors(group, rep, color)
-    rep_str = rep_text(rep, color)
+    rep_str = rep_text(rep, color, group=None if _is_cartan(group) else group)
     fr = _framing(framing)
     if level is None:
         for opt, given in (("--in", in_ is not None), ("--fiber", fiber is not None),
@@ -153,7 +153,7 @@ def poly(
                 res = F.jones(knot, t_is=t, mirror=mirror, normalized=norm)
         else:
             if rep is not None:
-                lam = rep_or_color(rep, None)
+                lam = rep_or_color(rep, None, group="SU(2)")
                 if isinstance(lam, list) or len(lam) > 1:
                     refuse("--rep", f"{rep}: SU(2) colors are one-row partitions [n-1] (or use --color n)")
                 n = (lam[0] if lam else 0) + 1
@@ -166,7 +166,7 @@ def poly(
     elif fam == "homfly":
         if t_is is not None:
             refuse("--t", "applies to the Jones polynomials; HOMFLY-PT is written in a and z (or a and q)")
-        cols = rep_or_color(rep, color)
+        cols = rep_or_color(rep, color, group=None if g is None else str(g))
         if g is not None:
             if g.kind != "SU":
                 refuse("--group", f"{g}: the specialisation a = q^(N/2) is SU(N); the default is generic N")

@@ -74,7 +74,7 @@ def match(
             raise ParseError(f"give a polynomial to compare {knot} with (--poly TEXT or --file PATH) or --knotinfo")
         from knotobs.tables.compare import compare
 
-        res = compare(knot, target, group, rep_or_color(rep, color), invariant)
+        res = compare(knot, target, group, rep_or_color(rep, color, group=group), invariant)
     emit(res.to_json, res.describe, as_json)
     if knot is not None and not res.equal:
         raise typer.Exit(code=1)

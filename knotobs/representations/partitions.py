@@ -27,6 +27,7 @@ __all__ = [
     "kappa",
     "to_dynkin",
     "from_dynkin",
+    "parse_rep_for",
     "MAX_PARTITION_SIZE",
 ]
 
@@ -206,3 +207,52 @@ def iter_boxes(lam: Sequence[int]) -> Iterator[tuple[int, int]]:
     for i, row in enumerate(lam):
         for j in range(row):
             yield i, j
+
+
+def parse_rep_for(text: str, group=None) -> Partition:
+    """One representation as the user writes it for SU(N) or U(N): a partition ``[2,1]``, or SU(N)
+    Dynkin labels ``(1,1)`` (exactly ``N - 1`` of them; the partition ``l_i = a_i + ... + a_{N-1}``).
+
+    Round brackets are Dynkin labels, never a partition: ``(1,1)`` for SU(3) is the adjoint ``[2,1]``,
+    not ``[1,1]``.  Without a group (HOMFLY-PT at generic ``N``) and for U(N) (whose representations
+    carry a U(1) charge, fixed by the partition) labels are refused with the partition to write.
+
+    >>> parse_rep_for("(1,1)", "SU(3)"), parse_rep_for("[1,1]", "SU(3)"), parse_rep_for("(3)", "SU(2)")
+    ((2, 1), (1, 1), (3,))
+    >>> parse_rep_for("(1,0,0)", "SU(3)")
+    Traceback (most recent call last):
+    ...
+    knotobs.errors.InvalidRepresentationError: Dynkin labels (1,0,0): SU(3) has 2 labels (a_1,a_2), e.g. (1,0) for [1]; or write a partition such as [2,1]
+    """
+    s = text.strip() if isinstance(text, str) else text
+    if not (isinstance(s, str) and s.startswith("(")):
+        return parse_partition(text)
+    from knotobs.representations.cartan.group import Dynkin, parse_rep_text
+
+    labels = parse_rep_text(s)
+    if not isinstance(labels, Dynkin):                       # pragma: no cover - "(" always gives labels
+        raise ParseError(f"cannot read representation {text!r}")
+    vals = tuple(labels)
+    shown = "(" + ",".join(str(x) for x in vals) + ")"
+    if group is None:
+        raise InvalidRepresentationError(
+            f"Dynkin labels {shown} need a group (they depend on N): write a partition such as [2,1]"
+            f" (for SU(N), labels a_i give l_i = a_i + ... + a_(N-1))")
+    g = str(group).replace(" ", "")
+    m = re.match(r"^([SU]?U)\((\d+)\)$", g.upper())
+    if m is None:
+        raise InvalidRepresentationError(f"Dynkin labels {shown} for {group}: write a partition such as [2,1]")
+    N = int(m.group(2))
+    part = from_dynkin(vals) if len(vals) == N - 1 else None
+    if m.group(1) == "U":
+        hint = f"; e.g. [{','.join(map(str, part))}] for these SU({N}) labels" if part is not None else ""
+        raise InvalidRepresentationError(
+            f"Dynkin labels {shown} for U({N}): a U(N) representation carries a U(1) charge, so write"
+            f" it as a partition{hint}")
+    if part is None:
+        names = ",".join(f"a_{i}" for i in range(1, N))
+        example = "(" + ",".join(["1"] + ["0"] * (N - 2)) + ")"
+        raise InvalidRepresentationError(
+            f"Dynkin labels {shown}: SU({N}) has {N - 1} label{'s' if N > 2 else ''} ({names}), e.g. {example}"
+            f" for [1]; or write a partition such as [2,1]")
+    return part
