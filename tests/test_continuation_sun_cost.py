@@ -81,3 +81,11 @@ def test_a_value_over_the_closed_form_estimate_but_under_the_counted_one_is_comp
     with limits(seconds=counted / 2):
         with pytest.raises(SizeLimitError, match=r"counted: \d+ lines integrated"):
             continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", level="7.3+0.2i", digits=12)
+
+
+def test_at_a_huge_level_the_closed_form_estimate_refuses_without_the_dry_run():
+    # the dry run keeps lists as long as a line (nodes about linear in |K|): at K ~ 1e10 it would
+    # take minutes before refusing, so it is skipped above TALLY_NODES nodes
+    with pytest.raises(SizeLimitError) as e:
+        continued_sun_partition_function("Sigma(2,3,5)", "SU(3)", level="1e10", digits=20)
+    assert "line integrals" in str(e.value) and "counted:" not in str(e.value)

@@ -177,15 +177,12 @@ def surgery_route_cost(space, group="SU(2)", level: int = 1, colours: int = 0,
 
 
 def _phi(m: int) -> int:
-    out, d, x = m, 2, m
-    while d * d <= x:
-        if x % d == 0:
-            while x % d == 0:
-                x //= d
-            out -= out // d
-        d += 1
-    if x > 1:
-        out -= out // x
+    """Euler's totient (the degree of the cyclotomic field of order ``m``)."""
+    from knotobs.polynomials.cyclotomic import factor_int
+
+    out = m
+    for p, _ in factor_int(m):
+        out -= out // p
     return out
 
 

@@ -130,12 +130,9 @@ def _twiddle(d: int, prec: int) -> acb_mat:
 
 
 def _largest_prime_factor(d: int) -> int:
-    p, out = 2, 1
-    while p * p <= d:
-        while d % p == 0:
-            out, d = p, d // p
-        p += 1
-    return max(out, d) if d > 1 else out
+    from knotobs.polynomials.cyclotomic import factor_int
+
+    return max((p for p, _ in factor_int(d)), default=1)
 
 
 def _fft_friendly(d: int) -> bool:

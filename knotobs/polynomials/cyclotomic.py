@@ -563,21 +563,30 @@ def root_of_unity(x: Fraction | int) -> Cyclotomic:
     return F.zeta(x.numerator)
 
 
+def factor_int(n: int) -> list[tuple[int, int]]:
+    """``[(p, e), ...]`` with ``n = prod p^e`` (``n >= 1``), by FLINT (fast for the sizes of levels,
+    e.g. ``10^20``, where trial division took seconds).
+
+    >>> factor_int(360), factor_int(1)
+    ([(2, 3), (3, 2), (5, 1)], [])
+    """
+    if n < 1:
+        raise ValueError("factor_int needs a positive integer")
+    from flint import fmpz
+
+    return [(int(p), int(e)) for p, e in fmpz(n).factor()] if n > 1 else []
+
+
 def squarefree_part(n: int) -> tuple[int, int]:
     """``(s, m)`` with ``n = s^2 m`` and ``m`` squarefree (``n > 0``)."""
     if n <= 0:
         raise ValueError("squarefree_part needs a positive integer")
     s, m = 1, 1
-    d = 2
-    while d * d <= n:
-        while n % (d * d) == 0:
-            n //= d * d
-            s *= d
-        if n % d == 0:
-            n //= d
-            m *= d
-        d += 1
-    return s, m * n
+    for p, e in factor_int(n):
+        s *= p ** (e // 2)
+        if e % 2:
+            m *= p
+    return s, m
 
 
 def _squarefree_divisors(n: int) -> list[int]:
@@ -590,16 +599,7 @@ def _squarefree_divisors(n: int) -> list[int]:
 
 def _primes_of(n: int) -> list[int]:
     """The distinct primes dividing ``n >= 1``."""
-    out, d = [], 2
-    while d * d <= n:
-        if n % d == 0:
-            out.append(d)
-            while n % d == 0:
-                n //= d
-        d += 1
-    if n > 1:
-        out.append(n)
-    return out
+    return [p for p, _ in factor_int(n)]
 
 
 def sqrt_rational(r: Fraction | int) -> Cyclotomic:

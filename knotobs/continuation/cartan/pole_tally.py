@@ -7,7 +7,8 @@ odd terms, so that count is 4-30 times the work (measured 2026-12-04 on eight sp
 module runs the enumeration of :class:`.poles._Eval` itself, with every quadrature, grid and
 matrix product replaced by a count of its nodes: the same contours, seats, orbits and caches,
 no quadrature.  Its own cost is the enumeration (about 25 microseconds per line of the
-closed-form count), so it is used only when that count is at most :data:`TALLY_LINES`.
+closed-form count, and lists as long as the lines), so it is used only when that count is at most
+:data:`TALLY_LINES` and the lines have at most :data:`TALLY_NODES` nodes.
 
 The seconds of one run are modelled from two counts: the nodes of the base grids (each a
 Gaussian, the sines and Taylor series by recurrence) and the terms of the plane tensor sums,
@@ -35,11 +36,15 @@ from knotobs.continuation.cartan.data import Coset
 from knotobs.continuation.cartan.poles import _Eval, _theta, merged_terms
 from knotobs.guard import seconds_for
 
-__all__ = ["pole_tally", "tallied_run_seconds", "TALLY_LINES"]
+__all__ = ["pole_tally", "tallied_run_seconds", "TALLY_LINES", "TALLY_NODES"]
 
 #: Largest closed-form line count (:func:`.poles.pole_cost_parts`) for which the enumeration is
 #: run (about 0.6 s of enumeration); above it the closed-form estimate stands.
 TALLY_LINES = 25_000
+
+#: Largest number of nodes per line (:func:`.poles.pole_line_nodes`, about linear in ``|K|``) for which the
+#: enumeration is run: its grids are lists of that length.
+TALLY_NODES = 20_000
 
 #: Ball operations per base-grid node and per tensor term (fitted, see the module docstring).
 GRID_OPS, TENSOR_OPS = 1.92, 0.022

@@ -43,7 +43,7 @@ from knotobs.continuation.cartan.rootfn import (RootFunction, Scale, _q, grid_se
                                                period_phase, reflection_sign, shifted_grid, symbolic_scale)
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain",
-           "pole_range_digits", "pole_line_count"]
+           "pole_range_digits", "pole_line_count", "pole_line_nodes"]
 
 
 # ------------------------------------------------------------------ partial fractions
@@ -1096,16 +1096,26 @@ def pole_line_count(orders: tuple[int, ...], H: int, P: int, cosets=None, genus:
     return nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P) + (nterms - odd) * 2 * P * H, nterms
 
 
-def pole_cost_parts(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
-                    cosets=None, genus: int = 0) -> tuple[float, float, str]:
-    """:func:`pole_cost` split into the line integrals (every value) and the iterated residues
-    (mostly the exact pieces, computed once per space and cached)."""
+def pole_line_nodes(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int) -> int:
+    """Nodes of one line integral at ``K`` to ``digits`` digits (:func:`pole_plan`; they grow like
+    ``|K|`` at large ``|K|``: the step follows the Gaussian, the cut-off the growth of the sines).
+
+    >>> pole_line_nodes((2, 3, 5), 1, 30, 12.0, 30) < pole_line_nodes((2, 3, 5), 1, 30, 1.2e5, 30)
+    True
+    """
     H = abs(H)
     theta = _theta(H, K)
     cabs = abs(K) * H / (3 * P)
     growth = _plan_growth(theta, cabs, 2 * (sum(1 / p for p in orders) + 1))
     _, h, S, _ = pole_plan(math.sin(theta), cabs, digits, growth)
-    nodes = 2 * int(math.ceil(S / h)) + 1
+    return 2 * int(math.ceil(S / h)) + 1
+
+
+def pole_cost_parts(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
+                    cosets=None, genus: int = 0) -> tuple[float, float, str]:
+    """:func:`pole_cost` split into the line integrals (every value) and the iterated residues
+    (mostly the exact pieces, computed once per space and cached)."""
+    nodes = pole_line_nodes(orders, H, P, K, digits)
     lines, nterms = pole_line_count(orders, H, P, cosets, genus)
     points = nterms * ((3 * P) ** 2 + lines * P // 2)
     # measured: higher poles cost more per line (Taylor grids) and per residue (longer series)

@@ -30,7 +30,7 @@ from knotobs._notebook import NotebookMixin
 from knotobs.continuation._num import ball_seconds, bits, checked, to_acb, to_mpc, working_bits
 from knotobs.continuation.cartan.data import B_N, CartanData, PolesNotCoveredError
 from knotobs.continuation.cartan.gaussian import abelian_cs_values, gaussian_sectors, gaussian_terms
-from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_line_count, pole_range_digits, pole_sum_sectors
+from knotobs.continuation.cartan.poles import pole_cost, pole_domain, pole_line_count, pole_line_nodes, pole_range_digits, pole_sum_sectors
 from knotobs.continuation.cartan.quadrature import quadrature_nodes, quadrature_sectors
 from knotobs.continuation.level import PHASES, DomainError, resolve_K
 from knotobs.errors import KnotobsError, PrecisionError
@@ -139,7 +139,8 @@ def continuation_sun_cost(d: CartanData, Kv, digits: int, method: str = "closed"
         if counted:
             from knotobs.continuation.cartan import pole_tally as pt
 
-            if pole_line_count(d.big_orders, d.HL, d.L, d.cosets(), d.genus)[0] <= pt.TALLY_LINES:
+            if (pole_line_count(d.big_orders, d.HL, d.L, d.cosets(), d.genus)[0] <= pt.TALLY_LINES
+                    and pole_line_nodes(d.big_orders, d.HL, d.L, complex(Kv), target) <= pt.TALLY_NODES):
                 tally = pt.pole_tally(d.big_orders, d.HL, d.L, complex(Kv), target, d.cosets(), d.genus)
                 run = pt.tallied_run_seconds(tally, target + rng)
                 if run < fine:
