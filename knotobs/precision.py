@@ -27,7 +27,7 @@ import mpmath
 
 from knotobs.errors import ParseError
 
-__all__ = ["MAX_DIGITS", "check_digits", "certified_str", "certified_parts"]
+__all__ = ["MAX_DIGITS", "check_digits", "certified_str", "certified_parts", "significant_parts", "joined_parts"]
 
 #: Largest number of decimal digits accepted for a numeric value.
 MAX_DIGITS = 2000
@@ -135,7 +135,36 @@ def certified_str(z, digits: int) -> str:
     >>> certified_str(mpmath.mpf(2) ** 100, 5)      # digits end before the point: no fake zeros
     '1.2677e+30'
     """
-    re_, im_ = certified_parts(z, digits)
+    return joined_parts(*certified_parts(z, digits))
+
+
+def significant_parts(z, digits: int) -> tuple[str, str]:
+    """Real and imaginary parts of an exactly known ``z`` to ``digits`` significant digits each; a
+    part below ``10^-digits |z|`` (rounding of the other, e.g. the imaginary part of a real value) is
+    ``"0.0"``.
+
+    >>> significant_parts(mpmath.mpc(2, 1e-40) / 3, 5)
+    ('0.66667', '0.0')
+    >>> significant_parts(mpmath.mpc(-4.2329155e-5, 5.3e-5), 4)
+    ('-4.233e-5', '5.3e-5')
+    """
+    # the parts keep their own precision (no conversion at the process precision)
+    parts = (z.real, z.imag) if hasattr(z, "imag") else (z, 0)
+    with mpmath.workdps(20):
+        size = mpmath.sqrt(sum(mpmath.mpf(abs(p)) ** 2 for p in parts))
+        small = [p == 0 or mpmath.mpf(abs(p)) < mpmath.mpf(10) ** (-digits) * size for p in parts]
+    out = []
+    for part, tiny in zip(parts, small):
+        out.append("0.0" if tiny else mpmath.nstr(part, digits))
+    return out[0], out[1]
+
+
+def joined_parts(re_: str, im_: str) -> str:
+    """``re``, ``im`` strings as one complex number, a zero part left out.
+
+    >>> joined_parts("1.5", "-0.25"), joined_parts("0.0", "2.0"), joined_parts("3.0", "0.0")
+    ('(1.5 - 0.25j)', '2.0j', '3.0')
+    """
     if im_ in ("0.0", "-0.0", "0"):
         return re_
     if re_ in ("0.0", "-0.0", "0"):

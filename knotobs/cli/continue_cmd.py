@@ -63,7 +63,7 @@ def continue_(
     couplings: Optional[str] = typer.Option(None, "--couplings", help="SL(N,C) couplings t,tt, e.g. 10+2i,10-2i."),
     group: Optional[str] = typer.Option(None, "--group", "-g", help="SU(N) at complex level (default SU(2); SU(3): every Seifert rational homology sphere within the size limits; SU(N), N >= 4: lens spaces; e = 0 (S^1 x Sigma_g, torus bundles, ...): every SU(N)); SL(N,C) with --couplings (default SL(2,C))."),
     rep: Optional[str] = typer.Option(None, "--rep", "-r", help="With --couplings and a knot: [lam];[lamt] (default [1];[])."),
-    digits: int = typer.Option(30, "--digits", "-d", help="Correct digits (1 to 2000)."),
+    digits: int = typer.Option(30, "--digits", "-d", help="Digits (1 to 2000): error below 10^-d max(|Z|, 1), so decimal places when |Z| < 1."),
     phases: Optional[str] = typer.Option(None, "--phases", help="Complex level: reduced (default; CS values in (-1/2,1/2]) or lawrence-rozansky."),
     route: Optional[str] = typer.Option(None, "--route", help="SU(N) and e = 0: auto (default), closed, quadrature, residues or both (two methods compared; e = 0: interpolated from the localisation and from the surgery route)."),
     old_N: Optional[int] = typer.Option(None, "--N", hidden=True),

@@ -125,14 +125,32 @@ class FiniteLevelValue:
             f"exact {self.exact}" if self.is_rational() else f"exact in Q(zeta_{self.exact.conductor})")
         return f"<FiniteLevelValue {mpmath.nstr(self.numeric, min(self.digits, 12))} ({self.digits} digits; {exact})>"
 
+    def numeric_parts(self) -> tuple[str, str]:
+        """``(re, im)`` as printed: significant digits when the value is exact (a part below
+        ``10^-digits |z|`` shown as 0); for a numeric-only value the decimal places its certified
+        bound ``10^-digits max(|z|, 1)`` covers (docs/numerics.md), so that a value that is 0 to
+        that bound prints as 0, not as its rounding noise."""
+        from knotobs.precision import certified_parts, significant_parts
+
+        if self.exact is None:
+            return certified_parts(self.numeric, self.digits)
+        return significant_parts(self.numeric, self.digits)
+
+    def numeric_str(self) -> str:
+        """:meth:`numeric_parts` as one complex number."""
+        from knotobs.precision import joined_parts
+
+        return joined_parts(*self.numeric_parts())
+
     def to_json(self) -> dict[str, Any]:
         """JSON-ready dictionary (strings for all numbers)."""
+        re_, im_ = self.numeric_parts()
         return {
             "exact": "" if self.exact is None else str(self.exact),
             "root_of_unity": self.root_of_unity,
             "numeric": {
-                "re": mpmath.nstr(self.numeric.real, self.digits),
-                "im": mpmath.nstr(self.numeric.imag, self.digits),
+                "re": re_,
+                "im": im_,
                 "digits": self.digits,
             },
             "framing": self.framing,
