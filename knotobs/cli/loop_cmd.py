@@ -42,7 +42,7 @@ def loop(
     rep: Optional[str] = typer.Option(None, "--rep", "-r", help="Partition, e.g. [2,1], or Dynkin labels (1,0) (SU(N): N-1 labels; SO/Sp/G2); links: [1];[2] per component. Default [1]."),
     color: Optional[int] = typer.Option(None, "--color", "-c", help="SU(2) shorthand: the n-dimensional irrep, i.e. --rep [n-1]."),
     framing: Optional[str] = typer.Option(None, "--framing", "-f", help="Integer, list (1,0) or 'fiber'. Default: zero framing."),
-    normalized: bool = typer.Option(False, "--normalized/--unnormalized", help="Polynomial only: divide by the unknot (default: unnormalized, unknot = dim_q)."),
+    normalized: Optional[bool] = typer.Option(None, "--normalized/--unnormalized", help="Polynomial only: divide by the unknot (default: unnormalized, unknot = dim_q)."),
     route: Optional[str] = typer.Option(None, "--route", help="Polynomial: auto (= rosso-jones), rosso-jones, weight-sum or both. At a level: auto, surgery, localisation or both (prints the agreement)."),
     level: Optional[int] = typer.Option(None, "--level", "-k", help="Evaluate at level k (SU(N)): exact cyclotomic + numeric."),
     in_: Optional[str] = typer.Option(None, "--in", help="With --level: S^3 (default), L(p,q), Sigma(a,b,c) or M(g; b; ...)."),
@@ -69,12 +69,15 @@ def loop(
         from knotobs.output.text import render_polynomial
 
         with _inputs.naming(f"{knot} with --rep {rep_str}"):
-            res = wilson_loop(knot, group, cols, 0 if fr is None else fr, normalized, "rosso-jones" if r == "auto" else r)
+            res = wilson_loop(knot, group, cols, 0 if fr is None else fr, bool(normalized),
+                              "rosso-jones" if r == "auto" else r)
         emit(res.to_json, lambda: render_polynomial(res), as_json)
         return
-    if normalized:
-        refuse("--normalized", "at a level the value is Z(M; L)/Z(M) (unknot in S^3 = dim_q); "
-                               "use --raw for Z(M; L) itself")
+    if normalized is not None:
+        refuse("--normalized" if normalized else "--unnormalized",
+               "at a level the value is Z(M; L)/Z(M) (unknot in S^3 = dim_q); use --raw for Z(M; L) itself")
+    if (fiber is not None or knot == "fiber") and isinstance(cols, list):
+        refuse("--rep", f"{rep}: one fiber takes one representation (';' separates the components of a link)")
     space = in_ if in_ is not None else "S^3"
     in_s3 = space.replace(" ", "").upper() in ("S^3", "S3")
     if route not in (None, "auto", "surgery", "localisation", "both"):
@@ -86,6 +89,13 @@ def loop(
             refuse("--fiber", "colors an exceptional fiber of --in instead of a knot: give one of them")
         if fiber < 1:
             refuse("--fiber", f"{fiber}: exceptional fibers are numbered 1..n in the order of the Seifert invariants")
+        from knotobs.fibrations.seifert import parse_space
+
+        n_fibers = len(parse_space(space).fibers)
+        if fiber > n_fibers:
+            refuse("--fiber", f"{fiber}: {space} has {n_fibers} exceptional fiber{'s' if n_fibers != 1 else ''} as"
+                              f" written" + (f", numbered 1..{n_fibers}" if n_fibers else
+                                              "; color a regular fiber with KNOT = fiber"))
     from knotobs.evaluation.level_loops import level_loop
     from knotobs.output.finite_text import finite_json, finite_text
 
@@ -93,7 +103,7 @@ def loop(
     with _inputs.naming(f"{knot if knot is not None else space} at --level {level} with --rep {rep_str}"):
         val = level_loop(knot, level, group, cols, space, None if fiber is None else fiber - 1, fr, not raw, d,
                          route or "auto")
-    what = knot if knot is not None else f"exceptional fiber {fiber} of {space}"
+    what = knot if knot is not None else f"exceptional fiber {fiber}"
     inputs = {"knot": knot, "space": space, "fiber": fiber, "group": group, "rep": rep_str, "level": level,
               "framing": framing, "digits": d, "raw": raw}
     title = f"Wilson loop of {what} in {space}, {group} at level {level}, color {rep_str}"

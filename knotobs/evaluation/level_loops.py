@@ -267,9 +267,23 @@ def _unitary(knot, level, N, rep, space, fiber, framing, normalized, digits, rou
             raise KnotobsError("U(N) torus knots in S^3 have their two routes built in (the polynomial at"
                                " q = exp(2 pi i/K) is always compared): drop --route")
         return unitary_level_loop(knot, N, level, rep, framing=framing, digits=digits)
-    fr = "fiber" if framing in (None, "fiber") else framing
+    if framing is None:
+        # as for SU(N): zero framing by default, where the fibers are null-homologous (an integral
+        # homology sphere); elsewhere U(N) fiber loops are computed in the fiber framing only
+        from knotobs.fibrations.seifert import parse_space
+
+        M = parse_space(space) if isinstance(space, str) else space
+        if not M.is_integral_homology_sphere:
+            raise KnotobsError(
+                f"{space} has H_1 != 0, so a fiber has no zero framing (the default); U(N) fiber loops there"
+                " are computed in the fiber framing: give framing 'fiber' (--framing fiber)")
+        fr = "zero"
+    elif _is_integer_framing(framing) and int(framing) == 0:
+        fr = "zero"
+    else:
+        fr = framing
     if fr not in ("fiber", "zero"):
-        raise KnotobsError("a U(N) fiber loop takes framing 'fiber' or 'zero'")
+        raise KnotobsError(f"framing {framing!r}: a U(N) fiber loop takes framing 'fiber' or 'zero' (0)")
     if knot is None:
         if fiber is None:
             raise InvalidKnotError("give a knot T(p,q) or a fiber index (--fiber i) of the space")

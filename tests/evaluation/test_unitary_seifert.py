@@ -154,7 +154,7 @@ def test_cli_space_and_loop_unitary():
 
     r = run("space", "L(4,1)", "--group", "U(2)", "--level", "3", "--route", "both", "--digits", "15")
     assert r.returncode == 0 and "quotient = gauging" in r.stdout, r.stdout + r.stderr
-    r = run("loop", "--in", "L(4,1)", "--fiber", "1", "--group", "U(2)", "--level", "1", "--rep", "[1]")
+    r = run("loop", "--in", "L(4,1)", "--fiber", "1", "--group", "U(2)", "--level", "1", "--rep", "[1]", "--framing", "fiber")
     assert r.returncode == 0 and "U(2)" in r.stdout
     r = run("space", "L(4,1)", "--group", "U(2)", "--level", "2")
     assert r.returncode == 2 and r.stderr.startswith("error:") and "spin" in r.stderr
