@@ -248,5 +248,6 @@ def unitary_fiber_loop(space, group="U(2)", level: int = 1, regular=(), exceptio
                 raise RouteMismatchError(f"U({N}) fiber loop: product formula {out.numeric} vs quotient"
                                          f" category {w.numeric}")
         out = dataclasses.replace(out, details={**out.details, "route": "product formula = quotient category"
-                                                " (both computed)", "agreement": f"to {digits} digits"})
+                                                " (both computed)", "routes": ["product formula", "quotient category"],
+                                                "agreement": f"to {digits} digits"})
     return out

@@ -34,7 +34,7 @@ def finite_json(value: FiniteLevelValue, inputs: dict[str, Any], quantity: str) 
 def finite_text(value: FiniteLevelValue, title: str) -> str:
     """Readable block: title, numeric value, exact value, profile."""
     lines = [title, ""]
-    how = (f"{value.digits} digits" if value.exact is not None else
+    how = (f"{value.digits} digit{'s' if value.digits != 1 else ''}" if value.exact is not None else
            f"error below 10^-{value.digits} max(|Z|, 1)")
     lines.append(f"  numeric   {value.numeric_str()}   ({how}, checked at higher precision)")
     if value.exact is not None:

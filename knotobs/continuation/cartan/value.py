@@ -434,7 +434,7 @@ def _circle_product(space, group, level, K, digits, phases, method):
         raise DomainError(f"phases = {phases!r}: use one of {', '.join(PHASES)}")
     if method not in ("auto", "closed"):
         raise DomainError(f"method = {method!r} (--route): {M} is S^1 x Sigma_{M.genus}, whose partition function is"
-                          " the Verlinde polynomial in K; use 'auto'")
+                          " the Verlinde polynomial in K, one closed form: use 'auto' or 'closed'")
     digits = check_digits(digits)
     N = _group_N(group)
     Kv = resolve_K(level, K, N)
