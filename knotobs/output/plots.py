@@ -267,7 +267,8 @@ def plot_level_plane(space, out=None, re_range=(3.0, 12.0), im_range=(-1.0, 1.0)
             "Z": [[[_to_digits(z.real, digits), _to_digits(z.imag, digits)] if np.isfinite(z) else None
                    for z in row] for row in Z],
             "log10_abs_Z": [[_to_digits(v, digits) for v in row] for row in logabs.tolist()],
-            "arg_Z": [[_to_digits(v, digits) for v in row] for row in arg.tolist()], "integer_K": ints}
+            "arg_Z": [[_to_digits(v, digits) for v in row] for row in arg.tolist()], "integer_K": ints,
+            "index": "Z[i][j], log10_abs_Z[i][j] and arg_Z[i][j] are at K = re[j] + i im[i]"}
     if p is None:
         return Figure(None, "level-plane", data)
     plt = _plt()
