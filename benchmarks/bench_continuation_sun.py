@@ -91,6 +91,26 @@ def main() -> None:
         status = "ok" if r.returncode == 0 else (r.stdout + r.stderr).strip().splitlines()[-1][:70]
         print(f"{space:<44} {group:>6} {time.perf_counter() - t:7.2f}s  {n:>6}  {status}")
     print()
+    print("estimate before the work vs the wait: one continued value (20 digits, exact pieces cached:")
+    print("the second value in the process) and a level-plane figure through the CLI (--json, 12 digits)")
+    print(f"{'case':<44} {'estimated':>10} {'measured':>9}  what")
+    from knotobs.continuation.cartan.value import continued_sun_seconds
+
+    for space in ("Sigma(2,3,5)", "M(0; -1; (2,1), (4,1), (6,1))", "M(0; -1; (2,1), (3,1), (5,2))"):
+        continued_sun_partition_function(space, "SU(3)", level="4.1+0.3i", digits=20)
+        _, each, _ = continued_sun_seconds(space, "SU(3)", mpmath.mpc(7.2, 0.3), 20)
+        t = time.perf_counter()
+        continued_sun_partition_function(space, "SU(3)", level="4.2+0.3i", digits=20)
+        print(f"{space:<44} {each:9.2f}s {time.perf_counter() - t:8.2f}s  one value, counted estimate")
+
+    once, each, _ = continued_sun_seconds("Sigma(2,3,5)", "SU(3)", mpmath.mpc(12, 1), 12)
+    t = time.perf_counter()
+    r = subprocess.run([sys.executable, "-m", "knotobs", "plot", "level-plane", "Sigma(2,3,5)", "--group", "SU(3)",
+                        "--n", "6", "--json", "--no-progress"], capture_output=True, text=True)
+    status = "" if r.returncode == 0 else "  " + (r.stdout + r.stderr).strip().splitlines()[-1][:60]
+    print(f"{'Sigma(2,3,5) level-plane 6 x 6':<44} {once + 36 * each:9.2f}s {time.perf_counter() - t:8.2f}s  "
+          f"figure (start-up included){status}")
+    print()
     print("integer K: continued value vs the finite-level routes (20 digits)")
     print(f"{'case':<22} {'k':>3}  {'continued':>48}  {'localisation':>48}  {'surgery':>48}  agree")
     for space, group, ks in (("L(5,1)", "SU(3)", (1, 2, 3, 5)), ("L(7,2)", "SU(3)", (1, 2, 3, 5)),
