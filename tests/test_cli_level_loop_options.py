@@ -49,3 +49,9 @@ def test_unitary_fiber_loops_default_to_the_zero_framing_like_su_n():
     assert default != _numeric("fiber", "-g", "U(2)", *AT, "--framing", "fiber")
     out = _run("fiber", "-g", "U(2)", "--in", "L(7,2)", "--level", "5")
     assert out.exit_code != 0 and "--framing fiber" in out.output
+
+
+def test_grid_refuses_the_su2_color_shorthand_for_another_group(tmp_path):
+    out = CliRunner().invoke(app, ["grid", "run", "--knots", "T(2,3)", "--color", "2,3", "--group", "SU(3)",
+                                   "-s", str(tmp_path / "g.sqlite")])
+    assert out.exit_code != 0 and "--color" in out.output and "SU(2) dimensions" in out.output

@@ -118,6 +118,9 @@ def run(
             raise ParseError(f"--color {color!r}: write dimensions like 2,3,4") from None
         if not dims or min(dims) < 1:
             refuse("--color", f"{color!r}: dimensions are integers >= 1")
+        if group is not None and group.replace(" ", "").upper() != "SU(2)":
+            refuse("--color", f"{color!r} are SU(2) dimensions (n means [n-1]); for {group} give --rep,"
+                              " partitions such as '[1];[2,1]' (or Dynkin labels for SU(N))")
         cols = [(d - 1,) if d > 1 else () for d in dims]
     else:
         cols = _inputs.reps(rep if rep is not None else "[1]", "--rep", one_allowed=False,
