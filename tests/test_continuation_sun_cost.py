@@ -46,11 +46,9 @@ def _run_counts(d: CartanData, K: complex, digits: int, monkeypatch) -> Counter:
     if H < 0:
         H, Kc, cosets = -H, K.conjugate(), [c.negated() for c in cosets]
     theta = poles._theta(H, Kc)
-    deg = len(d.big_orders) - 2 + 2 * d.genus
     with working_bits(bits(digits)):
-        for co in cosets:
-            for t in poles.merged_terms(d.big_orders, co.shifts, co.lin, deg):
-                poles._Eval(t, acb(Kc.real, Kc.imag), H, d.L, digits, True, theta, False, -co.const, "quad").run()
+        for co, _, t in poles.coset_terms(d.big_orders, cosets, d.genus):
+            poles._Eval(t, acb(Kc.real, Kc.imag), H, d.L, digits, True, theta, False, -co.const, "quad").run()
     return count
 
 

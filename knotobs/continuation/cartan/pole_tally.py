@@ -32,8 +32,7 @@ from collections import Counter
 from flint import acb
 
 from knotobs.continuation._num import bits, working_bits
-from knotobs.continuation.cartan.data import Coset
-from knotobs.continuation.cartan.poles import _Eval, _theta, merged_terms
+from knotobs.continuation.cartan.poles import _Eval, _theta, coset_terms
 from knotobs.guard import seconds_for
 
 __all__ = ["pole_tally", "tallied_run_seconds", "TALLY_LINES", "TALLY_NODES"]
@@ -124,15 +123,13 @@ def pole_tally(orders: tuple[int, ...], H: int, P: int, K: complex, digits: int,
         Kc, H = Kc.conjugate(), -H
         cosets = None if cosets is None else [c.negated() for c in cosets]
     theta = _theta(H, Kc)
-    deg = len(orders) - 2 + 2 * genus
     total: Counter = Counter()
     with working_bits(bits(digits)):
         Ka = acb(Kc.real, Kc.imag)
-        for co in (cosets if cosets is not None else [Coset.trivial(len(orders))]):
-            for term in merged_terms(tuple(orders), co.shifts, co.lin, deg):
-                t = _Tally(term, Ka, H, P, digits, True, theta, False, -co.const, "quad")
-                t.run()
-                total.update(t.count)
+        for co, _, term in coset_terms(orders, cosets, genus):
+            t = _Tally(term, Ka, H, P, digits, True, theta, False, -co.const, "quad")
+            t.run()
+            total.update(t.count)
     return total
 
 

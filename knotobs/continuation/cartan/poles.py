@@ -43,7 +43,7 @@ from knotobs.continuation.cartan.rootfn import (RootFunction, Scale, _q, grid_se
                                                period_phase, reflection_sign, shifted_grid, symbolic_scale)
 
 __all__ = ["partial_fraction_terms", "PoleTerm", "pole_sum_sectors", "pole_plan", "pole_cost", "pole_domain",
-           "pole_range_digits", "pole_line_count", "pole_line_nodes"]
+           "pole_range_digits", "pole_line_count", "pole_line_nodes", "coset_terms"]
 
 
 # ------------------------------------------------------------------ partial fractions
@@ -189,6 +189,20 @@ def odd_third_family(term: PoleTerm) -> bool:
         return False
     sb = B.sign
     return sorted(B.exps) == sorted([(sb, Fraction(1)), (sb, Fraction(-1))])
+
+
+def coset_terms(orders: tuple[int, ...], cosets=None, genus: int = 0):
+    """``(coset, i, term)`` for every merged term of every coset (default: the one coset of pairwise
+    coprime orders), with ``Delta(z)^(n - 2 + 2g)`` in the denominator: the terms that
+    :func:`pole_sum_sectors` sums, and that the cost estimates count.
+
+    >>> [(i, len(t.A.sines)) for _, i, t in coset_terms((2, 3, 5))]
+    [(0, 4)]
+    """
+    deg = len(orders) - 2 + 2 * genus
+    for co in (cosets if cosets is not None else [Coset.trivial(len(orders))]):
+        for i, term in enumerate(merged_terms(tuple(orders), co.shifts, co.lin, deg)):
+            yield co, i, term
 
 
 # ------------------------------------------------------------------ the evaluator
@@ -989,19 +1003,18 @@ def pole_sum_sectors(orders: tuple[int, ...], H: int, P: int, K: acb, digits: in
     out: dict[Fraction, acb] = {}
     deg = len(orders) - 2 + 2 * genus
     tpiK = 2 * acb(0, 1) * arb.pi() * K
-    for co in (cosets if cosets is not None else [Coset.trivial(len(orders))]):
-        for i, term in enumerate(merged_terms(orders, co.shifts, co.lin, deg)):
-            if parts == "exact":
-                key = (tuple(orders), H, P, co.shifts, co.lin, co.const, deg, reduced, i)
-                polys = _exact_pieces(key, lambda: _Eval(term, K, H, P, digits, reduced, theta, False, -co.const,
-                                                         "exact"))
-                items = ((phi, poly(K) * (tpiK * _q(phi)).exp()) for phi, poly in polys.items())
-            else:
-                items = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, -co.const, parts).run().items()
-            for phi, v in items:
-                if co.weight != 1:
-                    v = v * co.weight
-                out[phi] = out.get(phi, acb(0)) + v
+    for co, i, term in coset_terms(orders, cosets, genus):
+        if parts == "exact":
+            key = (tuple(orders), H, P, co.shifts, co.lin, co.const, deg, reduced, i)
+            polys = _exact_pieces(key, lambda: _Eval(term, K, H, P, digits, reduced, theta, False, -co.const,
+                                                     "exact"))
+            items = ((phi, poly(K) * (tpiK * _q(phi)).exp()) for phi, poly in polys.items())
+        else:
+            items = _Eval(term, K, H, P, digits, reduced, theta, fine_plane, -co.const, parts).run().items()
+        for phi, v in items:
+            if co.weight != 1:
+                v = v * co.weight
+            out[phi] = out.get(phi, acb(0)) + v
     return out
 
 
@@ -1056,9 +1069,7 @@ def pole_range_digits(orders: tuple[int, ...], H: int, P: int, K: complex, coset
     theta = _theta(H, K)
     cabs = abs(K) * H / (3 * P)
     st = abs(math.sin(theta))
-    deg = len(orders) - 2 + 2 * genus
-    cosets = cosets if cosets is not None else [Coset.trivial(len(orders))]
-    rate = max(_line_rate(t) for c in cosets for t in merged_terms(tuple(orders), c.shifts, c.lin, deg))
+    rate = max(_line_rate(t) for _, _, t in coset_terms(orders, cosets, genus))
     g = _growth(st, cabs, rate)                        # along the line: the values summed
     return g * g / (4 * math.pi * 2 * cabs) / math.log(10)
 
@@ -1088,9 +1099,7 @@ def pole_line_count(orders: tuple[int, ...], H: int, P: int, cosets=None, genus:
     (630, 1)
     """
     H = abs(H)
-    deg = len(orders) - 2 + 2 * genus
-    cosets = cosets if cosets is not None else [Coset.trivial(len(orders))]
-    terms = [t for c in cosets for t in merged_terms(tuple(orders), c.shifts, c.lin, deg)]
+    terms = [t for _, _, t in coset_terms(orders, cosets, genus)]
     nterms = len(terms)
     odd = sum(1 for t in terms if SKIP_ODD_THIRD and odd_third_family(t))     # no third-family lines
     return nterms * (3 * P * (H * H + 4 * H) + 3 * H * H * 2 * P) + (nterms - odd) * 2 * P * H, nterms

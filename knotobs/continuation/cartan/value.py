@@ -553,8 +553,8 @@ def _zero_euler(space, group, level, K, digits, phases, method):
 def continued_sun_seconds(space, group, K, digits: int = 20) -> tuple[float, float, float]:
     """``(once, per_value, megabytes)``: estimated seconds of the work done once per space (the
     finite levels of a Verlinde or quasi-polynomial; the residue route's iterated residues, mostly
-    exact pieces cached per space) and of one continued value at ``K`` (an upper estimate: it
-    counts every line integral, docs 18.7), before any work.
+    exact pieces cached per space) and of one continued value at ``K`` (for the residue route the
+    integrals the run will do, counted by its dry run where that is cheap, docs 18.7), before any work.
 
     >>> once, each, mb = continued_sun_seconds("L(5,1)", "SU(3)", mpmath.mpc(7.5, 0.3), 20)
     >>> once == 0 and each < 1
