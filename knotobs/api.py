@@ -162,7 +162,7 @@ def as_rep(rep, color: Optional[int] = None, group=None):
     """
     from knotobs.representations.partitions import as_partition, parse_rep_for
 
-    def parse_partition(text):
+    def parse_one(text):
         return parse_rep_for(text, None if group is None else str(group))
 
     if color is not None:
@@ -176,14 +176,14 @@ def as_rep(rep, color: Optional[int] = None, group=None):
     if isinstance(rep, str):
         parts = [p for p in rep.split(";") if p.strip()]
         if len(parts) > 1:
-            return [parse_partition(p) for p in parts]
-        return parse_partition(parts[0]) if parts else ()
+            return [parse_one(p) for p in parts]
+        return parse_one(parts[0]) if parts else ()
     if _is_int(rep):
         raise InvalidRepresentationError(
             f"rep {rep!r}: give a partition such as [{rep}] (or color={rep} for the {rep}-dimensional SU(2) irrep)")
     if isinstance(rep, (list, tuple)):
         if rep and all(isinstance(c, (list, tuple, str)) for c in rep):
-            return [parse_partition(c) if isinstance(c, str) else as_partition(c) for c in rep]
+            return [parse_one(c) if isinstance(c, str) else as_partition(c) for c in rep]
         return as_partition(rep)
     raise InvalidRepresentationError(f"rep {rep!r}: give a partition such as [2,1], or one per component")
 

@@ -40,12 +40,8 @@ def reps(text: Optional[str], option: str = "--rep", one_allowed: bool = True, g
                              " e.g. [1];[2]")
         try:
             out.append(parse_rep_for(p, group))
-        except ParseError as exc:
-            raise ParseError(f"{option} {text!r}: {exc}") from None
-        except InvalidRepresentationError as exc:
-            if not p.strip().startswith("("):
-                raise
-            raise InvalidRepresentationError(f"{option} {text!r}: {exc}") from None
+        except (ParseError, InvalidRepresentationError) as exc:
+            raise type(exc)(f"{option} {text!r}: {exc}") from None
     if len(out) == 1 and one_allowed:
         return out[0]
     return out

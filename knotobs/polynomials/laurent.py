@@ -42,6 +42,12 @@ def _frac(e: Exponent) -> Fraction:
     raise TypeError(f"exponent must be an int or Fraction, not {type(e).__name__}")
 
 
+def _cancel_digits_of(p: fmpz_poly, terms: int | None = None) -> int:
+    """Digits a sum of the terms of ``p`` (at most ``terms`` of them; default its length) can lose to
+    cancellation: the size of the largest coefficient and of the number of terms."""
+    return int(0.302 * p.height_bits()) + len(str(p.degree() + 1 if terms is None else terms))
+
+
 class Laurent:
     """Exact Laurent polynomial ``sum_e c_e x^e`` with ``e`` rational.
 
@@ -389,9 +395,8 @@ class Laurent:
             return self.evaluate(log_x=2j * mpmath.pi / Kv, dps=dps)
 
     def _cancel_digits(self) -> int:
-        """Digits a sum of these terms can lose to cancellation: the size of the largest
-        coefficient and of the number of terms."""
-        return int(0.302 * self._p.height_bits()) + len(str(self._p.degree() + 1))
+        """Digits a sum of these terms can lose to cancellation (:func:`_cancel_digits_of`)."""
+        return _cancel_digits_of(self._p)
 
     def _at_integer_root(self, K: int, dps: int):
         """``at_root_of_unity`` at an integer ``K`` for a canonical element whose span exceeds the
@@ -402,7 +407,7 @@ class Laurent:
 
         n = K * self._d
         red = self._p % fmpz_poly([-1] + [0] * (n - 1) + [1])
-        with working_precision(dps + 10 + int(0.302 * red.height_bits()) + len(str(n))):
+        with working_precision(dps + 10 + _cancel_digits_of(red, n)):
             y = acb.exp_pi_i(acb(2) / n)
             val = acb_poly(red.coeffs())(y) * acb.exp_pi_i(acb(2 * (self._s % n)) / n)
             return mpmath.mpc(mpmath.mpf(val.real.mid().str(dps + 10, radius=False)),
